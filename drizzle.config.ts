@@ -1,0 +1,11 @@
+import { defineConfig } from 'drizzle-kit';
+import { config } from './src/lib/server/config';
+
+export default defineConfig({
+	dialect: 'mysql',
+	schema: './src/lib/server/db/schema.ts',
+	out: './drizzle',
+	dbCredentials: { url: config.db.url },
+	strict: true,
+	verbose: true
+});

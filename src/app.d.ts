@@ -1,0 +1,15 @@
+import type { PublicUser } from '$lib/server/db/schema';
+
+declare global {
+	namespace App {
+		interface Error {
+			message: string;
+		}
+		interface Locals {
+			user: Pick<PublicUser, 'id' | 'email' | 'name' | 'role'> | null;
+			session: { id: string; expiresAt: Date } | null;
+		}
+	}
+}
+
+export {};

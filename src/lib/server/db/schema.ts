@@ -1,0 +1,344 @@
+import {
+	mysqlTable,
+	varchar,
+	int,
+	boolean,
+	datetime,
+	date,
+	text,
+	json,
+	mysqlEnum,
+	primaryKey,
+	uniqueIndex,
+	index
+} from 'drizzle-orm/mysql-core';
+
+export const roles = ['owner', 'helper', 'customer'] as const;
+export type Role = (typeof roles)[number];
+
+export const users = mysqlTable('users', {
+	id: varchar('id', { length: 36 }).primaryKey(),
+	email: varchar('email', { length: 255 }).notNull().unique(),
+	name: varchar('name', { length: 120 }).notNull(),
+	passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+	role: mysqlEnum('role', roles).notNull().default('customer'),
+	createdAt: datetime('created_at').notNull()
+});
+
+/** Session id is the SHA-256 hex of the cookie token; the token itself is never stored. */
+export const sessions = mysqlTable('sessions', {
+	id: varchar('id', { length: 64 }).primaryKey(),
+	userId: varchar('user_id', { length: 36 })
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expiresAt: datetime('expires_at').notNull()
+});
+
+/** Single-use reset tokens, stored hashed like sessions. */
+export const passwordResets = mysqlTable('password_resets', {
+	id: varchar('id', { length: 64 }).primaryKey(),
+	userId: varchar('user_id', { length: 36 })
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expiresAt: datetime('expires_at').notNull(),
+	usedAt: datetime('used_at')
+});
+
+export const woods = mysqlTable('woods', {
+	id: int('id').autoincrement().primaryKey(),
+	slug: varchar('slug', { length: 40 }).notNull().unique(),
+	name: varchar('name', { length: 80 }).notNull(),
+	botanicalName: varchar('botanical_name', { length: 120 }).notNull(),
+	/** Specific gravity at 12 % MC, in thousandths (0.37 → 370). */
+	specificGravityMilli: int('specific_gravity_milli').notNull(),
+	densityKgM3: int('density_kg_m3').notNull(),
+	sideHardnessN: int('side_hardness_n').notNull(),
+	priceAddOnMinor: int('price_add_on_minor').notNull().default(0),
+	toneLight: varchar('tone_light', { length: 7 }).notNull(),
+	toneDark: varchar('tone_dark', { length: 7 }).notNull(),
+	character: varchar('character', { length: 255 }).notNull(),
+	caution: text('caution')
+});
+
+export const pieceKinds = ['bottle_holder', 'plate', 'box', 'ornament', 'spoon', 'board'] as const;
+export type PieceKind = (typeof pieceKinds)[number];
+
+export const pieces = mysqlTable('pieces', {
+	id: int('id').autoincrement().primaryKey(),
+	slug: varchar('slug', { length: 80 }).notNull().unique(),
+	title: varchar('title', { length: 120 }).notNull(),
+	kind: mysqlEnum('kind', pieceKinds).notNull(),
+	summary: varchar('summary', { length: 255 }).notNull(),
+	description: text('description').notNull(),
+	lengthMm: int('length_mm').notNull(),
+	widthMm: int('width_mm').notNull(),
+	thicknessMm: int('thickness_mm').notNull(),
+	basePriceMinor: int('base_price_minor').notNull(),
+	currency: varchar('currency', { length: 3 }).notNull().default('USD'),
+	personalisable: boolean('personalisable').notNull().default(false),
+	foodContact: boolean('food_contact').notNull().default(false),
+	leadDays: int('lead_days').notNull().default(14),
+	/** Default rosette layout for this piece: { diameterMm, count, spacingMm, split }. */
+	pattern: json('pattern').$type<PiecePattern>().notNull(),
+	active: boolean('active').notNull().default(true),
+	createdAt: datetime('created_at').notNull()
+});
+
+export type PiecePattern = {
+	diameterMm: number;
+	count: number;
+	spacingMm?: number;
+	split?: boolean;
+};
+
+/** Which woods a piece can be made in. */
+export const pieceWoods = mysqlTable(
+	'piece_woods',
+	{
+		pieceId: int('piece_id')
+			.notNull()
+			.references(() => pieces.id, { onDelete: 'cascade' }),
+		woodId: int('wood_id')
+			.notNull()
+			.references(() => woods.id)
+	},
+	(t) => [primaryKey({ columns: [t.pieceId, t.woodId] })]
+);
+
+export const photos = mysqlTable('photos', {
+	id: int('id').autoincrement().primaryKey(),
+	pieceId: int('piece_id')
+		.notNull()
+		.references(() => pieces.id, { onDelete: 'cascade' }),
+	/** Object key prefix in the photo bucket; variants live at `${key}/${width}.webp`. */
+	storageKey: varchar('storage_key', { length: 200 }).notNull(),
+	alt: varchar('alt', { length: 200 }).notNull(),
+	position: int('position').notNull().default(0),
+	width: int('width').notNull(),
+	height: int('height').notNull()
+});
+
+/** Finished pieces on hand per piece × wood × place ('workshop' or 'fair:<id>'). */
+export const stock = mysqlTable(
+	'stock',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		pieceId: int('piece_id')
+			.notNull()
+			.references(() => pieces.id, { onDelete: 'cascade' }),
+		woodId: int('wood_id')
+			.notNull()
+			.references(() => woods.id),
+		place: varchar('place', { length: 40 }).notNull().default('workshop'),
+		quantity: int('quantity').notNull().default(0)
+	},
+	(t) => [uniqueIndex('stock_piece_wood_place').on(t.pieceId, t.woodId, t.place)]
+);
+
+export const carts = mysqlTable('carts', {
+	id: varchar('id', { length: 36 }).primaryKey(),
+	userId: varchar('user_id', { length: 36 }).references(() => users.id, { onDelete: 'set null' }),
+	destination: varchar('destination', { length: 2 }),
+	createdAt: datetime('created_at').notNull(),
+	updatedAt: datetime('updated_at').notNull()
+});
+
+export const cartLines = mysqlTable('cart_lines', {
+	id: int('id').autoincrement().primaryKey(),
+	cartId: varchar('cart_id', { length: 36 })
+		.notNull()
+		.references(() => carts.id, { onDelete: 'cascade' }),
+	pieceId: int('piece_id')
+		.notNull()
+		.references(() => pieces.id),
+	woodId: int('wood_id')
+		.notNull()
+		.references(() => woods.id),
+	quantity: int('quantity').notNull().default(1),
+	/** Snapshot of the personaliser inputs, recomputed by the server. */
+	personalisation: json('personalisation').$type<Personalisation>(),
+	createdAt: datetime('created_at').notNull()
+});
+
+export type Personalisation = {
+	initials: string;
+	style: string;
+	diameterMm: number;
+	count: number;
+	spacingMm: number;
+	split: boolean;
+	chipCount?: number;
+	cutLengthMm?: number;
+	estimateMinutes?: number;
+};
+
+export const orderStatuses = [
+	'pending',
+	'paid',
+	'carving',
+	'finishing',
+	'packed',
+	'shipped',
+	'cancelled',
+	'refunded'
+] as const;
+export type OrderStatus = (typeof orderStatuses)[number];
+
+export type Address = {
+	line1: string;
+	line2?: string;
+	city: string;
+	region?: string;
+	postcode: string;
+	country: string;
+};
+
+export const orders = mysqlTable(
+	'orders',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		ref: varchar('ref', { length: 16 }).notNull().unique(),
+		userId: varchar('user_id', { length: 36 }).references(() => users.id, {
+			onDelete: 'set null'
+		}),
+		cartId: varchar('cart_id', { length: 36 }),
+		email: varchar('email', { length: 255 }).notNull(),
+		buyerName: varchar('buyer_name', { length: 120 }).notNull(),
+		address: json('address').$type<Address>().notNull(),
+		giftNote: varchar('gift_note', { length: 500 }),
+		currency: varchar('currency', { length: 3 }).notNull(),
+		subtotalMinor: int('subtotal_minor').notNull(),
+		shippingMinor: int('shipping_minor').notNull(),
+		taxMinor: int('tax_minor').notNull().default(0),
+		totalMinor: int('total_minor').notNull(),
+		status: mysqlEnum('status', orderStatuses).notNull().default('pending'),
+		checkoutSessionId: varchar('checkout_session_id', { length: 255 }),
+		paymentIntentId: varchar('payment_intent_id', { length: 255 }),
+		refundedMinor: int('refunded_minor').notNull().default(0),
+		readyBy: date('ready_by', { mode: 'string' }),
+		holdExpiresAt: datetime('hold_expires_at'),
+		createdAt: datetime('created_at').notNull(),
+		paidAt: datetime('paid_at')
+	},
+	(t) => [index('orders_status').on(t.status), index('orders_session').on(t.checkoutSessionId)]
+);
+
+export const orderLines = mysqlTable('order_lines', {
+	id: int('id').autoincrement().primaryKey(),
+	orderId: int('order_id')
+		.notNull()
+		.references(() => orders.id, { onDelete: 'cascade' }),
+	pieceId: int('piece_id')
+		.notNull()
+		.references(() => pieces.id),
+	woodId: int('wood_id')
+		.notNull()
+		.references(() => woods.id),
+	title: varchar('title', { length: 120 }).notNull(),
+	woodName: varchar('wood_name', { length: 80 }).notNull(),
+	quantity: int('quantity').notNull(),
+	unitPriceMinor: int('unit_price_minor').notNull(),
+	lineTotalMinor: int('line_total_minor').notNull(),
+	/** Taken from workshop stock (held, then sold) rather than made to order. */
+	fromStock: boolean('from_stock').notNull().default(false),
+	personalisation: json('personalisation').$type<Personalisation>()
+});
+
+export const shipments = mysqlTable('shipments', {
+	id: int('id').autoincrement().primaryKey(),
+	orderId: int('order_id')
+		.notNull()
+		.references(() => orders.id, { onDelete: 'cascade' }),
+	carrier: varchar('carrier', { length: 60 }).notNull(),
+	trackingNumber: varchar('tracking_number', { length: 80 }).notNull(),
+	shippedAt: datetime('shipped_at').notNull()
+});
+
+/** Shipping rate table: price for parcels up to a weight in a destination zone. */
+export const shippingRates = mysqlTable('shipping_rates', {
+	id: int('id').autoincrement().primaryKey(),
+	zone: varchar('zone', { length: 20 }).notNull(),
+	upToGrams: int('up_to_grams').notNull(),
+	priceMinor: int('price_minor').notNull()
+});
+
+/** Owner settings as small JSON values keyed by name (sales tax, effort model, shop name). */
+export const settings = mysqlTable('settings', {
+	key: varchar('key', { length: 60 }).primaryKey(),
+	value: json('value').notNull()
+});
+
+export const fairs = mysqlTable('fairs', {
+	id: int('id').autoincrement().primaryKey(),
+	name: varchar('name', { length: 120 }).notNull(),
+	place: varchar('place', { length: 160 }).notNull(),
+	startsOn: date('starts_on', { mode: 'string' }).notNull(),
+	endsOn: date('ends_on', { mode: 'string' }).notNull(),
+	currency: varchar('currency', { length: 3 }).notNull().default('USD'),
+	boothFeeMinor: int('booth_fee_minor').notNull().default(0),
+	/** Sales-tax rate in basis points (7.65 % → 765). */
+	salesTaxBp: int('sales_tax_bp').notNull().default(0),
+	cashFloatMinor: int('cash_float_minor').notNull().default(0),
+	notes: text('notes')
+});
+
+export const fairStock = mysqlTable(
+	'fair_stock',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		fairId: int('fair_id')
+			.notNull()
+			.references(() => fairs.id, { onDelete: 'cascade' }),
+		pieceId: int('piece_id')
+			.notNull()
+			.references(() => pieces.id),
+		woodId: int('wood_id')
+			.notNull()
+			.references(() => woods.id),
+		loadedOut: int('loaded_out').notNull().default(0),
+		countedBack: int('counted_back')
+	},
+	(t) => [uniqueIndex('fair_stock_line').on(t.fairId, t.pieceId, t.woodId)]
+);
+
+export const paymentMethods = ['cash', 'card', 'other'] as const;
+
+export const boothSales = mysqlTable('booth_sales', {
+	/** Generated on the phone so a sale synced twice is stored once. */
+	id: varchar('id', { length: 36 }).primaryKey(),
+	fairId: int('fair_id')
+		.notNull()
+		.references(() => fairs.id, { onDelete: 'cascade' }),
+	method: mysqlEnum('method', paymentMethods).notNull(),
+	lines: json('lines').$type<{ pieceId: number; woodId: number; quantity: number; unitPriceMinor: number }[]>().notNull(),
+	subtotalMinor: int('subtotal_minor').notNull(),
+	taxMinor: int('tax_minor').notNull().default(0),
+	totalMinor: int('total_minor').notNull(),
+	soldAt: datetime('sold_at').notNull(),
+	recordedBy: varchar('recorded_by', { length: 36 }).references(() => users.id, {
+		onDelete: 'set null'
+	})
+});
+
+export const tallies = mysqlTable('tallies', {
+	id: int('id').autoincrement().primaryKey(),
+	fairId: int('fair_id')
+		.notNull()
+		.references(() => fairs.id, { onDelete: 'cascade' }),
+	day: date('day', { mode: 'string' }).notNull(),
+	cashCountedMinor: int('cash_counted_minor'),
+	cardReportedMinor: int('card_reported_minor'),
+	createdBy: varchar('created_by', { length: 36 }).references(() => users.id, {
+		onDelete: 'set null'
+	}),
+	createdAt: datetime('created_at').notNull()
+});
+
+export const processedEvents = mysqlTable('processed_events', {
+	id: varchar('id', { length: 255 }).primaryKey(),
+	type: varchar('type', { length: 100 }).notNull(),
+	processedAt: datetime('processed_at').notNull()
+});
+
+export type User = typeof users.$inferSelect;
+export type PublicUser = Omit<User, 'passwordHash'>;

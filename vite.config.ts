@@ -1,0 +1,14 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vite';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	test: {
+		include: ['tests/unit/**/*.test.ts'],
+		environment: 'node',
+		testTimeout: 20000,
+		hookTimeout: 60000,
+		fileParallelism: false
+	}
+});
