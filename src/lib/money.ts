@@ -1,0 +1,86 @@
+/**
+ * Money as integer minor units plus an ISO 4217 currency code. No floats ever hold an amount:
+ * the only division is the tax rate, and it is rounded once per line (half-up, see `lineTax`).
+ */
+
+/** Minor-unit digits per ISO 4217 (the "minor unit" column of the currency code list). */
+export const MINOR_DIGITS: Record<string, number> = {
+	USD: 2,
+	EUR: 2,
+	GBP: 2,
+	CAD: 2,
+	AUD: 2,
+	CHF: 2,
+	JPY: 0,
+	KRW: 0,
+	BHD: 3,
+	KWD: 3
+};
+
+export type Money = { minor: number; currency: string };
+
+export function minorDigits(currency: string): number {
+	const digits = MINOR_DIGITS[currency.toUpperCase()];
+	if (digits === undefined) throw new Error(`Unknown currency ${currency}`);
+	return digits;
+}
+
+function assertMinor(minor: number) {
+	if (!Number.isSafeInteger(minor)) throw new Error(`Amount must be whole minor units, got ${minor}`);
+}
+
+/** Shows an amount the way the buyer's locale writes it, with the currency's own decimals. */
+export function formatMoney(minor: number, currency: string, locale = 'en-US'): string {
+	assertMinor(minor);
+	const digits = minorDigits(currency);
+	return new Intl.NumberFormat(locale, {
+		style: 'currency',
+		currency,
+		minimumFractionDigits: digits,
+		maximumFractionDigits: digits
+	}).format(minor / 10 ** digits);
+}
+
+/** Parses a typed major amount ("12.50") into minor units without float drift. */
+export function parseMajor(text: string, currency: string): number | null {
+	const digits = minorDigits(currency);
+	const m = /^\s*(\d+)(?:\.(\d+))?\s*$/.exec(text);
+	if (!m) return null;
+	const frac = m[2] ?? '';
+	if (frac.length > digits) return null;
+	return Number(m[1]) * 10 ** digits + Number(frac.padEnd(digits, '0') || '0');
+}
+
+/** Line total: unit price × quantity, exact in minor units. */
+export function lineTotal(unitMinor: number, quantity: number): number {
+	assertMinor(unitMinor);
+	if (!Number.isInteger(quantity) || quantity < 0) throw new Error('Quantity must be a whole number');
+	return unitMinor * quantity;
+}
+
+/**
+ * Sales tax on one line, rounded once on the line total (not per unit), half-up
+ * (half a minor unit goes up). The rate is in basis points: 7.25 % → 725.
+ * Integer arithmetic: floor((amount·bp + 5000) / 10000) is half-up for non-negative amounts.
+ */
+export function lineTax(lineMinor: number, rateBp: number): number {
+	assertMinor(lineMinor);
+	if (!Number.isInteger(rateBp) || rateBp < 0) throw new Error('Tax rate must be whole basis points');
+	if (lineMinor < 0) throw new Error('Line total cannot be negative');
+	return Math.floor((lineMinor * rateBp + 5000) / 10000);
+}
+
+export type PricedLine = { unitMinor: number; quantity: number };
+
+/** Totals for a set of lines: tax rounded per line, then summed; shipping is not taxed here. */
+export function totals(lines: PricedLine[], rateBp: number, shippingMinor: number) {
+	let subtotal = 0;
+	let tax = 0;
+	for (const l of lines) {
+		const t = lineTotal(l.unitMinor, l.quantity);
+		subtotal += t;
+		tax += lineTax(t, rateBp);
+	}
+	assertMinor(shippingMinor);
+	return { subtotalMinor: subtotal, taxMinor: tax, shippingMinor, totalMinor: subtotal + tax + shippingMinor };
+}
