@@ -85,15 +85,21 @@ export const config = {
 		get webhookSecret() {
 			return e.STRIPE_WEBHOOK_SECRET || 'whsec_chipstall_local';
 		},
-		/** Host, port and protocol of the API; unset in production (the SDK's defaults). */
-		get host() {
-			return e.STRIPE_API_HOST ?? '127.0.0.1';
+		/**
+		 * Host, port and protocol of the API. Local defaults point at mocks/stripe; production sets
+		 * the variables to an empty string (or the real values) so the SDK uses its own defaults.
+		 */
+		get host(): string | undefined {
+			const v = e.STRIPE_API_HOST;
+			return v === undefined ? '127.0.0.1' : v || undefined;
 		},
-		get port() {
-			return num(e.STRIPE_API_PORT, 12111);
+		get port(): number | undefined {
+			const v = e.STRIPE_API_PORT;
+			return v === undefined ? 12111 : v ? Number(v) : undefined;
 		},
-		get protocol() {
-			return (e.STRIPE_API_PROTOCOL ?? 'http') as 'http' | 'https';
+		get protocol(): 'http' | 'https' | undefined {
+			const v = e.STRIPE_API_PROTOCOL;
+			return v === undefined ? 'http' : (v as 'http' | 'https') || undefined;
 		}
 	},
 	/** Signs buyers' order links; set a long random value in production. */

@@ -1,0 +1,27 @@
+import { error } from '@sveltejs/kit';
+import { getObject } from '$lib/server/storage';
+import type { RequestHandler } from './$types';
+
+/** Serves stored photo variants, e.g. /photos/pieces/rosette-plate/a1b2/640.webp. */
+export const GET: RequestHandler = async ({ params, request }) => {
+	const key = params.key;
+	// Only the WebP variants storePhoto writes; nothing else in the bucket is public.
+	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.webp$/i.test(key) || key.includes('..')) error(404, 'No such photo');
+	const obj = await getObject(key);
+	if (!obj) error(404, 'No such photo');
+
+	const headers: Record<string, string> = {
+		'content-type': obj.contentType,
+		// Variant keys change when a photo is replaced, so they can be cached for long.
+		'cache-control': 'public, max-age=31536000, immutable'
+	};
+	if (obj.etag) headers.etag = obj.etag;
+	if (obj.contentLength !== undefined) headers['content-length'] = String(obj.contentLength);
+	if (obj.lastModified) headers['last-modified'] = obj.lastModified.toUTCString();
+
+	if (obj.etag && request.headers.get('if-none-match') === obj.etag) {
+		await obj.body.cancel();
+		return new Response(null, { status: 304, headers: { etag: obj.etag, 'cache-control': headers['cache-control'] } });
+	}
+	return new Response(obj.body, { headers });
+};
