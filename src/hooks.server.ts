@@ -1,11 +1,45 @@
+import { sequence } from '@sveltejs/kit/hooks';
 import type { Handle, HandleServerError } from '@sveltejs/kit';
+import {
+	clearSessionCookie,
+	sessionCookieName,
+	setSessionCookie,
+	validateToken
+} from '$lib/server/auth/lucia';
+import { toApiErrorResponse } from '$lib/server/api-errors';
 
-// Replaced by the session handle once sign-in lands.
-export const handle: Handle = async ({ event, resolve }) => {
+/** Loads the signed-in user from the session cookie; renews or clears the cookie as needed. */
+const sessionHandle: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	event.locals.session = null;
+	const token = event.cookies.get(sessionCookieName);
+	if (!token) return resolve(event);
+
+	const { session, user } = await validateToken(token);
+	if (!session) {
+		clearSessionCookie(event.cookies);
+		return resolve(event);
+	}
+	// lucia pushed the expiry forward: send the cookie again with the new lifetime.
+	if (session.fresh) setSessionCookie(event.cookies, token);
+	event.locals.session = { id: session.id, expiresAt: session.expiresAt };
+	event.locals.user = { id: user.id, email: user.email, name: user.name, role: user.role };
 	return resolve(event);
 };
 
-/** API routes answer errors as JSON `{ error }`; pages get the error page. */
-export const handleError: HandleServerError = ({ message }) => ({ message });
+/** Every error under /api/ answers JSON `{ error, fields? }`, whatever threw it. */
+const apiErrors: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
+	return toApiErrorResponse(response);
+};
+
+export const handle = sequence(sessionHandle, apiErrors);
+
+/** Unexpected errors: logged here in full, shown to the visitor without any detail. */
+export const handleError: HandleServerError = ({ error, status, message }) => {
+	if (status === 404) return { message: 'There is nothing at this address.' };
+	if (status < 500) return { message };
+	console.error(error);
+	return { message: 'Something went wrong on our side. Please try again in a moment.' };
+};

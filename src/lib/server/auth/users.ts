@@ -1,0 +1,66 @@
+import { eq } from 'drizzle-orm';
+import { db } from '../db';
+import { users, type Role } from '../db/schema';
+import { burnVerifyTime, hashPassword, verifyPassword } from './password';
+
+export type AccountUser = { id: string; email: string; name: string; role: Role };
+
+const publicColumns = { id: users.id, email: users.email, name: users.name, role: users.role };
+
+/** MySQL/MariaDB "duplicate entry" on a unique index (ER_DUP_ENTRY). */
+export function isDuplicateKey(err: unknown): boolean {
+	for (let e = err; e && typeof e === 'object'; e = (e as { cause?: unknown }).cause) {
+		if ((e as { errno?: number }).errno === 1062) return true;
+	}
+	return false;
+}
+
+export async function findUserByEmail(email: string): Promise<AccountUser | null> {
+	const [row] = await db.select(publicColumns).from(users).where(eq(users.email, email)).limit(1);
+	return row ?? null;
+}
+
+/** The account for this e-mail and password, or null without saying which part was wrong. */
+export async function authenticate(email: string, password: string): Promise<AccountUser | null> {
+	const [row] = await db
+		.select({ ...publicColumns, passwordHash: users.passwordHash })
+		.from(users)
+		.where(eq(users.email, email))
+		.limit(1);
+	if (!row) {
+		await burnVerifyTime(password);
+		return null;
+	}
+	if (!(await verifyPassword(row.passwordHash, password))) return null;
+	const { passwordHash: _omit, ...user } = row;
+	return user;
+}
+
+export type NewAccount = { name: string; email: string; password: string; role?: Role };
+
+/**
+ * Creates an account. A taken e-mail is reported, not thrown — also when two sign-ups race
+ * past the look-up and the unique index is what stops the second.
+ */
+export async function createAccount(
+	input: NewAccount
+): Promise<{ ok: true; user: AccountUser } | { ok: false; reason: 'email-taken' }> {
+	if (await findUserByEmail(input.email)) return { ok: false, reason: 'email-taken' };
+	const user: AccountUser = {
+		id: crypto.randomUUID(),
+		email: input.email,
+		name: input.name,
+		role: input.role ?? 'customer'
+	};
+	try {
+		await db.insert(users).values({
+			...user,
+			passwordHash: await hashPassword(input.password),
+			createdAt: new Date()
+		});
+	} catch (err) {
+		if (isDuplicateKey(err)) return { ok: false, reason: 'email-taken' };
+		throw err;
+	}
+	return { ok: true, user };
+}
