@@ -6,7 +6,9 @@ const config = {
 	preprocess: vitePreprocess(),
 	compilerOptions: { runes: true },
 	kit: {
-		adapter: adapter(),
+		// The test command builds into its own folders so it never overwrites `build/` under a running app.
+		adapter: adapter({ out: process.env.CHIPSTALL_BUILD_DIR || 'build' }),
+		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
 		csrf: { trustedOrigins: [] }
 	}
 };

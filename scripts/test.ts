@@ -1,0 +1,145 @@
+/**
+ * `npm test` — unit tests (vitest, tests/unit) then end-to-end tests (Playwright, tests/e2e).
+ * `npm test -- unit [vitest args]` or `npm test -- e2e [playwright args]` runs one half.
+ *
+ * Starts MariaDB and the stand-ins on test ports of their own (so a running `npm start` does
+ * not clash), uses a fresh database each run (TEST_DB_NAME, default chipstall_test), builds the
+ * app into a folder of its own and stops everything it started. The exit code is the failures'.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import mysql from 'mysql2/promise';
+import {
+	adminConnection,
+	databaseUrl,
+	ensureMariadb,
+	releaseMariadb,
+	type MariadbHandle
+} from './lib/mariadb';
+import { DATA_DIR, BIN } from './lib/paths';
+import { run, startMocks, stopAll, type Started } from './lib/services';
+
+const args = process.argv.slice(2);
+const part = args[0] === 'unit' || args[0] === 'e2e' ? args.shift()! : 'all';
+const t0 = Date.now();
+
+const e = process.env;
+const testDb = e.TEST_DB_NAME || 'chipstall_test';
+const appPort = e.TEST_APP_PORT || '3100';
+const s3Port = e.TEST_S3_PORT || '4669';
+// Test ports for the stand-ins and the app; TEST_* lets helpers running side by side pick others.
+Object.assign(e, {
+	SMTP_HOST: '127.0.0.1',
+	SMTP_PORT: e.TEST_SMTP_PORT || '2625',
+	MAIL_INBOX_PORT: e.TEST_INBOX_PORT || '8125',
+	S3_PORT: s3Port,
+	S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
+	STRIPE_API_HOST: '127.0.0.1',
+	STRIPE_API_PORT: e.TEST_STRIPE_PORT || '12211',
+	STRIPE_API_PROTOCOL: 'http',
+	PORT: appPort,
+	ORIGIN: `http://localhost:${appPort}`,
+	DB_NAME: testDb,
+	CHIPSTALL_BUILD_DIR: path.join(DATA_DIR, 'test-build', testDb, 'app'),
+	S3_DIR: path.join(DATA_DIR, 'test-build', testDb, 's3')
+});
+
+function ensureChromium() {
+	const chromium = e.CHROMIUM_PATH || '/usr/bin/chromium';
+	if (existsSync(chromium)) return;
+	if (process.getuid?.() !== 0) {
+		throw new Error(`${chromium} is missing: install it with \`sudo apt-get install -y chromium\``);
+	}
+	console.log('Installing chromium with apt (one time)…');
+	const env = { ...e, DEBIAN_FRONTEND: 'noninteractive' };
+	for (const a of [['update'], ['install', '-y', '--no-install-recommends', 'chromium']]) {
+		if (spawnSync('apt-get', a, { stdio: 'inherit', env }).status !== 0) throw new Error(`apt-get ${a.join(' ')} failed`);
+	}
+}
+
+/** Drops and recreates the test database, applies the migrations, optionally seeds the demo. */
+async function freshDatabase(url: string, seed: boolean) {
+	const admin = await adminConnection();
+	try {
+		await admin.query(`DROP DATABASE IF EXISTS ${mysql.escapeId(testDb)}`);
+		await admin.query(
+			`CREATE DATABASE ${mysql.escapeId(testDb)} CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`
+		);
+	} finally {
+		await admin.end();
+	}
+	const { runMigrations } = await import('../src/lib/server/db/migrate');
+	await runMigrations(url);
+	if (seed) {
+		const { seedDemoAt } = await import('../src/lib/server/seed/demo');
+		await seedDemoAt(url);
+	}
+}
+
+let mariadb: MariadbHandle | null = null;
+let mocks: Started[] = [];
+let exitCode = 1;
+const timings: string[] = [];
+const lap = (label: string, since: number) => timings.push(`${label} ${((Date.now() - since) / 1000).toFixed(1)} s`);
+
+async function cleanUp() {
+	await stopAll(mocks);
+	mocks = [];
+	if (mariadb) {
+		const m = mariadb;
+		mariadb = null;
+		await releaseMariadb(m).catch((err) => console.error(String(err)));
+	}
+}
+
+for (const sig of ['SIGINT', 'SIGTERM'] as const) {
+	process.once(sig, () => {
+		void cleanUp().finally(() => process.exit(130));
+	});
+}
+
+try {
+	if (part !== 'unit') ensureChromium();
+	let t = Date.now();
+	mariadb = await ensureMariadb();
+	const url = databaseUrl(testDb);
+	const env = { ...e, DATABASE_URL: url };
+	// A fresh photo store each run, like the database.
+	rmSync(e.S3_DIR!, { recursive: true, force: true });
+	mocks = await startMocks(env);
+	lap('services', t);
+
+	let failed = false;
+	if (part !== 'e2e') {
+		t = Date.now();
+		await freshDatabase(url, true);
+		const code = await run(BIN('vitest'), ['run', ...args], env);
+		lap('unit', t);
+		if (code !== 0) failed = true;
+	}
+	if (part !== 'unit') {
+		t = Date.now();
+		// Its own kit folder too, so a build here never clashes with `npm start` or another run.
+		const kitDir = path.join(DATA_DIR, 'test-build', testDb, 'kit');
+		const buildCode = await run(BIN('vite'), ['build', '--logLevel', 'warn'], { ...env, CHIPSTALL_KIT_DIR: kitDir });
+		lap('build', t);
+		if (buildCode !== 0) {
+			failed = true;
+		} else {
+			t = Date.now();
+			await freshDatabase(url, true);
+			const code = await run(BIN('playwright'), ['test', ...args], env);
+			lap('e2e', t);
+			if (code !== 0) failed = true;
+		}
+	}
+	exitCode = failed ? 1 : 0;
+} catch (err) {
+	console.error(err instanceof Error ? err.message : err);
+	exitCode = 1;
+} finally {
+	await cleanUp();
+}
+console.log(`\n${exitCode === 0 ? 'Tests passed' : 'Tests FAILED'} (${timings.join(', ')}; total ${((Date.now() - t0) / 1000).toFixed(0)} s)`);
+process.exit(exitCode);
