@@ -17,7 +17,7 @@ import {
 	releaseMariadb,
 	type MariadbHandle
 } from './lib/mariadb';
-import { DATA_DIR, BIN } from './lib/paths';
+import { BIN, DATA_DIR, ROOT } from './lib/paths';
 import { run, startMocks, stopAll, type Started } from './lib/services';
 
 const args = process.argv.slice(2);
@@ -122,6 +122,8 @@ try {
 		t = Date.now();
 		// Its own kit folder too, so a build here never clashes with `npm start` or another run.
 		const kitDir = path.join(DATA_DIR, 'test-build', testDb, 'kit');
+		// tsconfig.json extends the default kit folder's tsconfig, which the build reads.
+		if (!existsSync(path.join(ROOT, '.svelte-kit', 'tsconfig.json'))) await run(BIN('svelte-kit'), ['sync'], env);
 		const buildCode = await run(BIN('vite'), ['build', '--logLevel', 'warn'], { ...env, CHIPSTALL_KIT_DIR: kitDir });
 		lap('build', t);
 		if (buildCode !== 0) {

@@ -18,10 +18,14 @@ function filesUnder(dir: string): string[] {
 /** XML namespace names are identifiers, not addresses: the browser never fetches them. */
 const NAMESPACES = /^https?:\/\/www\.w3\.org\/(2000\/svg|1999\/xhtml|1999\/xlink|1998\/Math\/MathML|XML\/1998\/namespace|2000\/xmlns\/?)$/;
 const LOOPBACK = /^https?:\/\/(localhost|127\.0\.0\.1)([:/]|$)/;
+/** Svelte's production error messages end in a link to the error's explanation: text, never fetched. */
+const SVELTE_ERROR_TEXT = /^https:\/\/svelte\.dev\/e\//;
 
 function outsideUrls(text: string): string[] {
-	return (text.match(/https?:\/\/[^\s"'`)<>\\]+/g) ?? []).filter(
-		(u) => !NAMESPACES.test(u) && !LOOPBACK.test(u)
+	// `/*! … */` comments are licence banners (kept as the licences ask), not requests.
+	const code = text.replace(/\/\*![\s\S]*?\*\//g, '');
+	return (code.match(/https?:\/\/[^\s"'`)<>\\]+/g) ?? []).filter(
+		(u) => !NAMESPACES.test(u) && !LOOPBACK.test(u) && !SVELTE_ERROR_TEXT.test(u)
 	);
 }
 
