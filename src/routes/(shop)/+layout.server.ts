@@ -1,6 +1,7 @@
+import { cartCount, cartIdFrom } from '$lib/server/cart';
 import type { LayoutServerLoad } from './$types';
 
-export const load: LayoutServerLoad = async ({ locals }) => {
-	// The basket count is filled in by the cart module once it exists.
-	return { user: locals.user, cartCount: 0 };
+export const load: LayoutServerLoad = async ({ locals, cookies, depends }) => {
+	depends('app:cart');
+	return { user: locals.user, cartCount: await cartCount(cartIdFrom(cookies)) };
 };

@@ -1,5 +1,6 @@
 import type { MySql2Database } from 'drizzle-orm/mysql2';
 import type * as schema from '../db/schema';
+import { demoPhotos } from './photos';
 
 export type SeedDb = MySql2Database<typeof schema>;
 
@@ -20,4 +21,4 @@ export type DemoExtra = {
  * uploaded to the S3 stand-in, for instance). Add a step here; a failing step is reported and
  * does not undo the demo data.
  */
-export const demoExtras: DemoExtra[] = [];
+export const demoExtras: DemoExtra[] = [demoPhotos];

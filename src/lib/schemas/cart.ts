@@ -1,0 +1,46 @@
+import { z } from 'zod';
+
+const quantity = z.coerce
+	.number({ error: 'Choose how many.' })
+	.int('Choose a whole number.')
+	.min(1, 'Choose at least one.')
+	.max(10, 'At most 10 of one piece per order; write to us for more.');
+
+/** Adding a piece; the personalisation fields are checked again by the pattern schema. */
+export const addLineSchema = z.object({
+	slug: z.string().trim().min(1, 'Pick a piece.').max(80),
+	wood: z
+		.string({ error: 'Choose a wood.' })
+		.trim()
+		.min(1, 'Choose a wood.')
+		.max(40)
+		.regex(/^[a-z][a-z-]*$/, 'Choose one of the woods listed.'),
+	quantity: quantity.default(1),
+	initials: z.string().trim().max(20).optional(),
+	style: z.string().trim().max(40).optional()
+});
+
+export const setQuantitySchema = z.object({
+	lineId: z.coerce.number().int().positive('Unknown line.'),
+	quantity: z.coerce.number().int('Choose a whole number.').min(0).max(10, 'At most 10 of one piece.')
+});
+
+export const removeLineSchema = setQuantitySchema.pick({ lineId: true });
+
+export const destinationSchema = z.object({
+	country: z
+		.string()
+		.trim()
+		.toUpperCase()
+		.regex(/^[A-Z]{2}$/, 'Choose a country.')
+});
+
+/** zod issues → { field: [messages] } for forms and JSON errors. */
+export function fieldErrors(error: z.ZodError): Record<string, string[]> {
+	const out: Record<string, string[]> = {};
+	for (const issue of error.issues) {
+		const key = String(issue.path[0] ?? 'form');
+		(out[key] ??= []).push(issue.message);
+	}
+	return out;
+}

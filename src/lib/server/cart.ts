@@ -1,0 +1,226 @@
+import type { Cookies } from '@sveltejs/kit';
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import { db } from './db';
+import { cartLines, carts, pieces, pieceWoods, woods, type Personalisation } from './db/schema';
+import { priceCart, stockOnHand } from './pricing';
+import { personalise, previewSvg } from './personalise';
+import { HOME_COUNTRY } from '$lib/shipping';
+
+export const CART_COOKIE = 'cart';
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
+
+/** A buyer's mistake with the cart: status, message, and the fields it concerns. */
+export class CartError extends Error {
+	constructor(
+		message: string,
+		public status = 400,
+		public fields?: Record<string, string[]>
+	) {
+		super(message);
+	}
+}
+
+export function cartIdFrom(cookies: Cookies): string | null {
+	const id = cookies.get(CART_COOKIE);
+	return id && UUID.test(id) ? id : null;
+}
+
+/** The visitor's cart id, creating the cart (and its cookie) on first use. */
+export async function ensureCart(cookies: Cookies, userId: string | null, secure: boolean) {
+	const existing = cartIdFrom(cookies);
+	if (existing) {
+		const [row] = await db.select({ id: carts.id }).from(carts).where(eq(carts.id, existing));
+		if (row) return existing;
+	}
+	const id = crypto.randomUUID();
+	const now = new Date();
+	await db.insert(carts).values({ id, userId, createdAt: now, updatedAt: now });
+	cookies.set(CART_COOKIE, id, {
+		path: '/',
+		httpOnly: true,
+		sameSite: 'lax',
+		secure,
+		maxAge: 60 * 60 * 24 * 30
+	});
+	return id;
+}
+
+export type AddLineInput = {
+	slug: string;
+	wood: string;
+	quantity: number;
+	initials?: string;
+	style?: string;
+};
+
+/**
+ * Adds a piece. With initials the server recomputes the whole pattern from the piece's layout
+ * and stores that snapshot; without, the piece must be on hand as finished stock.
+ */
+export async function addLine(cartId: string, input: AddLineInput) {
+	const [piece] = await db
+		.select()
+		.from(pieces)
+		.where(and(eq(pieces.slug, input.slug), eq(pieces.active, true)));
+	if (!piece) throw new CartError('We do not offer that piece any more.', 404, { slug: ['Unknown piece.'] });
+
+	const [wood] = await db
+		.select()
+		.from(woods)
+		.innerJoin(pieceWoods, and(eq(pieceWoods.woodId, woods.id), eq(pieceWoods.pieceId, piece.id)))
+		.where(eq(woods.slug, input.wood));
+	if (!wood) {
+		throw new CartError('Choose one of the woods this piece is made in.', 400, {
+			wood: ['Choose one of the woods listed for this piece.']
+		});
+	}
+
+	let personalisation: Personalisation | null = null;
+	if (input.initials) {
+		if (!piece.personalisable) {
+			throw new CartError('This piece is not carved with initials.', 400, {
+				initials: ['This piece is not carved with initials.']
+			});
+		}
+		const result = personalise(piece, wood.woods, { initials: input.initials, style: input.style });
+		if (!result.ok) throw new CartError('Check the initials.', 400, result.fields);
+		personalisation = result.snapshot;
+	}
+
+	if (!personalisation) {
+		const [same] = await db
+			.select({ id: cartLines.id, quantity: cartLines.quantity })
+			.from(cartLines)
+			.where(
+				and(
+					eq(cartLines.cartId, cartId),
+					eq(cartLines.pieceId, piece.id),
+					eq(cartLines.woodId, wood.woods.id),
+					isNull(cartLines.personalisation)
+				)
+			);
+		const wanted = (same?.quantity ?? 0) + input.quantity;
+		const onHand = await stockOnHand(piece.id, wood.woods.id);
+		if (onHand < wanted) {
+			const message =
+				onHand === 0
+					? piece.personalisable
+						? `None ready now in ${wood.woods.name}. Add initials and we will carve one for you.`
+						: `Sold out in ${wood.woods.name}.`
+					: `Only ${onHand} ready now in ${wood.woods.name}.`;
+			throw new CartError(message, 409, { quantity: [message] });
+		}
+		if (same) {
+			await db.update(cartLines).set({ quantity: wanted }).where(eq(cartLines.id, same.id));
+			await touch(cartId);
+			return same.id;
+		}
+	}
+	const [{ id }] = await db
+		.insert(cartLines)
+		.values({
+			cartId,
+			pieceId: piece.id,
+			woodId: wood.woods.id,
+			quantity: input.quantity,
+			personalisation,
+			createdAt: new Date()
+		})
+		.$returningId();
+	await touch(cartId);
+	return id;
+}
+
+async function lineOf(cartId: string, lineId: number) {
+	const [line] = await db
+		.select()
+		.from(cartLines)
+		.where(and(eq(cartLines.id, lineId), eq(cartLines.cartId, cartId)));
+	if (!line) throw new CartError('That line is no longer in your basket.', 404);
+	return line;
+}
+
+export async function setQuantity(cartId: string, lineId: number, quantity: number) {
+	const line = await lineOf(cartId, lineId);
+	if (quantity === 0) return removeLine(cartId, lineId);
+	if (!line.personalisation) {
+		const onHand = await stockOnHand(line.pieceId, line.woodId);
+		if (onHand < quantity) {
+			const message = onHand === 0 ? 'Sold out.' : `Only ${onHand} ready now.`;
+			throw new CartError(message, 409, { quantity: [message] });
+		}
+	}
+	await db.update(cartLines).set({ quantity }).where(eq(cartLines.id, lineId));
+	await touch(cartId);
+}
+
+export async function removeLine(cartId: string, lineId: number) {
+	await lineOf(cartId, lineId);
+	await db.delete(cartLines).where(eq(cartLines.id, lineId));
+	await touch(cartId);
+}
+
+export async function setDestination(cartId: string, country: string) {
+	await db.update(carts).set({ destination: country, updatedAt: new Date() }).where(eq(carts.id, cartId));
+}
+
+async function touch(cartId: string) {
+	await db.update(carts).set({ updatedAt: new Date() }).where(eq(carts.id, cartId));
+}
+
+export async function cartCount(cartId: string | null): Promise<number> {
+	if (!cartId) return 0;
+	const [row] = await db
+		.select({ n: sql<number>`coalesce(sum(${cartLines.quantity}), 0)`.mapWith(Number) })
+		.from(cartLines)
+		.where(eq(cartLines.cartId, cartId));
+	return row?.n ?? 0;
+}
+
+/** What the cart page and /api/cart show: priced lines with their previews, and totals. */
+export async function cartSummary(cartId: string | null, country?: string) {
+	let destination = country;
+	if (!destination && cartId) {
+		const [row] = await db.select({ d: carts.destination }).from(carts).where(eq(carts.id, cartId));
+		destination = row?.d ?? undefined;
+	}
+	destination ??= HOME_COUNTRY;
+	const priced = cartId ? await priceCart(cartId, destination) : await priceCart('', destination);
+	return {
+		country: destination,
+		zone: priced.zone,
+		currency: priced.currency,
+		count: priced.count,
+		subtotalMinor: priced.subtotalMinor,
+		taxMinor: priced.taxMinor,
+		rateBp: priced.rateBp,
+		shippingMinor: priced.shippingMinor,
+		shippingKnown: priced.shippingKnown,
+		billableGrams: priced.billableGrams,
+		totalMinor: priced.totalMinor,
+		problems: priced.problems,
+		lines: priced.lines.map((l) => ({
+			id: l.id,
+			slug: l.slug,
+			title: l.title,
+			wood: { slug: l.woodSlug, name: l.woodName, toneLight: l.toneLight, toneDark: l.toneDark },
+			quantity: l.quantity,
+			unitMinor: l.unitMinor,
+			totalMinor: l.totalMinor,
+			fromStock: l.fromStock,
+			available: l.available,
+			leadDays: l.leadDays,
+			personalisation: l.personalisation,
+			previewSvg: l.personalisation
+				? previewSvg(
+						l.personalisation,
+						{ slug: l.woodSlug, toneLight: l.toneLight, toneDark: l.toneDark },
+						{ widthMm: l.widthMm, lengthMm: l.lengthMm, thicknessMm: l.thicknessMm },
+						`pv${l.id}`
+					)
+				: null
+		}))
+	};
+}
+
+export type CartSummary = Awaited<ReturnType<typeof cartSummary>>;

@@ -1,0 +1,95 @@
+import { formatMoney } from '$lib/money';
+import { countryName } from '$lib/shipping';
+import { sendMail } from './mail';
+import { orderLink } from './order-links';
+import type { OrderDetail } from './orders';
+
+const esc = (s: string) =>
+	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+export function readyByWords(iso: string | null) {
+	if (!iso) return 'soon';
+	return new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-US', {
+		weekday: 'long',
+		month: 'long',
+		day: 'numeric',
+		year: 'numeric',
+		timeZone: 'UTC'
+	});
+}
+
+/** The confirmation as plain text and HTML; both carry the same facts. */
+export function confirmationMail(order: OrderDetail, origin?: string) {
+	const money = (m: number) => formatMoney(m, order.currency);
+	const link = orderLink(order.ref, origin);
+	const lineText = order.lines.map((l) => {
+		const p = l.personalisation;
+		const detail = p
+			? `   Initials ${p.initials} · ${l.woodName} · ${p.style} rosette, ${p.diameterMm} mm${p.chipCount ? ` · ${p.chipCount} chips` : ''}`
+			: `   ${l.woodName} · ready now`;
+		return `${l.quantity} × ${l.title} — ${money(l.lineTotalMinor)}\n${detail}`;
+	});
+	const ready = readyByWords(order.readyBy);
+	const a = order.address;
+	const addr = [a.line1, a.line2, `${a.city}${a.region ? `, ${a.region}` : ''} ${a.postcode}`, countryName(a.country)]
+		.filter(Boolean)
+		.join('\n');
+	const totals: [string, number][] = [
+		['Pieces', order.subtotalMinor],
+		['Shipping', order.shippingMinor],
+		...(order.taxMinor ? ([['Sales tax', order.taxMinor]] as [string, number][]) : []),
+		['Total paid', order.totalMinor]
+	];
+
+	const text = [
+		`Thank you, ${order.buyerName}.`,
+		'',
+		`Your order ${order.ref} is paid. Hollis will carve it in the Linden Ford workshop.`,
+		'',
+		...lineText,
+		'',
+		...totals.map(([k, v]) => `${k}: ${money(v)}`),
+		'',
+		`Ready to post by ${ready}. We will write again with the tracking number.`,
+		'',
+		'Posting to:',
+		order.buyerName,
+		addr,
+		...(order.giftNote ? ['', `Gift note: ${order.giftNote}`] : []),
+		'',
+		`See your order at any time: ${link}`
+	].join('\n');
+
+	const row = (k: string, v: string, strong = false) =>
+		`<tr><td style="padding:4px 12px 4px 0">${strong ? `<strong>${esc(k)}</strong>` : esc(k)}</td><td style="padding:4px 0;text-align:right">${strong ? `<strong>${esc(v)}</strong>` : esc(v)}</td></tr>`;
+	const html = `<!doctype html><html><body style="margin:0;background:#f6efe3;color:#2e2118;font-family:Nunito,Segoe UI,sans-serif;font-size:17px;line-height:1.5">
+<div style="max-width:560px;margin:0 auto;padding:24px">
+<h1 style="font-size:26px;margin:0 0 8px">Thank you, ${esc(order.buyerName)}.</h1>
+<p>Your order <strong>${esc(order.ref)}</strong> is paid. Hollis will carve it in the Linden Ford workshop.</p>
+<table style="width:100%;border-collapse:collapse;background:#fffaf2;border:1px solid #d9c8ae;border-radius:12px">
+${order.lines
+	.map((l) => {
+		const p = l.personalisation;
+		return `<tr><td style="padding:10px 12px;border-bottom:1px solid #d9c8ae"><strong>${l.quantity} × ${esc(l.title)}</strong><br>${
+			p
+				? `Initials <strong>${esc(p.initials)}</strong> · ${esc(l.woodName)} · ${esc(p.style)} rosette, ${p.diameterMm} mm`
+				: `${esc(l.woodName)} · ready now`
+		}</td><td style="padding:10px 12px;border-bottom:1px solid #d9c8ae;text-align:right;white-space:nowrap">${esc(money(l.lineTotalMinor))}</td></tr>`;
+	})
+	.join('\n')}
+</table>
+<table style="width:100%;margin-top:12px">${totals.map(([k, v], i) => row(k, money(v), i === totals.length - 1)).join('')}</table>
+<p>Ready to post by <strong>${esc(ready)}</strong>. We will write again with the tracking number.</p>
+<p style="white-space:pre-line">Posting to:\n${esc(order.buyerName)}\n${esc(addr)}</p>
+${order.giftNote ? `<p>Gift note: <em>${esc(order.giftNote)}</em></p>` : ''}
+<p><a href="${esc(link)}" style="display:inline-block;background:#9a4a22;color:#fffaf2;padding:10px 18px;border-radius:12px;text-decoration:none;font-weight:bold">See your order</a></p>
+<p style="font-size:14px;color:#5c4a3c">Wooden pieces for food are finished with a food-safe finish; wash by hand and oil now and then. If you have a nut allergy, ask us which oil we used.</p>
+</div></body></html>`;
+
+	return { subject: `Order ${order.ref} is paid — thank you`, text, html };
+}
+
+export async function sendConfirmation(order: OrderDetail, origin?: string) {
+	const mail = confirmationMail(order, origin);
+	await sendMail({ to: order.email, ...mail });
+}

@@ -1,0 +1,94 @@
+import { json } from '@sveltejs/kit';
+import { apiError } from '$lib/server/auth/guard';
+import {
+	addLine,
+	CartError,
+	cartIdFrom,
+	cartSummary,
+	ensureCart,
+	removeLine,
+	setDestination,
+	setQuantity
+} from '$lib/server/cart';
+import {
+	addLineSchema,
+	destinationSchema,
+	fieldErrors,
+	removeLineSchema,
+	setQuantitySchema
+} from '$lib/schemas/cart';
+import { COUNTRIES } from '$lib/shipping';
+import type { RequestEvent, RequestHandler } from './$types';
+
+const knownCountry = (c: string) => (COUNTRIES as readonly string[]).includes(c);
+
+async function body(request: Request): Promise<Record<string, unknown> | null> {
+	try {
+		const v = await request.json();
+		return v && typeof v === 'object' && !Array.isArray(v) ? v : null;
+	} catch {
+		return null;
+	}
+}
+
+/** Runs a cart change and answers with the new summary, or a JSON error the page can show. */
+async function change(event: RequestEvent, fn: (cartId: string, input: Record<string, unknown>) => Promise<unknown>) {
+	const input = await body(event.request);
+	if (!input) return apiError(400, 'Send a JSON object.');
+	try {
+		const cartId = await ensureCart(event.cookies, event.locals.user?.id ?? null, event.url.protocol === 'https:');
+		await fn(cartId, input);
+		return json(await cartSummary(cartId));
+	} catch (err) {
+		if (err instanceof CartError) return apiError(err.status, err.message, err.fields);
+		if (err instanceof InputError) return apiError(400, err.message, err.fields);
+		throw err;
+	}
+}
+
+class InputError extends Error {
+	constructor(public fields: Record<string, string[]>) {
+		super(Object.values(fields)[0]?.[0] ?? 'Check the request.');
+	}
+}
+
+function parse<T>(schema: { safeParse: (v: unknown) => { success: true; data: T } | { success: false; error: import('zod').ZodError } }, v: unknown): T {
+	const r = schema.safeParse(v);
+	if (!r.success) throw new InputError(fieldErrors(r.error));
+	return r.data;
+}
+
+/** The cart with prices, tax and a shipping estimate for `?country=` (default: saved or home). */
+export const GET: RequestHandler = async ({ url, cookies }) => {
+	const country = url.searchParams.get('country')?.toUpperCase();
+	if (country && !knownCountry(country)) {
+		return apiError(400, 'We do not post to that country yet.', { country: ['Choose a country from the list.'] });
+	}
+	return json(await cartSummary(cartIdFrom(cookies), country));
+};
+
+/** Adds a piece: { slug, wood, quantity?, initials?, style? }. */
+export const POST: RequestHandler = (event) =>
+	change(event, async (cartId, input) => {
+		await addLine(cartId, parse(addLineSchema, input));
+	});
+
+/** Changes a quantity { lineId, quantity } or the destination { country }. */
+export const PATCH: RequestHandler = (event) =>
+	change(event, async (cartId, input) => {
+		if ('country' in input) {
+			const { country } = parse(destinationSchema, input);
+			if (!knownCountry(country)) throw new InputError({ country: ['We do not post to that country yet.'] });
+			await setDestination(cartId, country);
+			return;
+		}
+		const { lineId, quantity } = parse(setQuantitySchema, input);
+		await setQuantity(cartId, lineId, quantity);
+	});
+
+/** Removes a line { lineId }. */
+export const DELETE: RequestHandler = (event) =>
+	change(event, async (cartId, input) => {
+		const { lineId } = parse(removeLineSchema, input);
+		await removeLine(cartId, lineId);
+	});

@@ -1,0 +1,20 @@
+import { json } from '@sveltejs/kit';
+import { apiError } from '$lib/server/auth/guard';
+import { config } from '$lib/server/config';
+import { verifyWebhook, WebhookSignatureError } from '$lib/server/payments';
+import { handlePaymentEvent } from '$lib/server/payment-events';
+import type { RequestHandler } from './$types';
+
+/** Payment provider events. The raw body is verified with the SDK before anything is read. */
+export const POST: RequestHandler = async ({ request }) => {
+	const raw = await request.text();
+	let event;
+	try {
+		event = verifyWebhook(raw, request.headers.get('stripe-signature'));
+	} catch (err) {
+		if (err instanceof WebhookSignatureError) return apiError(400, 'The signature does not match.');
+		throw err;
+	}
+	const result = await handlePaymentEvent(event, config.origin);
+	return json({ received: true, ...result });
+};
