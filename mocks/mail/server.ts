@@ -10,7 +10,11 @@ import { isMain, runUntilSignal } from '../run';
 import { MailStore } from './store';
 import { inboxPage, messagePage } from './pages';
 
-export type MailServerOptions = { smtpPort?: number; httpPort?: number; host?: string };
+export type MailServerOptions = {
+	smtpPort?: number;
+	httpPort?: number;
+	host?: string;
+};
 
 const listen = (server: { listen: Function; once: Function }, port: number, host: string) =>
 	new Promise<void>((resolve, reject) => {
@@ -53,7 +57,8 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 		const path = url.pathname;
 		const one = path.match(/^\/(api\/)?messages\/([^/]+)$/);
 
-		if (req.method === 'GET' && path === '/api/messages') return json(200, store.list(url.searchParams.get('to')));
+		if (req.method === 'GET' && path === '/api/messages')
+			return json(200, store.list(url.searchParams.get('to')));
 		if (req.method === 'DELETE' && path === '/api/messages') {
 			store.clear();
 			return json(200, { cleared: true });
@@ -63,7 +68,8 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 			if (one[1]) return m ? json(200, m) : json(404, { error: 'No message with that id' });
 			return m ? html(200, messagePage(m)) : html(404, 'No message with that id');
 		}
-		if (req.method === 'GET' && path === '/') return html(200, inboxPage(store.list(url.searchParams.get('to'))));
+		if (req.method === 'GET' && path === '/')
+			return html(200, inboxPage(store.list(url.searchParams.get('to'))));
 		if (req.method === 'POST' && path === '/clear') {
 			store.clear();
 			res.writeHead(303, { location: '/' });
@@ -93,7 +99,9 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 if (isMain(import.meta.url)) {
 	runUntilSignal('mail', async () => {
 		const s = await startMailServer();
-		console.log(`mail stand-in: SMTP 127.0.0.1:${s.smtpPort}, inbox http://127.0.0.1:${s.httpPort}/`);
+		console.log(
+			`mail stand-in: SMTP 127.0.0.1:${s.smtpPort}, inbox http://127.0.0.1:${s.httpPort}/`
+		);
 		return s;
 	});
 }

@@ -9,7 +9,11 @@ import S3rver from 's3rver';
 import { config } from '../../src/lib/server/config';
 import { isMain, runUntilSignal } from '../run';
 
-export type S3ServerOptions = { port?: number; directory?: string; bucket?: string };
+export type S3ServerOptions = {
+	port?: number;
+	directory?: string;
+	bucket?: string;
+};
 
 export async function startS3Server(opts: S3ServerOptions = {}) {
 	const directory = opts.directory ?? process.env.S3_DIR ?? path.resolve('.data/s3');

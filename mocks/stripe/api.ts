@@ -6,7 +6,11 @@ import { createSession, expireSession, getSession } from './sessions';
 import type { Session, State } from './state';
 import type { Webhooks } from './webhooks';
 
-export type ApiContext = { state: State; webhooks: Webhooks; payUrl: (id: string) => string };
+export type ApiContext = {
+	state: State;
+	webhooks: Webhooks;
+	payUrl: (id: string) => string;
+};
 type Handler = (ctx: ApiContext, form: Form, m: RegExpMatchArray) => unknown;
 
 function expandList(form: Form): string[] {
@@ -19,7 +23,8 @@ function withExpand(ctx: ApiContext, s: Session, form: Form) {
 	const out: Record<string, unknown> = { ...s };
 	for (const field of expandList(form)) {
 		if (field === 'line_items') out.line_items = lineItemList(ctx, s.id);
-		else if (field === 'payment_intent') out.payment_intent = s.payment_intent ? ctx.state.paymentIntents.get(s.payment_intent) : null;
+		else if (field === 'payment_intent')
+			out.payment_intent = s.payment_intent ? ctx.state.paymentIntents.get(s.payment_intent) : null;
 		else throw invalid('expand', `This property cannot be expanded (${field}).`);
 	}
 	return out;
@@ -39,19 +44,38 @@ const lineItemList = (ctx: ApiContext, id: string) => ({
 
 /** The part of Stripe's REST API the app uses, as [method, path pattern, handler]. */
 export const routes: [string, RegExp, Handler][] = [
-	['POST', /^\/v1\/checkout\/sessions$/, (ctx, form) => withExpand(ctx, createSession(ctx.state, form, ctx.payUrl), form)],
+	[
+		'POST',
+		/^\/v1\/checkout\/sessions$/,
+		(ctx, form) => withExpand(ctx, createSession(ctx.state, form, ctx.payUrl), form)
+	],
 	[
 		'GET',
 		/^\/v1\/checkout\/sessions$/,
 		(ctx, form) => {
 			const pi = p.str(form.payment_intent, 'payment_intent');
 			const limit = Math.min(Math.max(p.int(form.limit, 'limit') ?? 10, 1), 100);
-			const all = [...ctx.state.sessions.values()].filter((s) => !pi || s.payment_intent === pi).reverse();
-			return { object: 'list', data: all.slice(0, limit), has_more: all.length > limit, url: '/v1/checkout/sessions' };
+			const all = [...ctx.state.sessions.values()]
+				.filter((s) => !pi || s.payment_intent === pi)
+				.reverse();
+			return {
+				object: 'list',
+				data: all.slice(0, limit),
+				has_more: all.length > limit,
+				url: '/v1/checkout/sessions'
+			};
 		}
 	],
-	['GET', /^\/v1\/checkout\/sessions\/([^/]+)$/, (ctx, form, m) => withExpand(ctx, getSession(ctx.state, m[1]), form)],
-	['GET', /^\/v1\/checkout\/sessions\/([^/]+)\/line_items$/, (ctx, _f, m) => (getSession(ctx.state, m[1]), lineItemList(ctx, m[1]))],
+	[
+		'GET',
+		/^\/v1\/checkout\/sessions\/([^/]+)$/,
+		(ctx, form, m) => withExpand(ctx, getSession(ctx.state, m[1]), form)
+	],
+	[
+		'GET',
+		/^\/v1\/checkout\/sessions\/([^/]+)\/line_items$/,
+		(ctx, _f, m) => (getSession(ctx.state, m[1]), lineItemList(ctx, m[1]))
+	],
 	[
 		'POST',
 		/^\/v1\/checkout\/sessions\/([^/]+)\/expire$/,
@@ -80,5 +104,9 @@ export function route(ctx: ApiContext, method: string, path: string, form: Form)
 		const m = path.match(pattern);
 		if (m && verb === method) return handler(ctx, form, m);
 	}
-	throw new ApiError(404, 'invalid_request_error', `Unrecognized request URL (${method}: ${path}).`);
+	throw new ApiError(
+		404,
+		'invalid_request_error',
+		`Unrecognized request URL (${method}: ${path}).`
+	);
 }

@@ -2,7 +2,12 @@
  * Card checks on the stand-in's payment page. Test numbers and their outcomes follow Stripe's
  * published testing docs; any other number is refused the way test mode refuses real cards.
  */
-export type CardInput = { number: string; expiry: string; cvc: string; name: string };
+export type CardInput = {
+	number: string;
+	expiry: string;
+	cvc: string;
+	name: string;
+};
 export type CardFieldErrors = Partial<Record<keyof CardInput, string>>;
 export type Decline = { code: string; decline_code: string; message: string };
 export type CardResult =
@@ -19,7 +24,11 @@ const SUCCEEDS: Record<string, string> = {
 	'6011111111111117': 'discover'
 };
 
-const generic = { code: 'card_declined', decline_code: 'generic_decline', message: 'Your card was declined.' };
+const generic = {
+	code: 'card_declined',
+	decline_code: 'generic_decline',
+	message: 'Your card was declined.'
+};
 const DECLINES: Record<string, Decline> = {
 	'4000000000000002': generic,
 	'4000000000009995': {
@@ -27,7 +36,11 @@ const DECLINES: Record<string, Decline> = {
 		decline_code: 'insufficient_funds',
 		message: 'Your card has insufficient funds.'
 	},
-	'4000000000000069': { code: 'expired_card', decline_code: 'expired_card', message: 'Your card has expired.' },
+	'4000000000000069': {
+		code: 'expired_card',
+		decline_code: 'expired_card',
+		message: 'Your card has expired.'
+	},
 	'4000000000000127': {
 		code: 'incorrect_cvc',
 		decline_code: 'incorrect_cvc',
@@ -57,14 +70,16 @@ export function checkCard(input: CardInput, now = new Date()): CardResult {
 	const errors: CardFieldErrors = {};
 	const digits = input.number.replace(/[\s-]/g, '');
 	if (!digits) errors.number = 'Enter the card number.';
-	else if (!/^\d{12,19}$/.test(digits)) errors.number = 'The card number should be 12 to 19 digits.';
+	else if (!/^\d{12,19}$/.test(digits))
+		errors.number = 'The card number should be 12 to 19 digits.';
 	else if (!luhnValid(digits)) errors.number = 'That card number is not valid; check for a typo.';
 
 	const exp = input.expiry.trim().match(/^(\d{1,2})\s*\/\s*(\d{2}|\d{4})$/);
 	const month = exp ? Number(exp[1]) : 0;
 	const year = exp ? (exp[2].length === 2 ? 2000 + Number(exp[2]) : Number(exp[2])) : 0;
 	if (!input.expiry.trim()) errors.expiry = 'Enter the expiry date as MM/YY.';
-	else if (!exp || month < 1 || month > 12) errors.expiry = 'Write the expiry date as MM/YY, e.g. 04/29.';
+	else if (!exp || month < 1 || month > 12)
+		errors.expiry = 'Write the expiry date as MM/YY, e.g. 04/29.';
 	// A card is good through the last day of its expiry month.
 	else if (year * 12 + month < now.getFullYear() * 12 + now.getMonth() + 1)
 		errors.expiry = 'That expiry date is in the past.';
@@ -73,7 +88,9 @@ export function checkCard(input: CardInput, now = new Date()): CardResult {
 	const cvc = input.cvc.trim();
 	if (!cvc) errors.cvc = 'Enter the security code from the card.';
 	else if (!(amex ? /^\d{4}$/ : /^\d{3}$/).test(cvc))
-		errors.cvc = amex ? 'The security code is 4 digits on this card.' : 'The security code is 3 digits.';
+		errors.cvc = amex
+			? 'The security code is 4 digits on this card.'
+			: 'The security code is 3 digits.';
 
 	if (!input.name.trim()) errors.name = 'Enter the name on the card.';
 	else if (input.name.length > 100) errors.name = 'The name is too long.';
@@ -85,7 +102,8 @@ export function checkCard(input: CardInput, now = new Date()): CardResult {
 		ok: false,
 		decline: {
 			...generic,
-			message: 'Your card was declined. This is a test payment page: use a test card number such as 4242 4242 4242 4242.'
+			message:
+				'Your card was declined. This is a test payment page: use a test card number such as 4242 4242 4242 4242.'
 		}
 	};
 }

@@ -11,15 +11,34 @@ export class ApiError extends Error {
 	}
 
 	body() {
-		return { error: { type: this.type, code: this.code, message: this.message, param: this.param } };
+		return {
+			error: {
+				type: this.type,
+				code: this.code,
+				message: this.message,
+				param: this.param
+			}
+		};
 	}
 }
 
 export const missing = (param: string) =>
-	new ApiError(400, 'invalid_request_error', `Missing required param: ${param}.`, 'parameter_missing', param);
+	new ApiError(
+		400,
+		'invalid_request_error',
+		`Missing required param: ${param}.`,
+		'parameter_missing',
+		param
+	);
 
 export const invalid = (param: string, message: string, code = 'parameter_invalid') =>
 	new ApiError(400, 'invalid_request_error', message, code, param);
 
 export const noSuch = (kind: string, id: string, param?: string) =>
-	new ApiError(param ? 400 : 404, 'invalid_request_error', `No such ${kind}: '${id}'`, 'resource_missing', param);
+	new ApiError(
+		param ? 400 : 404,
+		'invalid_request_error',
+		`No such ${kind}: '${id}'`,
+		'resource_missing',
+		param
+	);

@@ -10,7 +10,8 @@ export function str(v: FormValue | undefined, param: string, required = false) {
 		if (required) throw missing(param);
 		return undefined;
 	}
-	if (typeof v !== 'string') throw invalid(param, `Invalid string: ${param} must be a string.`, 'parameter_invalid_string');
+	if (typeof v !== 'string')
+		throw invalid(param, `Invalid string: ${param} must be a string.`, 'parameter_invalid_string');
 	return v;
 }
 
@@ -26,13 +27,15 @@ export function int(v: FormValue | undefined, param: string, required = false) {
 
 export function obj(v: FormValue | undefined, param: string): Form | undefined {
 	if (v === undefined || v === '') return undefined;
-	if (typeof v !== 'object' || Array.isArray(v)) throw invalid(param, `Invalid object: ${param} must be a hash.`);
+	if (typeof v !== 'object' || Array.isArray(v))
+		throw invalid(param, `Invalid object: ${param} must be a hash.`);
 	return v;
 }
 
 export function list(v: FormValue | undefined, param: string): FormValue[] | undefined {
 	if (v === undefined || v === '') return undefined;
-	if (!Array.isArray(v)) throw invalid(param, `Invalid array: ${param} must be an array.`, 'parameter_invalid_array');
+	if (!Array.isArray(v))
+		throw invalid(param, `Invalid array: ${param} must be an array.`, 'parameter_invalid_array');
 	return v;
 }
 
@@ -44,9 +47,12 @@ export function metadata(v: FormValue | undefined, param: string): Metadata {
 	if (keys.length > 50) throw invalid(param, 'Metadata can have at most 50 keys.');
 	for (const k of keys) {
 		const value = m[k];
-		if (typeof value !== 'string') throw invalid(`${param}[${k}]`, 'Metadata values must be strings.');
-		if (k.length > 40) throw invalid(`${param}[${k}]`, 'Metadata keys can be at most 40 characters long.');
-		if (value.length > 500) throw invalid(`${param}[${k}]`, 'Metadata values can be at most 500 characters long.');
+		if (typeof value !== 'string')
+			throw invalid(`${param}[${k}]`, 'Metadata values must be strings.');
+		if (k.length > 40)
+			throw invalid(`${param}[${k}]`, 'Metadata keys can be at most 40 characters long.');
+		if (value.length > 500)
+			throw invalid(`${param}[${k}]`, 'Metadata values can be at most 500 characters long.');
 		if (value !== '') out[k] = value;
 	}
 	return out;
@@ -55,7 +61,8 @@ export function metadata(v: FormValue | undefined, param: string): Metadata {
 /** Rejects parameters the stand-in does not know, like the real API does. */
 export function onlyKnown(form: Form, known: string[]) {
 	for (const k of Object.keys(form)) {
-		if (!known.includes(k)) throw invalid(k, `Received unknown parameter: ${k}`, 'parameter_unknown');
+		if (!known.includes(k))
+			throw invalid(k, `Received unknown parameter: ${k}`, 'parameter_unknown');
 	}
 }
 

@@ -3,10 +3,16 @@ import type { LineItem, Session } from './state';
 
 /** The stand-in's own hosted payment page: plain, unbranded, clearly a local test page. */
 const esc = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+	s.replace(
+		/[&<>"']/g,
+		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!
+	);
 
 export function money(minor: number, currency: string) {
-	const fmt = new Intl.NumberFormat('en', { style: 'currency', currency: currency.toUpperCase() });
+	const fmt = new Intl.NumberFormat('en', {
+		style: 'currency',
+		currency: currency.toUpperCase()
+	});
 	// ISO 4217 minor units (2 for USD/EUR, 0 for JPY) as Intl knows them.
 	const digits = fmt.resolvedOptions().maximumFractionDigits ?? 2;
 	return fmt.format(minor / 10 ** digits);
@@ -92,4 +98,5 @@ export function closedPage(session: Session) {
 	);
 }
 
-export const notFoundPage = () => shell('Not found', '<h1>No such payment</h1><p>Check the link you followed.</p>');
+export const notFoundPage = () =>
+	shell('Not found', '<h1>No such payment</h1><p>Check the link you followed.</p>');

@@ -5,7 +5,10 @@ import { closedPage, notFoundPage, payPage } from './pay-page';
 import { completeSession, declineSession } from './sessions';
 
 const html = (res: http.ServerResponse, status: number, body: string) => {
-	res.writeHead(status, { 'content-type': 'text/html; charset=utf-8', 'cache-control': 'no-store' });
+	res.writeHead(status, {
+		'content-type': 'text/html; charset=utf-8',
+		'cache-control': 'no-store'
+	});
 	res.end(body);
 };
 
@@ -20,7 +23,8 @@ export async function handlePayPage(
 	const id = decodeURIComponent(url.pathname.slice('/pay/'.length));
 	const session = ctx.state.sessions.get(id);
 	if (!session) return html(res, 404, notFoundPage());
-	if (session.status !== 'open') return html(res, session.status === 'complete' ? 200 : 410, closedPage(session));
+	if (session.status !== 'open')
+		return html(res, session.status === 'complete' ? 200 : 410, closedPage(session));
 	const items = ctx.state.lineItems.get(id) ?? [];
 	if (req.method === 'GET') return html(res, 200, payPage(session, items));
 	if (req.method !== 'POST') return html(res, 405, notFoundPage());
@@ -38,10 +42,19 @@ export async function handlePayPage(
 	if (!result.ok) {
 		declineSession(ctx.state, session, result.decline);
 		// Keep what was typed except the security code, as a real form would.
-		return html(res, 402, payPage(session, items, { values: { ...values, cvc: '' }, declined: result.decline.message }));
+		return html(
+			res,
+			402,
+			payPage(session, items, {
+				values: { ...values, cvc: '' },
+				declined: result.decline.message
+			})
+		);
 	}
 	completeSession(ctx.state, session, { name: values.name.trim() });
 	ctx.webhooks.send('checkout.session.completed', session);
-	res.writeHead(303, { location: session.success_url.replaceAll('{CHECKOUT_SESSION_ID}', session.id) });
+	res.writeHead(303, {
+		location: session.success_url.replaceAll('{CHECKOUT_SESSION_ID}', session.id)
+	});
 	res.end();
 }

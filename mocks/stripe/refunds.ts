@@ -15,15 +15,31 @@ export function createRefund(state: State, form: Form): Refund {
 	const pi = piId
 		? state.paymentIntents.get(piId)
 		: [...state.paymentIntents.values()].find((x) => x.latest_charge === chargeId);
-	if (!pi) throw piId ? noSuch('payment_intent', piId, 'payment_intent') : noSuch('charge', chargeId!, 'charge');
+	if (!pi)
+		throw piId
+			? noSuch('payment_intent', piId, 'payment_intent')
+			: noSuch('charge', chargeId!, 'charge');
 	if (pi.status !== 'succeeded' || !pi.latest_charge)
-		throw invalid('payment_intent', `This PaymentIntent (${pi.id}) does not have a successful charge to refund.`);
+		throw invalid(
+			'payment_intent',
+			`This PaymentIntent (${pi.id}) does not have a successful charge to refund.`
+		);
 
 	const left = pi.amount_received - state.refundedOn(pi.id);
 	if (left <= 0)
-		throw new ApiError(400, 'invalid_request_error', `Charge ${pi.latest_charge} has already been refunded.`, 'charge_already_refunded');
+		throw new ApiError(
+			400,
+			'invalid_request_error',
+			`Charge ${pi.latest_charge} has already been refunded.`,
+			'charge_already_refunded'
+		);
 	const amount = p.int(form.amount, 'amount') ?? left;
-	if (amount < 1) throw invalid('amount', 'Refund amount must be a positive integer.', 'parameter_invalid_integer');
+	if (amount < 1)
+		throw invalid(
+			'amount',
+			'Refund amount must be a positive integer.',
+			'parameter_invalid_integer'
+		);
 	if (amount > left)
 		throw new ApiError(
 			400,
@@ -33,7 +49,8 @@ export function createRefund(state: State, form: Form): Refund {
 			'amount'
 		);
 	const reason = p.str(form.reason, 'reason') ?? null;
-	if (reason && !REASONS.includes(reason)) throw invalid('reason', `Invalid reason: must be one of ${REASONS.join(', ')}`);
+	if (reason && !REASONS.includes(reason))
+		throw invalid('reason', `Invalid reason: must be one of ${REASONS.join(', ')}`);
 
 	const refund: Refund = {
 		id: newId('re'),

@@ -35,7 +35,8 @@ const readBody = (req: http.IncomingMessage) =>
 		const chunks: Buffer[] = [];
 		req.on('data', (c: Buffer) => {
 			size += c.length;
-			if (size > 1_000_000) reject(new ApiError(413 as 400, 'invalid_request_error', 'Request body too large.'));
+			if (size > 1_000_000)
+				reject(new ApiError(413 as 400, 'invalid_request_error', 'Request body too large.'));
 			else chunks.push(c);
 		});
 		req.on('end', () => resolve(Buffer.concat(chunks).toString('utf8')));
@@ -47,14 +48,20 @@ export async function startStripeServer(opts: StripeServerOptions = {}) {
 	const state = new State();
 	const idempotency = new IdempotencyStore();
 	const webhooks = new Webhooks(state, {
-		url: opts.webhookUrl ?? (process.env.STRIPE_WEBHOOK_URL || `${config.origin}/api/payments/webhook`),
+		url:
+			opts.webhookUrl ??
+			(process.env.STRIPE_WEBHOOK_URL || `${config.origin}/api/payments/webhook`),
 		secret: opts.webhookSecret ?? config.stripe.webhookSecret,
 		apiVersion: Stripe.API_VERSION,
 		retryBaseMs: opts.retryBaseMs ?? 500,
 		maxAttempts: opts.maxAttempts ?? 8
 	});
 	let origin = '';
-	const ctx = { state, webhooks, payUrl: (id: string) => `${origin}/pay/${id}` };
+	const ctx = {
+		state,
+		webhooks,
+		payUrl: (id: string) => `${origin}/pay/${id}`
+	};
 
 	const expireDue = () => {
 		for (const s of dueToExpire(state)) {
@@ -64,7 +71,12 @@ export async function startStripeServer(opts: StripeServerOptions = {}) {
 		}
 	};
 
-	const send = (res: http.ServerResponse, status: number, body: unknown, extra: Record<string, string> = {}) => {
+	const send = (
+		res: http.ServerResponse,
+		status: number,
+		body: unknown,
+		extra: Record<string, string> = {}
+	) => {
 		const text = typeof body === 'string' ? body : JSON.stringify(body, null, 2);
 		res.writeHead(status, {
 			'content-type': 'application/json',
@@ -83,7 +95,11 @@ export async function startStripeServer(opts: StripeServerOptions = {}) {
 		const fingerprint = `${method} ${url.pathname} ${raw}`;
 		if (typeof key === 'string') {
 			const saved = idempotency.lookup(key, fingerprint);
-			if (saved) return send(res, saved.status, saved.body, { 'idempotent-replayed': 'true', 'idempotency-key': key });
+			if (saved)
+				return send(res, saved.status, saved.body, {
+					'idempotent-replayed': 'true',
+					'idempotency-key': key
+				});
 		}
 		expireDue();
 		const body = JSON.stringify(route(ctx, method, url.pathname, parseForm(raw)), null, 2);
@@ -92,7 +108,8 @@ export async function startStripeServer(opts: StripeServerOptions = {}) {
 	}
 
 	function handleMock(req: http.IncomingMessage, res: http.ServerResponse, url: URL) {
-		if (req.method === 'GET' && url.pathname === '/_mock/events') return send(res, 200, state.deliveries);
+		if (req.method === 'GET' && url.pathname === '/_mock/events')
+			return send(res, 200, state.deliveries);
 		if (req.method === 'POST' && url.pathname === '/_mock/advance') {
 			// Moves the stand-in's clock forward, then expires what is due (tests of stock holds).
 			const seconds = Number(url.searchParams.get('seconds'));
@@ -114,12 +131,18 @@ export async function startStripeServer(opts: StripeServerOptions = {}) {
 				return handlePayPage(req, res, url, ctx, readBody);
 			}
 			if (url.pathname.startsWith('/_mock/')) return handleMock(req, res, url);
-			throw new ApiError(404, 'invalid_request_error', `Unrecognized request URL (${req.method}: ${url.pathname}).`);
+			throw new ApiError(
+				404,
+				'invalid_request_error',
+				`Unrecognized request URL (${req.method}: ${url.pathname}).`
+			);
 		};
 		run().catch((err) => {
 			if (res.headersSent) return res.end();
 			if (err instanceof ApiError) return send(res, err.status, err.body());
-			send(res, 500, { error: { type: 'api_error', message: (err as Error).message } });
+			send(res, 500, {
+				error: { type: 'api_error', message: (err as Error).message }
+			});
 		});
 	});
 

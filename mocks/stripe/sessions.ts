@@ -5,9 +5,22 @@ import * as p from './params';
 import type { LineItem, PaymentIntent, Session, State } from './state';
 
 const KNOWN = [
-	'line_items', 'mode', 'metadata', 'customer_email', 'success_url', 'cancel_url', 'expires_at',
-	'payment_intent_data', 'client_reference_id', 'payment_method_types', 'locale', 'submit_type',
-	'billing_address_collection', 'currency', 'expand', 'ui_mode'
+	'line_items',
+	'mode',
+	'metadata',
+	'customer_email',
+	'success_url',
+	'cancel_url',
+	'expires_at',
+	'payment_intent_data',
+	'client_reference_id',
+	'payment_method_types',
+	'locale',
+	'submit_type',
+	'billing_address_collection',
+	'currency',
+	'expand',
+	'ui_mode'
 ];
 const MIN_LIFETIME = 30 * 60;
 const MAX_LIFETIME = 24 * 60 * 60;
@@ -26,7 +39,8 @@ function lineItem(raw: unknown, i: number): LineItem {
 	if (!product) throw missing(`${at}[price_data][product_data]`);
 	const name = p.str(product.name, `${at}[price_data][product_data][name]`, true);
 	const quantity = p.int(li.quantity, `${at}[quantity]`, true);
-	if (quantity < 1 || quantity > 999_999) throw invalid(`${at}[quantity]`, 'Quantity must be between 1 and 999999.');
+	if (quantity < 1 || quantity > 999_999)
+		throw invalid(`${at}[quantity]`, 'Quantity must be between 1 and 999999.');
 	return {
 		id: newId('li'),
 		object: 'item',
@@ -55,36 +69,53 @@ function lineItem(raw: unknown, i: number): LineItem {
 export function createSession(state: State, form: Form, payUrl: (id: string) => string): Session {
 	p.onlyKnown(form, KNOWN);
 	const mode = p.str(form.mode, 'mode', true);
-	if (mode !== 'payment') throw invalid('mode', `This stand-in only supports mode=payment, not ${mode}.`);
+	if (mode !== 'payment')
+		throw invalid('mode', `This stand-in only supports mode=payment, not ${mode}.`);
 	const uiMode = p.str(form.ui_mode, 'ui_mode');
-	if (uiMode && uiMode !== 'hosted') throw invalid('ui_mode', 'This stand-in only supports the hosted payment page.');
+	if (uiMode && uiMode !== 'hosted')
+		throw invalid('ui_mode', 'This stand-in only supports the hosted payment page.');
 
 	const rawItems = p.list(form.line_items, 'line_items');
 	if (!rawItems?.length) throw missing('line_items');
-	if (rawItems.length > 100) throw invalid('line_items', 'A session can have at most 100 line items.');
+	if (rawItems.length > 100)
+		throw invalid('line_items', 'A session can have at most 100 line items.');
 	const items = rawItems.map(lineItem);
 	const currency = items[0].currency;
 	items.forEach((li, i) => {
 		if (li.currency !== currency)
-			throw invalid(`line_items[${i}][price_data][currency]`, 'All line items must use the same currency.');
+			throw invalid(
+				`line_items[${i}][price_data][currency]`,
+				'All line items must use the same currency.'
+			);
 	});
 
 	const now = state.now();
 	const expiresAt = p.int(form.expires_at, 'expires_at') ?? now + MAX_LIFETIME;
 	if (expiresAt < now + MIN_LIFETIME)
-		throw invalid('expires_at', 'The `expires_at` timestamp must be at least 30 minutes after the session is created.');
+		throw invalid(
+			'expires_at',
+			'The `expires_at` timestamp must be at least 30 minutes after the session is created.'
+		);
 	if (expiresAt > now + MAX_LIFETIME)
-		throw invalid('expires_at', 'The `expires_at` timestamp must be less than 24 hours after the session is created.');
+		throw invalid(
+			'expires_at',
+			'The `expires_at` timestamp must be less than 24 hours after the session is created.'
+		);
 
 	const email = p.str(form.customer_email, 'customer_email');
-	if (email && !/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(email)) throw invalid('customer_email', 'Invalid email address: ' + email, 'email_invalid');
+	if (email && !/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(email))
+		throw invalid('customer_email', 'Invalid email address: ' + email, 'email_invalid');
 	const clientRef = p.str(form.client_reference_id, 'client_reference_id') ?? null;
-	if (clientRef && clientRef.length > 200) throw invalid('client_reference_id', 'client_reference_id can be at most 200 characters.');
+	if (clientRef && clientRef.length > 200)
+		throw invalid('client_reference_id', 'client_reference_id can be at most 200 characters.');
 
 	const pid = p.obj(form.payment_intent_data, 'payment_intent_data') ?? {};
 	p.onlyKnown(pid, ['metadata', 'description', 'receipt_email', 'capture_method']);
 	if (pid.capture_method !== undefined && pid.capture_method !== 'automatic')
-		throw invalid('payment_intent_data[capture_method]', 'This stand-in only supports automatic capture.');
+		throw invalid(
+			'payment_intent_data[capture_method]',
+			'This stand-in only supports automatic capture.'
+		);
 
 	const total = items.reduce((s, li) => s + li.amount_total, 0);
 	const id = newId('cs_test', 58);
@@ -132,7 +163,12 @@ export function getSession(state: State, id: string) {
 export function expireSession(state: State, id: string) {
 	const s = getSession(state, id);
 	if (s.status !== 'open')
-		throw new ApiError(400, 'invalid_request_error', 'Only Checkout Sessions with a status in ["open"] can be expired.', 'checkout_session_not_open');
+		throw new ApiError(
+			400,
+			'invalid_request_error',
+			'Only Checkout Sessions with a status in ["open"] can be expired.',
+			'checkout_session_not_open'
+		);
 	s.status = 'expired';
 	s.url = null;
 	return s;
@@ -168,7 +204,11 @@ function intentFor(state: State, s: Session): PaymentIntent {
 }
 
 /** A declined attempt: the session stays open and its payment intent records the error. */
-export function declineSession(state: State, s: Session, decline: { code: string; decline_code: string; message: string }) {
+export function declineSession(
+	state: State,
+	s: Session,
+	decline: { code: string; decline_code: string; message: string }
+) {
 	const pi = intentFor(state, s);
 	pi.last_payment_error = { type: 'card_error', ...decline };
 	pi.payment_method = newId('pm');

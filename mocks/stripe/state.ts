@@ -111,7 +111,14 @@ export class State {
 	sessions = new Map<string, Session>();
 	lineItems = new Map<string, LineItem[]>();
 	/** payment_intent_data given at session creation, used when the intent is made. */
-	intentData = new Map<string, { metadata: Metadata; description: string | null; receipt_email: string | null }>();
+	intentData = new Map<
+		string,
+		{
+			metadata: Metadata;
+			description: string | null;
+			receipt_email: string | null;
+		}
+	>();
 	paymentIntents = new Map<string, PaymentIntent>();
 	refunds = new Map<string, Refund>();
 	events = new Map<string, StandInEvent>();
@@ -125,7 +132,8 @@ export class State {
 
 	refundedOn(paymentIntentId: string) {
 		let sum = 0;
-		for (const r of this.refunds.values()) if (r.payment_intent === paymentIntentId) sum += r.amount;
+		for (const r of this.refunds.values())
+			if (r.payment_intent === paymentIntentId) sum += r.amount;
 		return sum;
 	}
 }

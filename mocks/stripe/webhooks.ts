@@ -39,7 +39,12 @@ export class Webhooks {
 			type
 		};
 		this.state.events.set(event.id, event);
-		const delivery: Delivery = { event, url: this.opts.url, delivered: false, attempts: [] };
+		const delivery: Delivery = {
+			event,
+			url: this.opts.url,
+			delivered: false,
+			attempts: []
+		};
 		this.state.deliveries.push(delivery);
 		void this.attempt(delivery, JSON.stringify(event, null, 2));
 		return event;
@@ -47,7 +52,9 @@ export class Webhooks {
 
 	private async attempt(d: Delivery, payload: string) {
 		if (this.closed) return;
-		const record: Delivery['attempts'][number] = { at: new Date().toISOString() };
+		const record: Delivery['attempts'][number] = {
+			at: new Date().toISOString()
+		};
 		d.attempts.push(record);
 		try {
 			const res = await fetch(d.url, {

@@ -27,9 +27,15 @@ describe('mail stand-in', () => {
 			text: 'Tracking number 1Z999',
 			html: '<p>Tracking number <b>1Z999</b></p>'
 		});
-		await sendMail({ to: ['other@example.test'], subject: 'Second', text: 'two' });
+		await sendMail({
+			to: ['other@example.test'],
+			subject: 'Second',
+			text: 'two'
+		});
 
-		const list = (await (await fetch(`${api}/api/messages`)).json()) as Array<Record<string, unknown>>;
+		const list = (await (await fetch(`${api}/api/messages`)).json()) as Array<
+			Record<string, unknown>
+		>;
 		expect(list.map((m) => m.subject)).toEqual(['Second', 'Your rosette plate is on its way']);
 		const first = list[1];
 		expect(first.to).toEqual(['ada.buyer@example.test']);
@@ -42,7 +48,9 @@ describe('mail stand-in', () => {
 		expect(filtered).toHaveLength(1);
 
 		const one = await fetch(`${api}/api/messages/${first.id}`);
-		expect(((await one.json()) as { subject: string }).subject).toBe('Your rosette plate is on its way');
+		expect(((await one.json()) as { subject: string }).subject).toBe(
+			'Your rosette plate is on its way'
+		);
 		expect((await fetch(`${api}/api/messages/999`)).status).toBe(404);
 
 		const page = await (await fetch(`${api}/`)).text();

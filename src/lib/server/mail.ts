@@ -25,7 +25,10 @@ export function mailTransport(): Transporter {
 
 /** Sends one message from the shop's address; resolves with the SMTP message id. */
 export async function sendMail(mail: OutgoingMail): Promise<string> {
-	const info = await mailTransport().sendMail({ from: config.mail.from, ...mail });
+	const info = await mailTransport().sendMail({
+		from: config.mail.from,
+		...mail
+	});
 	return info.messageId;
 }
 

@@ -26,7 +26,10 @@ export class WebhookSignatureError extends Error {}
  * (default 300 s tolerance) and returns the event. Throws WebhookSignatureError when the
  * signature is missing, wrong or too old, so the route can answer 400.
  */
-export function verifyWebhook(rawBody: string | Buffer, signatureHeader: string | null): Stripe.Event {
+export function verifyWebhook(
+	rawBody: string | Buffer,
+	signatureHeader: string | null
+): Stripe.Event {
 	if (!signatureHeader) throw new WebhookSignatureError('Missing Stripe-Signature header');
 	try {
 		return stripe().webhooks.constructEvent(rawBody, signatureHeader, config.stripe.webhookSecret);

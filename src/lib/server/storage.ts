@@ -6,7 +6,8 @@ import {
 	NoSuchKey,
 	S3Client
 } from '@aws-sdk/client-s3';
-import sharp from 'sharp';
+import { Readable } from 'node:stream';
+import sharp, { type Metadata } from 'sharp';
 import { config } from './config';
 
 let client: S3Client | undefined;
@@ -30,9 +31,24 @@ export function s3(): S3Client {
 	return client;
 }
 
-export async function putObject(key: string, body: Buffer | Uint8Array, contentType: string) {
+/**
+ * Stores bytes or a stream. A stream needs its length (S3 wants Content-Length for a single PUT);
+ * with checksums only when required it is stored as sent, with no chunk framing inside.
+ */
+export async function putObject(
+	key: string,
+	body: Buffer | Uint8Array | Readable,
+	contentType: string,
+	contentLength?: number
+) {
 	await s3().send(
-		new PutObjectCommand({ Bucket: config.s3.bucket, Key: key, Body: body, ContentType: contentType })
+		new PutObjectCommand({
+			Bucket: config.s3.bucket,
+			Key: key,
+			Body: body,
+			ContentType: contentType,
+			ContentLength: contentLength ?? (body instanceof Readable ? undefined : body.byteLength)
+		})
 	);
 }
 
@@ -71,10 +87,17 @@ export async function getObjectBytes(key: string): Promise<Buffer | null> {
 
 /** Deletes every object under a prefix (e.g. all variants of one photo). */
 export async function deletePrefix(prefix: string) {
-	const listed = await s3().send(new ListObjectsV2Command({ Bucket: config.s3.bucket, Prefix: prefix }));
+	const listed = await s3().send(
+		new ListObjectsV2Command({ Bucket: config.s3.bucket, Prefix: prefix })
+	);
 	const keys = (listed.Contents ?? []).map((o) => ({ Key: o.Key! }));
 	if (keys.length) {
-		await s3().send(new DeleteObjectsCommand({ Bucket: config.s3.bucket, Delete: { Objects: keys } }));
+		await s3().send(
+			new DeleteObjectsCommand({
+				Bucket: config.s3.bucket,
+				Delete: { Objects: keys }
+			})
+		);
 	}
 }
 
@@ -88,8 +111,11 @@ export const photoKey = (key: string, width: number) => `${key}/${width}.webp`;
  * Stores a photo as WebP variants at PHOTO_WIDTHS (never upscaled beyond the original) and
  * returns the original's upright size. Throws a clear error when the input is not an image.
  */
-export async function storePhoto(key: string, input: Buffer): Promise<{ width: number; height: number }> {
-	let meta: sharp.Metadata;
+export async function storePhoto(
+	key: string,
+	input: Buffer
+): Promise<{ width: number; height: number }> {
+	let meta: Metadata;
 	try {
 		meta = await sharp(input).metadata();
 	} catch {

@@ -6,7 +6,8 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = async ({ params, request }) => {
 	const key = params.key;
 	// Only the WebP variants storePhoto writes; nothing else in the bucket is public.
-	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.webp$/i.test(key) || key.includes('..')) error(404, 'No such photo');
+	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.webp$/i.test(key) || key.includes('..'))
+		error(404, 'No such photo');
 	const obj = await getObject(key);
 	if (!obj) error(404, 'No such photo');
 
@@ -21,7 +22,10 @@ export const GET: RequestHandler = async ({ params, request }) => {
 
 	if (obj.etag && request.headers.get('if-none-match') === obj.etag) {
 		await obj.body.cancel();
-		return new Response(null, { status: 304, headers: { etag: obj.etag, 'cache-control': headers['cache-control'] } });
+		return new Response(null, {
+			status: 304,
+			headers: { etag: obj.etag, 'cache-control': headers['cache-control'] }
+		});
 	}
 	return new Response(obj.body, { headers });
 };
