@@ -1,0 +1,56 @@
+import { describe, expect, it } from 'vitest';
+import { patternResponse } from '../../src/lib/server/pattern-api';
+import { personalisationSchema } from '../../src/lib/schemas/pattern';
+import { readLetterFont } from '../../src/lib/server/letter-font-file';
+
+const font = readLetterFont();
+const call = (q: string) => patternResponse(new URLSearchParams(q), font);
+
+describe('GET /api/pattern', () => {
+	it('returns the layout for good input', () => {
+		const res = call('diameter=70&count=3&split=0&initials=hm&wood=cherry&width=100&length=300');
+		expect(res.status).toBe(200);
+		const body = res.body as Record<string, unknown>;
+		expect(body.compassRadiusMm).toBe(35);
+		expect((body.rosettes as unknown[]).length).toBe(3);
+		expect(typeof body.svg).toBe('string');
+		expect(body.svg as string).toContain('<svg');
+		expect(body.chipCount).toBeGreaterThan(0);
+		expect(body).not.toHaveProperty('drawing');
+	});
+
+	it.each([
+		['diameter=abc&width=100&length=300', 'diameter'],
+		['diameter=5&width=100&length=300', 'diameter'],
+		['diameter=70&count=0&width=100&length=300', 'count'],
+		['diameter=70&count=2.5&width=100&length=300', 'count'],
+		['diameter=70&count=99&width=100&length=300', 'count'],
+		['diameter=70&spacing=-3&width=100&length=300', 'spacing'],
+		['diameter=70&split=maybe&width=100&length=300', 'split'],
+		['diameter=70&initials=ABCD&width=100&length=300', 'initials'],
+		['diameter=70&initials=A1&width=100&length=300', 'initials'],
+		['diameter=70&wood=teak&width=100&length=300', 'wood'],
+		['diameter=70&length=300', 'width'],
+		['diameter=70&width=100&length=1e9', 'length']
+	])('400 with a message for the field: %s', (q, field) => {
+		const res = call(q);
+		expect(res.status).toBe(400);
+		if (res.status === 400) {
+			expect(res.body.error).toBeTruthy();
+			expect(res.body.fields[field]?.[0]).toBeTruthy();
+		}
+	});
+});
+
+describe('personalisation schema (shared with the cart)', () => {
+	it('uppercases initials and accepts our woods only', () => {
+		expect(personalisationSchema.parse({ initials: ' hm ', wood: 'walnut', style: 'fine' })).toEqual({
+			initials: 'HM',
+			wood: 'walnut',
+			style: 'fine'
+		});
+		expect(personalisationSchema.safeParse({ initials: 'HM', wood: 'ebony' }).success).toBe(false);
+		expect(personalisationSchema.safeParse({ initials: 'ÉL', wood: 'basswood' }).success).toBe(false);
+		expect(personalisationSchema.safeParse({ initials: '', wood: 'basswood' }).success).toBe(false);
+	});
+});
