@@ -83,7 +83,10 @@ let exitCode = 1;
 const timings: string[] = [];
 const lap = (label: string, since: number) => timings.push(`${label} ${((Date.now() - since) / 1000).toFixed(1)} s`);
 
-async function cleanUp() {
+let cleaning: Promise<void> | null = null;
+const cleanUp = () => (cleaning ??= stopEverything());
+
+async function stopEverything() {
 	await stopAll(mocks);
 	mocks = [];
 	if (mariadb) {
@@ -93,8 +96,9 @@ async function cleanUp() {
 	}
 }
 
+// Ctrl-C arrives twice (terminal and tsx's relay): stop once, exit when done.
 for (const sig of ['SIGINT', 'SIGTERM'] as const) {
-	process.once(sig, () => {
+	process.on(sig, () => {
 		void cleanUp().finally(() => process.exit(130));
 	});
 }

@@ -45,12 +45,18 @@ export async function bringDown(running: Running): Promise<void> {
 	}
 }
 
-/** Ctrl-C / SIGTERM: stop everything once, then exit. A second Ctrl-C exits at once. */
+/**
+ * Ctrl-C / SIGTERM: stop everything once, then exit. Ctrl-C reaches this process twice (from the
+ * terminal and relayed by tsx), so only a second signal seconds later means "exit now".
+ */
 export function stopOnSignals(running: Running) {
-	let stopping = false;
+	let firstAt = 0;
 	const handler = (sig: NodeJS.Signals) => {
-		if (stopping) process.exit(130);
-		stopping = true;
+		if (firstAt) {
+			if (Date.now() - firstAt > 3000) process.exit(130);
+			return;
+		}
+		firstAt = Date.now();
 		console.log(`\n${sig}: stopping what this run started…`);
 		bringDown(running)
 			.catch((err) => console.error(String(err)))

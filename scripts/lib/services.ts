@@ -130,13 +130,22 @@ export async function stopLeftovers(): Promise<string[]> {
 		const file = path.join(RUN_DIR, f);
 		const pid = Number(readFileSync(file, 'utf8').trim());
 		rmSync(file, { force: true });
-		if (!pid || !alive(pid)) continue;
+		// A pid can be reused after a reboot: only end processes that run from this project.
+		if (!pid || !alive(pid) || !cmdline(pid).includes(ROOT)) continue;
 		process.kill(pid, 'SIGTERM');
 		for (let i = 0; i < 50 && alive(pid); i++) await sleep(100);
 		if (alive(pid)) process.kill(pid, 'SIGKILL');
 		stopped.push(f.replace(/\.pid$/, ''));
 	}
 	return stopped;
+}
+
+function cmdline(pid: number): string {
+	try {
+		return readFileSync(`/proc/${pid}/cmdline`, 'utf8').replace(/\0/g, ' ');
+	} catch {
+		return '';
+	}
 }
 
 function alive(pid: number) {
