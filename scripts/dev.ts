@@ -18,7 +18,9 @@ const running = await bringUp().catch((err) => {
 stopOnSignals(running);
 
 // node_modules/.bin/vite directly: killing `npx vite` would leave its child running.
-const vite = spawnTracked('vite', BIN('vite'), ['dev', '--port', String(port), '--strictPort'], { ports: [port] });
+const vite = spawnTracked('vite', BIN('vite'), ['dev', '--port', String(port), '--strictPort'], {
+	ports: [port]
+});
 running.children.push(vite);
 vite.child.once('exit', (code) => {
 	if (running.stopping) return;

@@ -8,7 +8,11 @@ const handle = await ensureMariadb();
 try {
 	await runMigrations(config.db.url);
 	const seeded = await seedDemoAt(config.db.url);
-	console.log(seeded ? `Demo data seeded into ${config.db.name}.` : `${config.db.name} already has pieces: left as it is.`);
+	console.log(
+		seeded
+			? `Demo data seeded into ${config.db.name}.`
+			: `${config.db.name} already has pieces: left as it is.`
+	);
 } finally {
 	await releaseMariadb(handle);
 }

@@ -18,7 +18,14 @@ process.env.ORIGIN = config.origin;
 process.env.BODY_SIZE_LIMIT ??= '16M';
 
 const BUILD_DIR = path.join(ROOT, 'build');
-const SOURCES = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package.json'];
+const SOURCES = [
+	'src',
+	'static',
+	'svelte.config.js',
+	'vite.config.ts',
+	'tailwind.config.ts',
+	'package.json'
+];
 
 function newestMtime(p: string): number {
 	if (!existsSync(p)) return 0;
@@ -35,7 +42,9 @@ function buildIsStale(): boolean {
 }
 
 if (await portAnswers(port)) {
-	console.error(`Port ${port} is already in use (another Chipstall?). Stop it, or set PORT to a free port.`);
+	console.error(
+		`Port ${port} is already in use (another Chipstall?). Stop it, or set PORT to a free port.`
+	);
 	process.exit(1);
 }
 

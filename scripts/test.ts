@@ -54,7 +54,8 @@ function ensureChromium() {
 	console.log('Installing chromium with apt (one time)…');
 	const env = { ...e, DEBIAN_FRONTEND: 'noninteractive' };
 	for (const a of [['update'], ['install', '-y', '--no-install-recommends', 'chromium']]) {
-		if (spawnSync('apt-get', a, { stdio: 'inherit', env }).status !== 0) throw new Error(`apt-get ${a.join(' ')} failed`);
+		if (spawnSync('apt-get', a, { stdio: 'inherit', env }).status !== 0)
+			throw new Error(`apt-get ${a.join(' ')} failed`);
 	}
 }
 
@@ -81,7 +82,8 @@ let mariadb: MariadbHandle | null = null;
 let mocks: Started[] = [];
 let exitCode = 1;
 const timings: string[] = [];
-const lap = (label: string, since: number) => timings.push(`${label} ${((Date.now() - since) / 1000).toFixed(1)} s`);
+const lap = (label: string, since: number) =>
+	timings.push(`${label} ${((Date.now() - since) / 1000).toFixed(1)} s`);
 
 let cleaning: Promise<void> | null = null;
 const cleanUp = () => (cleaning ??= stopEverything());
@@ -127,8 +129,12 @@ try {
 		// Its own kit folder too, so a build here never clashes with `npm start` or another run.
 		const kitDir = path.join(DATA_DIR, 'test-build', testDb, 'kit');
 		// tsconfig.json extends the default kit folder's tsconfig, which the build reads.
-		if (!existsSync(path.join(ROOT, '.svelte-kit', 'tsconfig.json'))) await run(BIN('svelte-kit'), ['sync'], env);
-		const buildCode = await run(BIN('vite'), ['build', '--logLevel', 'warn'], { ...env, CHIPSTALL_KIT_DIR: kitDir });
+		if (!existsSync(path.join(ROOT, '.svelte-kit', 'tsconfig.json')))
+			await run(BIN('svelte-kit'), ['sync'], env);
+		const buildCode = await run(BIN('vite'), ['build', '--logLevel', 'warn'], {
+			...env,
+			CHIPSTALL_KIT_DIR: kitDir
+		});
 		lap('build', t);
 		if (buildCode !== 0) {
 			failed = true;
@@ -147,5 +153,7 @@ try {
 } finally {
 	await cleanUp();
 }
-console.log(`\n${exitCode === 0 ? 'Tests passed' : 'Tests FAILED'} (${timings.join(', ')}; total ${((Date.now() - t0) / 1000).toFixed(0)} s)`);
+console.log(
+	`\n${exitCode === 0 ? 'Tests passed' : 'Tests FAILED'} (${timings.join(', ')}; total ${((Date.now() - t0) / 1000).toFixed(0)} s)`
+);
 process.exit(exitCode);

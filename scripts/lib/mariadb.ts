@@ -3,7 +3,15 @@
  * 127.0.0.1 only, data under `.data/mariadb` (git-ignored). `DATABASE_URL` skips all of this.
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+	existsSync,
+	mkdirSync,
+	readdirSync,
+	readFileSync,
+	rmSync,
+	statSync,
+	writeFileSync
+} from 'node:fs';
 import { open, rm } from 'node:fs/promises';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
@@ -50,7 +58,10 @@ function ensureInstalled(): { mariadbd: string; installDb: string } {
 		}
 		console.log('Installing mariadb-server with apt (one time, about half a minute)…');
 		const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-		for (const args of [['update'], ['install', '-y', '--no-install-recommends', 'mariadb-server']]) {
+		for (const args of [
+			['update'],
+			['install', '-y', '--no-install-recommends', 'mariadb-server']
+		]) {
 			const r = spawnSync('apt-get', args, { stdio: 'inherit', env });
 			if (r.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed`);
 		}
@@ -66,7 +77,11 @@ function ensureInstalled(): { mariadbd: string; installDb: string } {
 async function rootConnection(): Promise<mysql.Connection | null> {
 	if (!existsSync(MARIADB.socket)) return null;
 	try {
-		return await mysql.createConnection({ socketPath: MARIADB.socket, user: 'root', connectTimeout: 2000 });
+		return await mysql.createConnection({
+			socketPath: MARIADB.socket,
+			user: 'root',
+			connectTimeout: 2000
+		});
 	} catch (err) {
 		const code = (err as { code?: string }).code;
 		if (code === 'ECONNREFUSED' || code === 'ENOENT' || code === 'ETIMEDOUT') return null;
@@ -94,7 +109,8 @@ async function withLock<T>(fn: () => Promise<T>): Promise<T> {
 		} catch {
 			// A lock older than two minutes was left by a run that died.
 			try {
-				if (Date.now() - statSync(MARIADB.lockFile).mtimeMs > 120_000) await rm(MARIADB.lockFile, { force: true });
+				if (Date.now() - statSync(MARIADB.lockFile).mtimeMs > 120_000)
+					await rm(MARIADB.lockFile, { force: true });
 			} catch {
 				/* gone already */
 			}
@@ -163,7 +179,9 @@ async function waitUntilUp(child: ReturnType<typeof launch>) {
 		if (exited !== null) break;
 		await sleep(150);
 	}
-	throw new Error(`MariaDB did not start (exit ${exited}). Last lines of ${MARIADB.logFile}:\n${logTail()}`);
+	throw new Error(
+		`MariaDB did not start (exit ${exited}). Last lines of ${MARIADB.logFile}:\n${logTail()}`
+	);
 }
 
 /** Creates the app's database and user; grants on `chipstall%` so tests can make their own databases. */
@@ -183,7 +201,8 @@ async function provision(names: string[] = [config.db.name]) {
 			await conn.query(`ALTER USER ${who} IDENTIFIED BY ${mysql.escape(password)}`);
 			await conn.query(`GRANT ALL PRIVILEGES ON \`chipstall%\`.* TO ${who}`);
 			for (const name of names) {
-				if (!name.startsWith('chipstall')) await conn.query(`GRANT ALL PRIVILEGES ON ${mysql.escapeId(name)}.* TO ${who}`);
+				if (!name.startsWith('chipstall'))
+					await conn.query(`GRANT ALL PRIVILEGES ON ${mysql.escapeId(name)}.* TO ${who}`);
 			}
 		}
 	} finally {

@@ -27,7 +27,11 @@ export type Mock = { name: string; file: string; ports: number[] };
 /** The stand-ins with the ports they listen on (read from config, so env overrides apply). */
 export function mocks(): Mock[] {
 	return [
-		{ name: 'mail', file: 'mocks/mail/server.ts', ports: [config.mail.port, config.mail.inboxPort] },
+		{
+			name: 'mail',
+			file: 'mocks/mail/server.ts',
+			ports: [config.mail.port, config.mail.inboxPort]
+		},
 		{ name: 's3', file: 'mocks/s3/server.ts', ports: [config.s3.port] },
 		{ name: 'stripe', file: 'mocks/stripe/server.ts', ports: [config.stripe.port] }
 	];
@@ -65,10 +69,13 @@ async function waitForPorts(s: Started, ports: number[], timeoutMs = 30_000) {
 	while (Date.now() < deadline) {
 		const up = await Promise.all(ports.map((p) => portAnswers(p)));
 		if (up.every(Boolean)) return;
-		if (exitCode !== null) throw new Error(`${s.name} stand-in exited (code ${exitCode}) before listening`);
+		if (exitCode !== null)
+			throw new Error(`${s.name} stand-in exited (code ${exitCode}) before listening`);
 		await sleep(150);
 	}
-	throw new Error(`${s.name} stand-in did not listen on ${ports.join(', ')} within ${timeoutMs / 1000} s`);
+	throw new Error(
+		`${s.name} stand-in did not listen on ${ports.join(', ')} within ${timeoutMs / 1000} s`
+	);
 }
 
 /**
@@ -83,11 +90,15 @@ export async function startMocks(env: NodeJS.ProcessEnv = process.env): Promise<
 			mocks().map(async (m) => {
 				const up = await Promise.all(m.ports.map((p) => portAnswers(p)));
 				if (up.every(Boolean)) {
-					console.log(`  ${m.name} stand-in already answering on ${m.ports.join(', ')}: reusing it`);
+					console.log(
+						`  ${m.name} stand-in already answering on ${m.ports.join(', ')}: reusing it`
+					);
 					return;
 				}
 				if (up.some(Boolean)) {
-					throw new Error(`Port ${m.ports.join(' or ')} for the ${m.name} stand-in is taken by another program`);
+					throw new Error(
+						`Port ${m.ports.join(' or ')} for the ${m.name} stand-in is taken by another program`
+					);
 				}
 				if (!existsSync(path.join(ROOT, m.file))) {
 					console.warn(`  ${m.file} does not exist yet: the ${m.name} stand-in is not running`);
@@ -158,7 +169,11 @@ function alive(pid: number) {
 }
 
 /** Runs a command to completion with inherited output; resolves to its exit code. */
-export function run(command: string, args: string[], env: NodeJS.ProcessEnv = process.env): Promise<number> {
+export function run(
+	command: string,
+	args: string[],
+	env: NodeJS.ProcessEnv = process.env
+): Promise<number> {
 	return new Promise((resolve, reject) => {
 		const child = spawn(command, args, { cwd: ROOT, env, stdio: 'inherit' });
 		child.once('error', reject);

@@ -16,7 +16,8 @@ function filesUnder(dir: string): string[] {
 }
 
 /** XML namespace names are identifiers, not addresses: the browser never fetches them. */
-const NAMESPACES = /^https?:\/\/www\.w3\.org\/(2000\/svg|1999\/xhtml|1999\/xlink|1998\/Math\/MathML|XML\/1998\/namespace|2000\/xmlns\/?)$/;
+const NAMESPACES =
+	/^https?:\/\/www\.w3\.org\/(2000\/svg|1999\/xhtml|1999\/xlink|1998\/Math\/MathML|XML\/1998\/namespace|2000\/xmlns\/?)$/;
 const LOOPBACK = /^https?:\/\/(localhost|127\.0\.0\.1)([:/]|$)/;
 /** Svelte's production error messages end in a link to the error's explanation: text, never fetched. */
 const SVELTE_ERROR_TEXT = /^https:\/\/svelte\.dev\/e\//;
@@ -46,16 +47,21 @@ for (const route of ['/', '/shop']) {
 }
 
 test('the built client holds no outside URL', () => {
-	const files = filesUnder(path.join(buildDir, 'client')).filter((f) => /\.(js|css|html|json|webmanifest|svg)$/.test(f));
+	const files = filesUnder(path.join(buildDir, 'client')).filter((f) =>
+		/\.(js|css|html|json|webmanifest|svg)$/.test(f)
+	);
 	expect(files.length).toBeGreaterThan(0);
-	const found = files.flatMap((f) => outsideUrls(readFileSync(f, 'utf8')).map((u) => `${path.basename(f)}: ${u}`));
+	const found = files.flatMap((f) =>
+		outsideUrls(readFileSync(f, 'utf8')).map((u) => `${path.basename(f)}: ${u}`)
+	);
 	expect(found).toEqual([]);
 });
 
 test('Nunito comes from the app as woff2', async ({ page, baseURL }) => {
 	const fonts: { url: string; status: number; type: string }[] = [];
 	page.on('response', (r) => {
-		if (/\.woff2(\?|$)/.test(r.url())) fonts.push({ url: r.url(), status: r.status(), type: r.headers()['content-type'] ?? '' });
+		if (/\.woff2(\?|$)/.test(r.url()))
+			fonts.push({ url: r.url(), status: r.status(), type: r.headers()['content-type'] ?? '' });
 	});
 	await page.goto('/');
 	await page.evaluate(() => document.fonts.ready);

@@ -155,7 +155,10 @@ describe('demo seed', () => {
 		expect(fairs).toHaveLength(2);
 		const past = fairs.find((f) => f.startsOn < '2026-03-01')!;
 		expect(past.boothFeeMinor).toBeGreaterThan(0);
-		const sales = await db.select().from(schema.boothSales).where(eq(schema.boothSales.fairId, past.id));
+		const sales = await db
+			.select()
+			.from(schema.boothSales)
+			.where(eq(schema.boothSales.fairId, past.id));
 		expect(sales.length).toBeGreaterThan(0);
 		for (const s of sales) {
 			const sub = s.lines.reduce((a, l) => a + l.unitPriceMinor * l.quantity, 0);
@@ -166,13 +169,24 @@ describe('demo seed', () => {
 		}
 		// Expected cash at close = float + cash takings (common practice); the demo counts 2.00 over.
 		const cash = sales.filter((s) => s.method === 'cash').reduce((a, s) => a + s.totalMinor, 0);
-		const [tally] = await db.select().from(schema.tallies).where(eq(schema.tallies.fairId, past.id));
+		const [tally] = await db
+			.select()
+			.from(schema.tallies)
+			.where(eq(schema.tallies.fairId, past.id));
 		expect(tally.cashCountedMinor! - (past.cashFloatMinor + cash)).toBe(200);
-		const fairStock = await db.select().from(schema.fairStock).where(eq(schema.fairStock.fairId, past.id));
+		const fairStock = await db
+			.select()
+			.from(schema.fairStock)
+			.where(eq(schema.fairStock.fairId, past.id));
 		const soldOf = (pieceId: number, woodId: number) =>
-			sales.flatMap((s) => s.lines).filter((l) => l.pieceId === pieceId && l.woodId === woodId).reduce((a, l) => a + l.quantity, 0);
+			sales
+				.flatMap((s) => s.lines)
+				.filter((l) => l.pieceId === pieceId && l.woodId === woodId)
+				.reduce((a, l) => a + l.quantity, 0);
 		// Expected left = loaded − sold (common practice); exactly one line is one short.
-		const gaps = fairStock.map((f) => f.loadedOut - soldOf(f.pieceId, f.woodId) - (f.countedBack ?? 0));
+		const gaps = fairStock.map(
+			(f) => f.loadedOut - soldOf(f.pieceId, f.woodId) - (f.countedBack ?? 0)
+		);
 		expect(gaps.filter((g) => g !== 0)).toEqual([1]);
 		const stockRows = await db.select().from(schema.stock);
 		expect(stockRows.every((r) => r.quantity >= 0)).toBe(true);

@@ -17,9 +17,24 @@ import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
 
 /** Demo-only accounts, listed in the README and printed by `npm start`. */
 export const DEMO_ACCOUNTS: { email: string; password: string; name: string; role: Role }[] = [
-	{ email: 'hollis@chipstall.test', password: 'demo-owner-2026', name: 'Hollis Marsh', role: 'owner' },
-	{ email: 'wren@chipstall.test', password: 'demo-helper-2026', name: 'Wren Tolliver', role: 'helper' },
-	{ email: 'juniper@example.test', password: 'demo-customer-2026', name: 'Juniper Vale', role: 'customer' }
+	{
+		email: 'hollis@chipstall.test',
+		password: 'demo-owner-2026',
+		name: 'Hollis Marsh',
+		role: 'owner'
+	},
+	{
+		email: 'wren@chipstall.test',
+		password: 'demo-helper-2026',
+		name: 'Wren Tolliver',
+		role: 'helper'
+	},
+	{
+		email: 'juniper@example.test',
+		password: 'demo-customer-2026',
+		name: 'Juniper Vale',
+		role: 'customer'
+	}
 ];
 
 /** Price add-on per wood over the base price (USD cents): harder woods take longer to carve. */
@@ -139,7 +154,8 @@ export const DEMO_PIECES: DemoPiece[] = [
 		title: 'Trinket box',
 		kind: 'box',
 		summary: 'A small square box for rings and coins, a rosette on the lid.',
-		description: 'A small square box with a sliding lid and a rosette of twelve petals. Ready to ship.',
+		description:
+			'A small square box with a sliding lid and a rosette of twelve petals. Ready to ship.',
 		size: [95, 95, 50],
 		basePriceMinor: 4200,
 		personalisable: false,
@@ -210,7 +226,13 @@ type DemoOrder = {
 	address: schema.Address;
 	status: OrderStatus;
 	daysAgo: number;
-	lines: { piece: string; wood: string; quantity: number; initials?: string; fromStock?: boolean }[];
+	lines: {
+		piece: string;
+		wood: string;
+		quantity: number;
+		initials?: string;
+		fromStock?: boolean;
+	}[];
 	shipment?: { carrier: string; trackingNumber: string; daysAgo: number };
 	giftNote?: string;
 };
@@ -224,18 +246,129 @@ const addr = (line1: string, city: string, region: string, postcode: string, cou
 });
 
 export const DEMO_ORDERS: DemoOrder[] = [
-	{ ref: 'CS-1001', buyer: 'Juniper Vale', email: 'juniper@example.test', customer: true, address: addr('14 Orchard Row', 'Alder Bend', 'VT', '05001'), status: 'shipped', daysAgo: 40, lines: [{ piece: 'rosette-bottle-holder', wood: 'cherry', quantity: 1, initials: 'JV' }], shipment: { carrier: 'USPS', trackingNumber: 'DEMO9400100000000000001', daysAgo: 24 } },
-	{ ref: 'CS-1002', buyer: 'Tobias Reyne', email: 'tobias@example.test', address: addr('3 Quarry Lane', 'Hatchley', 'NH', '03101'), status: 'shipped', daysAgo: 33, lines: [{ piece: 'keepsake-box', wood: 'basswood', quantity: 1, initials: 'TR' }], shipment: { carrier: 'UPS', trackingNumber: 'DEMO1Z0000000000000002', daysAgo: 15 }, giftNote: 'Happy birthday, Dad.' },
-	{ ref: 'CS-1003', buyer: 'Marisol Fenn', email: 'marisol@example.test', address: { line1: '88 Rue des Tilleuls', city: 'Sainte-Brigide', region: 'QC', postcode: 'J0J 1X0', country: 'CA' }, status: 'shipped', daysAgo: 29, lines: [{ piece: 'rosette-ornament', wood: 'basswood', quantity: 3, fromStock: true }], shipment: { carrier: 'USPS', trackingNumber: 'DEMOLZ000000003US', daysAgo: 27 } },
-	{ ref: 'CS-1004', buyer: 'Odette Callow', email: 'odette@example.test', address: addr('201 Ferry Street', 'Marrow Point', 'ME', '04101'), status: 'packed', daysAgo: 19, lines: [{ piece: 'welcome-plate', wood: 'basswood', quantity: 1, initials: 'CALLOW 2026' }] },
-	{ ref: 'CS-1005', buyer: 'Ansel Brightwater', email: 'ansel@example.test', address: addr('9 Kiln Road', 'Upper Sedge', 'NY', '12401'), status: 'finishing', daysAgo: 15, lines: [{ piece: 'rim-rosette-serving-plate', wood: 'cherry', quantity: 1, initials: 'AB' }] },
-	{ ref: 'CS-1006', buyer: 'Juniper Vale', email: 'juniper@example.test', customer: true, address: addr('14 Orchard Row', 'Alder Bend', 'VT', '05001'), status: 'carving', daysAgo: 9, lines: [{ piece: 'twin-rosette-bottle-holder', wood: 'walnut', quantity: 1, initials: 'JV+RH' }, { piece: 'coffee-scoop', wood: 'cherry', quantity: 1, fromStock: true }] },
-	{ ref: 'CS-1007', buyer: 'Priya Holloway', email: 'priya@example.test', address: addr('56 Weaver Court', 'Greyling', 'MA', '01002'), status: 'carving', daysAgo: 7, lines: [{ piece: 'keepsake-box', wood: 'cherry', quantity: 1, initials: 'PH' }] },
-	{ ref: 'CS-1008', buyer: 'Caspar Lindqvist', email: 'caspar@example.test', address: { line1: 'Storgatan 12', city: 'Norrvik', postcode: '123 45', country: 'SE' }, status: 'paid', daysAgo: 3, lines: [{ piece: 'rosette-ornament', wood: 'butternut', quantity: 2, initials: 'CL' }] },
-	{ ref: 'CS-1009', buyer: 'Hattie Okafor', email: 'hattie@example.test', address: addr('7 Tannery Walk', 'Linden Ford', 'VT', '05002'), status: 'paid', daysAgo: 2, lines: [{ piece: 'rosette-bottle-holder', wood: 'basswood', quantity: 1, initials: 'HO' }] },
-	{ ref: 'CS-1010', buyer: 'Ezra Pennick', email: 'ezra@example.test', address: addr('410 Millrace Ave', 'Copper Falls', 'PA', '15001'), status: 'pending', daysAgo: 0, lines: [{ piece: 'trinket-box', wood: 'walnut', quantity: 1, fromStock: true }] },
-	{ ref: 'CS-1011', buyer: 'Rosalind Achterberg', email: 'rosalind@example.test', address: addr('22 Cooper Lane', 'Elm Hollow', 'OH', '43001'), status: 'cancelled', daysAgo: 12, lines: [{ piece: 'welcome-plate', wood: 'butternut', quantity: 1, initials: 'ACHTERBERG' }] },
-	{ ref: 'CS-1012', buyer: 'Felix Marchetti', email: 'felix@example.test', address: addr('5 Beacon Hill', 'Stonebridge', 'CT', '06001'), status: 'refunded', daysAgo: 21, lines: [{ piece: 'rim-rosette-serving-plate', wood: 'maple', quantity: 1, initials: 'FM' }] }
+	{
+		ref: 'CS-1001',
+		buyer: 'Juniper Vale',
+		email: 'juniper@example.test',
+		customer: true,
+		address: addr('14 Orchard Row', 'Alder Bend', 'VT', '05001'),
+		status: 'shipped',
+		daysAgo: 40,
+		lines: [{ piece: 'rosette-bottle-holder', wood: 'cherry', quantity: 1, initials: 'JV' }],
+		shipment: { carrier: 'USPS', trackingNumber: 'DEMO9400100000000000001', daysAgo: 24 }
+	},
+	{
+		ref: 'CS-1002',
+		buyer: 'Tobias Reyne',
+		email: 'tobias@example.test',
+		address: addr('3 Quarry Lane', 'Hatchley', 'NH', '03101'),
+		status: 'shipped',
+		daysAgo: 33,
+		lines: [{ piece: 'keepsake-box', wood: 'basswood', quantity: 1, initials: 'TR' }],
+		shipment: { carrier: 'UPS', trackingNumber: 'DEMO1Z0000000000000002', daysAgo: 15 },
+		giftNote: 'Happy birthday, Dad.'
+	},
+	{
+		ref: 'CS-1003',
+		buyer: 'Marisol Fenn',
+		email: 'marisol@example.test',
+		address: {
+			line1: '88 Rue des Tilleuls',
+			city: 'Sainte-Brigide',
+			region: 'QC',
+			postcode: 'J0J 1X0',
+			country: 'CA'
+		},
+		status: 'shipped',
+		daysAgo: 29,
+		lines: [{ piece: 'rosette-ornament', wood: 'basswood', quantity: 3, fromStock: true }],
+		shipment: { carrier: 'USPS', trackingNumber: 'DEMOLZ000000003US', daysAgo: 27 }
+	},
+	{
+		ref: 'CS-1004',
+		buyer: 'Odette Callow',
+		email: 'odette@example.test',
+		address: addr('201 Ferry Street', 'Marrow Point', 'ME', '04101'),
+		status: 'packed',
+		daysAgo: 19,
+		lines: [{ piece: 'welcome-plate', wood: 'basswood', quantity: 1, initials: 'CALLOW 2026' }]
+	},
+	{
+		ref: 'CS-1005',
+		buyer: 'Ansel Brightwater',
+		email: 'ansel@example.test',
+		address: addr('9 Kiln Road', 'Upper Sedge', 'NY', '12401'),
+		status: 'finishing',
+		daysAgo: 15,
+		lines: [{ piece: 'rim-rosette-serving-plate', wood: 'cherry', quantity: 1, initials: 'AB' }]
+	},
+	{
+		ref: 'CS-1006',
+		buyer: 'Juniper Vale',
+		email: 'juniper@example.test',
+		customer: true,
+		address: addr('14 Orchard Row', 'Alder Bend', 'VT', '05001'),
+		status: 'carving',
+		daysAgo: 9,
+		lines: [
+			{ piece: 'twin-rosette-bottle-holder', wood: 'walnut', quantity: 1, initials: 'JV+RH' },
+			{ piece: 'coffee-scoop', wood: 'cherry', quantity: 1, fromStock: true }
+		]
+	},
+	{
+		ref: 'CS-1007',
+		buyer: 'Priya Holloway',
+		email: 'priya@example.test',
+		address: addr('56 Weaver Court', 'Greyling', 'MA', '01002'),
+		status: 'carving',
+		daysAgo: 7,
+		lines: [{ piece: 'keepsake-box', wood: 'cherry', quantity: 1, initials: 'PH' }]
+	},
+	{
+		ref: 'CS-1008',
+		buyer: 'Caspar Lindqvist',
+		email: 'caspar@example.test',
+		address: { line1: 'Storgatan 12', city: 'Norrvik', postcode: '123 45', country: 'SE' },
+		status: 'paid',
+		daysAgo: 3,
+		lines: [{ piece: 'rosette-ornament', wood: 'butternut', quantity: 2, initials: 'CL' }]
+	},
+	{
+		ref: 'CS-1009',
+		buyer: 'Hattie Okafor',
+		email: 'hattie@example.test',
+		address: addr('7 Tannery Walk', 'Linden Ford', 'VT', '05002'),
+		status: 'paid',
+		daysAgo: 2,
+		lines: [{ piece: 'rosette-bottle-holder', wood: 'basswood', quantity: 1, initials: 'HO' }]
+	},
+	{
+		ref: 'CS-1010',
+		buyer: 'Ezra Pennick',
+		email: 'ezra@example.test',
+		address: addr('410 Millrace Ave', 'Copper Falls', 'PA', '15001'),
+		status: 'pending',
+		daysAgo: 0,
+		lines: [{ piece: 'trinket-box', wood: 'walnut', quantity: 1, fromStock: true }]
+	},
+	{
+		ref: 'CS-1011',
+		buyer: 'Rosalind Achterberg',
+		email: 'rosalind@example.test',
+		address: addr('22 Cooper Lane', 'Elm Hollow', 'OH', '43001'),
+		status: 'cancelled',
+		daysAgo: 12,
+		lines: [{ piece: 'welcome-plate', wood: 'butternut', quantity: 1, initials: 'ACHTERBERG' }]
+	},
+	{
+		ref: 'CS-1012',
+		buyer: 'Felix Marchetti',
+		email: 'felix@example.test',
+		address: addr('5 Beacon Hill', 'Stonebridge', 'CT', '06001'),
+		status: 'refunded',
+		daysAgo: 21,
+		lines: [{ piece: 'rim-rosette-serving-plate', wood: 'maple', quantity: 1, initials: 'FM' }]
+	}
 ];
 
 const zoneFor = (country: string) =>
@@ -254,7 +387,9 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 		if (again > 0) return null;
 
 		const userIds: Record<string, string> = {};
-		const existing = await tx.select({ id: schema.users.id, email: schema.users.email }).from(schema.users);
+		const existing = await tx
+			.select({ id: schema.users.id, email: schema.users.email })
+			.from(schema.users);
 		for (const [i, a] of DEMO_ACCOUNTS.entries()) {
 			const found = existing.find((u) => u.email === a.email);
 			if (found) {
@@ -318,12 +453,21 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 				})
 				.$returningId();
 			pieceIds[p.slug] = id;
-			await tx.insert(schema.pieceWoods).values(p.woods.map((w) => ({ pieceId: id, woodId: woodIds[w] })));
+			await tx
+				.insert(schema.pieceWoods)
+				.values(p.woods.map((w) => ({ pieceId: id, woodId: woodIds[w] })));
 			const shelf = Object.entries(p.stock);
 			if (shelf.length) {
-				await tx.insert(schema.stock).values(
-					shelf.map(([w, quantity]) => ({ pieceId: id, woodId: woodIds[w], place: 'workshop', quantity }))
-				);
+				await tx
+					.insert(schema.stock)
+					.values(
+						shelf.map(([w, quantity]) => ({
+							pieceId: id,
+							woodId: woodIds[w],
+							place: 'workshop',
+							quantity
+						}))
+					);
 			}
 		}
 
@@ -344,7 +488,9 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 		try {
 			await extra.run(db, seeded);
 		} catch (err) {
-			console.warn(`Demo extra "${extra.name}" failed: ${err instanceof Error ? err.message : err}`);
+			console.warn(
+				`Demo extra "${extra.name}" failed: ${err instanceof Error ? err.message : err}`
+			);
 		}
 	}
 	return true;
@@ -409,7 +555,8 @@ async function seedFairs(
 			woodId: woodIds[wood],
 			loadedOut: n,
 			// One basswood ornament did not come back: the tally shows it as missing.
-			countedBack: n - sold(piece, wood) - (piece === 'rosette-ornament' && wood === 'basswood' ? 1 : 0)
+			countedBack:
+				n - sold(piece, wood) - (piece === 'rosette-ornament' && wood === 'basswood' ? 1 : 0)
 		}))
 	);
 
@@ -459,7 +606,12 @@ async function seedFairs(
 		})
 		.$returningId();
 	await tx.insert(schema.fairStock).values([
-		{ fairId: comingId, pieceId: pieceIds['rosette-ornament'], woodId: woodIds.basswood, loadedOut: 8 },
+		{
+			fairId: comingId,
+			pieceId: pieceIds['rosette-ornament'],
+			woodId: woodIds.basswood,
+			loadedOut: 8
+		},
 		{ fairId: comingId, pieceId: pieceIds['trinket-box'], woodId: woodIds.walnut, loadedOut: 1 }
 	]);
 }
@@ -533,7 +685,9 @@ async function seedOrders(
 				paidAt: paid ? new Date(created.getTime() + 120_000) : null
 			})
 			.$returningId();
-		await tx.insert(schema.orderLines).values(lines.map(({ leadDays: _lead, ...l }) => ({ orderId: id, ...l })));
+		await tx
+			.insert(schema.orderLines)
+			.values(lines.map(({ leadDays: _lead, ...l }) => ({ orderId: id, ...l })));
 		if (o.shipment) {
 			await tx.insert(schema.shipments).values({
 				orderId: id,
