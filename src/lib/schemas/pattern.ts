@@ -41,7 +41,7 @@ export const woodSlugSchema = z
 
 export const ROSETTE_STYLES = {
 	classic: { split: false, label: 'Classic', hint: 'Six petals, twelve chips a rosette' },
-	fine: { split: true, label: 'Fine', hint: 'Every chip halved: twenty-four smaller chips' }
+	split: { split: true, label: 'Split petals', hint: 'Every chip halved: twenty-four smaller chips' }
 } as const;
 export type RosetteStyle = keyof typeof ROSETTE_STYLES;
 export const styleSchema = z.enum(Object.keys(ROSETTE_STYLES) as [RosetteStyle, ...RosetteStyle[]], {

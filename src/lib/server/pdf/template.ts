@@ -1,0 +1,266 @@
+/**
+ * The 1:1 carving template as a PDF. PDF user space is 1/72 inch (ISO 32000-1 §8.3.2.3) and the
+ * inch is exactly 25.4 mm, so 1 mm = 72 / 25.4 pt. Page 1 carries the calibration square, the
+ * "print at actual size" note, the counts and the layout steps; the drawing follows at true
+ * scale, tiled over as many pages as it needs, neighbouring tiles overlapping by OVERLAP_MM
+ * with registration marks to lay over each other.
+ */
+import {
+	PDFDocument,
+	StandardFonts,
+	clip,
+	endPath,
+	popGraphicsState,
+	pushGraphicsState,
+	rectangle,
+	rgb,
+	setLineWidth,
+	setStrokingRgbColor,
+	stroke as strokeOp,
+	type PDFFont,
+	type PDFPage
+} from 'pdf-lib';
+import type { PatternResult } from '../../pattern/types';
+import { facePath } from '../../pattern/paths';
+import { fmt } from '../../pattern/geometry';
+
+export const PT_PER_MM = 72 / 25.4;
+/** A4 210 × 297 mm (ISO 216); US Letter 8.5 × 11 in. */
+export const PAPER_MM = { a4: { w: 210, h: 297 }, letter: { w: 215.9, h: 279.4 } } as const;
+export type Paper = keyof typeof PAPER_MM;
+
+export const MARGIN_MM = 12;
+export const HEADER_MM = 9;
+export const OVERLAP_MM = 12;
+export const CALIBRATION_MM = 50;
+
+export type TemplateOptions = { paper: Paper; orderRef?: string; title?: string };
+
+const INK = rgb(0.12, 0.09, 0.07);
+const SOFT = rgb(0.45, 0.4, 0.36);
+const CHIP_FILL = rgb(0.9, 0.88, 0.85);
+const k = PT_PER_MM;
+
+/** The standard fonts speak WinAnsi: swap the few other characters our text uses. */
+function ansi(s: string): string {
+	return s
+		.replace(/[≥]/g, '>=')
+		.replace(/[≤]/g, '<=')
+		.replace(/[‘’]/g, "'")
+		.replace(/[“”]/g, '"')
+		.replace(/[^\x20-\x7e\u00a0-\u00ff—–•…×±°]/g, '?');
+}
+
+function wrap(text: string, font: PDFFont, size: number, widthPt: number): string[] {
+	const words = ansi(text).split(/\s+/);
+	const lines: string[] = [];
+	let line = '';
+	for (const w of words) {
+		const next = line ? `${line} ${w}` : w;
+		if (font.widthOfTextAtSize(next, size) > widthPt && line) {
+			lines.push(line);
+			line = w;
+		} else line = next;
+	}
+	if (line) lines.push(line);
+	return lines;
+}
+
+export type TileGrid = { cols: number; rows: number; tileW: number; tileH: number; step: { x: number; y: number } };
+
+/** How the drawing splits into page-sized windows (mm). */
+export function tileGrid(widthMm: number, heightMm: number, paper: Paper): TileGrid {
+	const page = PAPER_MM[paper];
+	const tileW = page.w - 2 * MARGIN_MM;
+	const tileH = page.h - 2 * MARGIN_MM - HEADER_MM;
+	const count = (total: number, size: number) =>
+		total <= size ? 1 : Math.ceil((total - OVERLAP_MM) / (size - OVERLAP_MM));
+	return {
+		cols: count(widthMm, tileW),
+		rows: count(heightMm, tileH),
+		tileW,
+		tileH,
+		step: { x: tileW - OVERLAP_MM, y: tileH - OVERLAP_MM }
+	};
+}
+
+function tileName(row: number, col: number) {
+	return `${String.fromCharCode(65 + (row % 26))}${col + 1}`;
+}
+
+export async function templatePdf(result: PatternResult, opts: TemplateOptions): Promise<Uint8Array> {
+	const page = PAPER_MM[opts.paper];
+	const pageW = page.w * k;
+	const pageH = page.h * k;
+	const doc = await PDFDocument.create();
+	doc.setTitle(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}${opts.orderRef ? ` — ${opts.orderRef}` : ''}`));
+	doc.setCreator('Chipstall');
+	doc.setProducer('Chipstall');
+	const font = await doc.embedFont(StandardFonts.Helvetica);
+	const bold = await doc.embedFont(StandardFonts.HelveticaBold);
+	const d = result.drawing;
+	const grid = tileGrid(d.widthMm, d.heightMm, opts.paper);
+
+	infoPage(doc.addPage([pageW, pageH]), result, opts, grid, font, bold);
+
+	for (let row = 0; row < grid.rows; row++) {
+		for (let col = 0; col < grid.cols; col++) {
+			const p = doc.addPage([pageW, pageH]);
+			const x0 = col * grid.step.x;
+			const y0 = row * grid.step.y;
+			const title = [
+				`Tile ${tileName(row, col)}`,
+				grid.rows * grid.cols > 1 ? `row ${row + 1} of ${grid.rows}, column ${col + 1} of ${grid.cols}` : 'whole layout',
+				opts.orderRef ? `order ${opts.orderRef}` : '',
+				'print at actual size / 100 %'
+			]
+				.filter(Boolean)
+				.join('  ·  ');
+			p.drawText(ansi(title), { x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 5) * k, size: 8.5, font: bold, color: INK });
+			if (grid.rows * grid.cols > 1) {
+				p.drawText(
+					ansi(`Tiles overlap by ${OVERLAP_MM} mm: lay the round marks of neighbouring tiles over each other, then tape.`),
+					{ x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 8.5) * k, size: 7, font, color: SOFT }
+				);
+			}
+			drawTile(p, result, grid, x0, y0, pageH);
+		}
+	}
+	return doc.save();
+}
+
+function infoPage(p: PDFPage, r: PatternResult, opts: TemplateOptions, grid: TileGrid, font: PDFFont, bold: PDFFont) {
+	const pageW = p.getWidth();
+	const pageH = p.getHeight();
+	const left = MARGIN_MM * k;
+	const width = pageW - 2 * left;
+	let y = pageH - MARGIN_MM * k - 14;
+	p.drawText(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}`), { x: left, y, size: 16, font: bold, color: INK });
+	y -= 18;
+	if (opts.orderRef) {
+		p.drawText(ansi(`Order ${opts.orderRef}`), { x: left, y, size: 11, font: bold, color: INK });
+		y -= 16;
+	}
+	p.drawText('Print at actual size / 100 %. Turn off "fit to page" and any scaling.', { x: left, y, size: 11, font: bold, color: INK });
+	y -= 14;
+	p.drawText(`Then measure the square: it must be ${CALIBRATION_MM} mm on each side, or the layout is not true to size.`, {
+		x: left,
+		y,
+		size: 9,
+		font,
+		color: SOFT
+	});
+	y -= 10;
+	// The calibration square, exactly 50 mm.
+	const sq = CALIBRATION_MM * k;
+	// A true rectangle operator, so anyone reading the file sees 50 mm in its numbers.
+	p.pushOperators(
+		pushGraphicsState(),
+		setStrokingRgbColor(0.12, 0.09, 0.07),
+		setLineWidth(0.6),
+		rectangle(left, y - sq, sq, sq),
+		strokeOp(),
+		popGraphicsState()
+	);
+	p.drawText(`${CALIBRATION_MM} mm`, { x: left + sq / 2 - 12, y: y - sq / 2 - 3, size: 9, font, color: INK });
+	const facts = [
+		`Compass radius ${fmt(r.compassRadiusMm, 1)} mm, ${r.rosettes.length} rosette${r.rosettes.length > 1 ? 's' : ''}`,
+		`${r.chipCount} chips${r.letterCount ? ` and ${r.letterCount} letter${r.letterCount > 1 ? 's' : ''}` : ''}`,
+		`Total cut length ${Math.round(r.cutLengthMm)} mm`,
+		`About ${r.estimateMinutes} minutes of carving`,
+		`Blank ${fmt(r.drawing.blank.widthMm, 1)} × ${fmt(r.drawing.blank.lengthMm, 1)} mm`,
+		grid.rows * grid.cols > 1
+			? `Drawing on ${grid.rows * grid.cols} pages: ${grid.cols} across × ${grid.rows} down`
+			: 'Drawing on the next page'
+	];
+	let fy = y - 10;
+	for (const f of facts) {
+		p.drawText(ansi(f), { x: left + sq + 10 * k, y: fy, size: 10, font, color: INK });
+		fy -= 14;
+	}
+	y -= sq + 18;
+	p.drawText('Layout steps', { x: left, y, size: 12, font: bold, color: INK });
+	y -= 15;
+	const lines = [
+		...r.steps.map((s, i) => ({ text: `${i + 1}. ${s}`, bold: false })),
+		...r.warnings.map((w) => ({ text: `Check: ${w.message}`, bold: true })),
+		{ text: 'Knives cut: carve away from the hand holding the work. Some wood dust irritates skin and airways.', bold: false }
+	];
+	for (const l of lines) {
+		for (const part of wrap(l.text, l.bold ? bold : font, 9.5, width)) {
+			if (y < MARGIN_MM * k) return;
+			p.drawText(part, { x: left, y, size: 9.5, font: l.bold ? bold : font, color: INK });
+			y -= 12.5;
+		}
+		y -= 3;
+	}
+}
+
+function drawTile(p: PDFPage, r: PatternResult, grid: TileGrid, x0: number, y0: number, pageH: number) {
+	const d = r.drawing;
+	const left = MARGIN_MM;
+	const top = MARGIN_MM + HEADER_MM;
+	const at = { x: (left - x0) * k, y: pageH - (top - y0) * k, scale: k };
+	p.pushOperators(
+		pushGraphicsState(),
+		rectangle(left * k, pageH - (top + grid.tileH) * k, grid.tileW * k, grid.tileH * k),
+		clip(),
+		endPath()
+	);
+	const stroke = (path: string, width: number, color = INK, dash?: number[]) => {
+		if (path) p.drawSvgPath(path, { ...at, borderColor: color, borderWidth: width / k, borderDashArray: dash?.map((v) => v / k) });
+	};
+	for (const c of d.chips) if (c.edges.length) p.drawSvgPath(facePath(c.edges), { ...at, color: CHIP_FILL });
+	stroke(d.blank.outline, 0.8);
+	stroke(`M${fmt(d.centreLineX)} 0V${fmt(d.blank.lengthMm)}`, 0.4, SOFT, [4, 2.5]);
+	stroke(d.lines, 0.45);
+	const marks = r.rosettes.map((c) => `M${fmt(c.x - 2.5)} ${fmt(c.y)}h5M${fmt(c.x)} ${fmt(c.y - 2.5)}v5`).join('');
+	stroke(marks, 0.4);
+	if (d.lettering) {
+		const m = d.lettering.medallion;
+		stroke(`M${fmt(m.x - m.r)} ${fmt(m.y)}a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(2 * m.r)} 0a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(-2 * m.r)} 0`, 0.5);
+		stroke(d.lettering.letters.map((l) => l.d).join(''), 0.45);
+	}
+	if (d.border) {
+		const b = d.border;
+		stroke(`M${fmt(b.x)} ${fmt(b.y)}h${fmt(b.edgeMm)}v${fmt(b.lengthMm)}h${fmt(-b.edgeMm)}Z`, 0.8);
+		stroke(b.rules.map((v) => `M${fmt(b.x + v)} ${fmt(b.y)}V${fmt(b.y + b.lengthMm)}`).join(''), 0.35, SOFT);
+		const tri = b.triangles
+			.map((t) => `M${t.map((q) => `${fmt(b.x + q.y)} ${fmt(b.y + q.x)}`).join('L')}Z`)
+			.join('');
+		stroke(tri, 0.35);
+	}
+	registrationMarks(p, grid, d.widthMm, d.heightMm, stroke);
+	p.pushOperators(popGraphicsState());
+}
+
+/**
+ * Round marks in the middle of every overlap strip: they print on both tiles that share the
+ * strip, at the same place on the drawing, so laying one over the other aligns the pages.
+ */
+function registrationMarks(
+	_p: PDFPage,
+	grid: TileGrid,
+	w: number,
+	h: number,
+	stroke: (path: string, width: number) => void
+) {
+	const mark = (x: number, y: number) =>
+		`M${fmt(x - 4)} ${fmt(y)}h8M${fmt(x)} ${fmt(y - 4)}v8M${fmt(x - 2.5)} ${fmt(y)}a2.5 2.5 0 1 0 5 0a2.5 2.5 0 1 0 -5 0`;
+	let path = '';
+	for (let col = 1; col < grid.cols; col++) {
+		const x = col * grid.step.x + OVERLAP_MM / 2;
+		for (let row = 0; row < grid.rows; row++) {
+			const ya = row * grid.step.y;
+			for (const f of [0.25, 0.75]) path += mark(x, Math.min(h, ya + grid.tileH * f));
+		}
+	}
+	for (let row = 1; row < grid.rows; row++) {
+		const y = row * grid.step.y + OVERLAP_MM / 2;
+		for (let col = 0; col < grid.cols; col++) {
+			const xa = col * grid.step.x;
+			for (const f of [0.25, 0.75]) path += mark(Math.min(w, xa + grid.tileW * f), y);
+		}
+	}
+	stroke(path, 0.4);
+}
