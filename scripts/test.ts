@@ -18,7 +18,7 @@ import {
 	type MariadbHandle
 } from './lib/mariadb';
 import { BIN, DATA_DIR, ROOT } from './lib/paths';
-import { run, startMocks, stopAll, type Started } from './lib/services';
+import { freePort, run, startMocks, stopAll, type Started } from './lib/services';
 
 const args = process.argv.slice(2);
 const part = args[0] === 'unit' || args[0] === 'e2e' ? args.shift()! : 'all';
@@ -26,19 +26,24 @@ const t0 = Date.now();
 
 const e = process.env;
 const testDb = e.TEST_DB_NAME || 'chipstall_test';
-const appPort = e.TEST_APP_PORT || '3100';
-const s3Port = e.TEST_S3_PORT || '4669';
-// Test ports for the stand-ins and the app; TEST_* lets helpers running side by side pick others.
+/**
+ * Test ports for the stand-ins and the app. TEST_* pins one; otherwise a default that another
+ * run holds is swapped for a free port, so runs in other checkouts do not collide.
+ */
+const testPort = async (pinned: string | undefined, preferred: number) =>
+	pinned ? Number(pinned) : freePort(preferred);
+const appPort = await testPort(e.TEST_APP_PORT, 3100);
+const s3Port = await testPort(e.TEST_S3_PORT, 4669);
 Object.assign(e, {
 	SMTP_HOST: '127.0.0.1',
-	SMTP_PORT: e.TEST_SMTP_PORT || '2625',
-	MAIL_INBOX_PORT: e.TEST_INBOX_PORT || '8125',
-	S3_PORT: s3Port,
+	SMTP_PORT: String(await testPort(e.TEST_SMTP_PORT, 2625)),
+	MAIL_INBOX_PORT: String(await testPort(e.TEST_INBOX_PORT, 8125)),
+	S3_PORT: String(s3Port),
 	S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
 	STRIPE_API_HOST: '127.0.0.1',
-	STRIPE_API_PORT: e.TEST_STRIPE_PORT || '12211',
+	STRIPE_API_PORT: String(await testPort(e.TEST_STRIPE_PORT, 12211)),
 	STRIPE_API_PROTOCOL: 'http',
-	PORT: appPort,
+	PORT: String(appPort),
 	ORIGIN: `http://localhost:${appPort}`,
 	DB_NAME: testDb,
 	CHIPSTALL_BUILD_DIR: path.join(DATA_DIR, 'test-build', testDb, 'app'),

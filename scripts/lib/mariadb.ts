@@ -17,7 +17,7 @@ import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { config } from '../../src/lib/server/config';
 import { DATA_DIR } from './paths';
-import { portAnswers } from './services';
+import { freePort, portFree } from './services';
 
 export const MARIADB = {
 	datadir: path.join(DATA_DIR, 'mariadb'),
@@ -86,6 +86,18 @@ async function rootConnection(): Promise<mysql.Connection | null> {
 		const code = (err as { code?: string }).code;
 		if (code === 'ECONNREFUSED' || code === 'ENOENT' || code === 'ETIMEDOUT') return null;
 		throw err;
+	}
+}
+
+/** The TCP port the project's running server listens on, or null when it is not running. */
+async function runningPort(): Promise<number | null> {
+	const conn = await rootConnection();
+	if (!conn) return null;
+	try {
+		const [rows] = await conn.query('SELECT @@port AS port');
+		return Number((rows as { port: number }[])[0].port);
+	} finally {
+		await conn.end();
 	}
 }
 
@@ -224,11 +236,23 @@ export async function ensureMariadb(): Promise<MariadbHandle> {
 	if (usesExternalDatabase()) return { startedHere: false, external: true };
 	return withLock(async () => {
 		let startedHere = false;
-		if (!(await isMariadbRunning())) {
-			if (await portAnswers(config.db.port)) {
-				throw new Error(
-					`Port ${config.db.port} is taken by another program. Stop it, or set DB_PORT to a free port.`
+		const running = await runningPort();
+		if (running) {
+			// Reuse it wherever it listens (a run may have moved it off a taken port).
+			process.env.DB_PORT = String(running);
+		} else {
+			if (!(await portFree(config.db.port))) {
+				if (process.env.DB_PORT) {
+					throw new Error(
+						`Port ${config.db.port} (DB_PORT) is taken by another program. Stop it, or choose another DB_PORT.`
+					);
+				}
+				// Another checkout's server, say: move ours rather than fail.
+				const port = await freePort(config.db.port + 100);
+				console.log(
+					`Port ${config.db.port} is taken by another program; MariaDB will use ${port}.`
 				);
+				process.env.DB_PORT = String(port);
 			}
 			const { mariadbd, installDb } = ensureInstalled();
 			if (!existsSync(path.join(MARIADB.datadir, 'mysql'))) initialise(installDb);

@@ -22,6 +22,28 @@ export function portAnswers(port: number, host = '127.0.0.1'): Promise<boolean> 
 	});
 }
 
+/** True when nothing on this machine holds the port (tried by listening on it for a moment). */
+export function portFree(port: number): Promise<boolean> {
+	return new Promise((resolve) => {
+		const srv = net.createServer();
+		srv.once('error', () => resolve(false));
+		srv.listen({ port, host: '127.0.0.1', exclusive: true }, () => srv.close(() => resolve(true)));
+	});
+}
+
+/** The preferred port when free, else one the system hands out. */
+export async function freePort(preferred: number): Promise<number> {
+	if (await portFree(preferred)) return preferred;
+	return new Promise((resolve, reject) => {
+		const srv = net.createServer();
+		srv.once('error', reject);
+		srv.listen({ port: 0, host: '127.0.0.1' }, () => {
+			const { port } = srv.address() as net.AddressInfo;
+			srv.close(() => resolve(port));
+		});
+	});
+}
+
 export type Mock = { name: string; file: string; ports: number[] };
 
 /** The stand-ins with the ports they listen on (read from config, so env overrides apply). */
