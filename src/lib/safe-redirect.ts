@@ -18,3 +18,8 @@ export function safeNext(next: string | null | undefined, fallback = '/'): strin
 	if (url.origin !== base) return fallback;
 	return url.pathname + url.search + url.hash;
 }
+
+/** Where someone lands after signing in when no `next` was asked for. */
+export function homeFor(role: 'owner' | 'helper' | 'customer'): string {
+	return role === 'customer' ? '/account' : '/workshop';
+}

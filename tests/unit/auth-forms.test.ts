@@ -31,7 +31,7 @@ describe('safeNext', () => {
 	});
 });
 
-const fields = (r: { success: boolean; error?: z.ZodError }) =>
+const fields = (r: { success: boolean; error?: z.ZodError }): Record<string, string[] | undefined> =>
 	r.error ? z.flattenError(r.error).fieldErrors : {};
 
 describe('auth form schemas', () => {

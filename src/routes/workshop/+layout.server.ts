@@ -1,3 +1,8 @@
+import { requireRole } from '$lib/server/auth/guard';
 import type { LayoutServerLoad } from './$types';
 
-export const load: LayoutServerLoad = async ({ locals }) => ({ user: locals.user });
+/** The shell needs the name and role; each page below checks again where it reads data. */
+export const load: LayoutServerLoad = async (event) => {
+	const user = requireRole(event, 'owner', 'helper');
+	return { user };
+};

@@ -20,6 +20,11 @@ export async function findUserByEmail(email: string): Promise<AccountUser | null
 	return row ?? null;
 }
 
+export async function findUserById(id: string): Promise<AccountUser | null> {
+	const [row] = await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1);
+	return row ?? null;
+}
+
 /** The account for this e-mail and password, or null without saying which part was wrong. */
 export async function authenticate(email: string, password: string): Promise<AccountUser | null> {
 	const [row] = await db

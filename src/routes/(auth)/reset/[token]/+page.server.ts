@@ -1,0 +1,32 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import { resetPasswordSchema } from '$lib/schemas/auth';
+import { homeFor } from '$lib/safe-redirect';
+import { checkResetToken, completeReset } from '$lib/server/auth/reset';
+import { signIn } from '$lib/server/auth/lucia';
+import { findUserById } from '$lib/server/auth/users';
+import type { Actions, PageServerLoad } from './$types';
+
+/** The token is in the address: keep it out of caches and out of any Referer header. */
+const privateHeaders = { 'cache-control': 'no-store', 'referrer-policy': 'no-referrer' };
+
+export const load: PageServerLoad = async ({ params, setHeaders }) => {
+	setHeaders(privateHeaders);
+	return { state: await checkResetToken(params.token) };
+};
+
+export const actions: Actions = {
+	default: async ({ params, request, cookies }) => {
+		const parsed = resetPasswordSchema.safeParse(Object.fromEntries(await request.formData()));
+		if (!parsed.success) {
+			return fail(400, { errors: z.flattenError(parsed.error).fieldErrors, state: 'valid' as const });
+		}
+		const done = await completeReset(params.token, parsed.data.password);
+		if (!done.ok) return fail(400, { errors: {}, state: done.state });
+
+		// completeReset ended every older session of the account; this one starts fresh.
+		await signIn(cookies, done.userId);
+		const user = await findUserById(done.userId);
+		redirect(303, user ? homeFor(user.role) : '/');
+	}
+};

@@ -1,0 +1,41 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import { signInSchema } from '$lib/schemas/auth';
+import { homeFor, safeNext } from '$lib/safe-redirect';
+import { authenticate } from '$lib/server/auth/users';
+import { invalidateSession, signIn } from '$lib/server/auth/lucia';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, url }) => {
+	const next = safeNext(url.searchParams.get('next'), '');
+	if (locals.user) redirect(303, next || homeFor(locals.user.role));
+	return { next };
+};
+
+/** The same words whether the e-mail or the password was wrong. */
+const NO_MATCH = "That e-mail and password don't match an account.";
+
+export const actions: Actions = {
+	default: async ({ request, cookies, locals, url }) => {
+		const form = Object.fromEntries(await request.formData());
+		const email = typeof form.email === 'string' ? form.email : '';
+		const next = safeNext(
+			typeof form.next === 'string' ? form.next : url.searchParams.get('next'),
+			''
+		);
+		const parsed = signInSchema.safeParse(form);
+		if (!parsed.success) {
+			return fail(400, {
+				errors: z.flattenError(parsed.error).fieldErrors,
+				values: { email },
+				message: ''
+			});
+		}
+		const user = await authenticate(parsed.data.email, parsed.data.password);
+		if (!user) return fail(400, { errors: {}, values: { email }, message: NO_MATCH });
+
+		if (locals.session) await invalidateSession(locals.session.id);
+		await signIn(cookies, user.id);
+		redirect(303, next || homeFor(user.role));
+	}
+};

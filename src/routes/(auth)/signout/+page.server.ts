@@ -1,0 +1,17 @@
+import { redirect } from '@sveltejs/kit';
+import { clearSessionCookie, invalidateSession } from '$lib/server/auth/lucia';
+import type { Actions, PageServerLoad } from './$types';
+
+/** A visit (GET) only asks; signing out is a POST, so a link or a prefetch cannot do it. */
+export const load: PageServerLoad = async ({ locals }) => {
+	if (!locals.user) redirect(303, '/');
+	return { name: locals.user.name };
+};
+
+export const actions: Actions = {
+	default: async ({ locals, cookies }) => {
+		if (locals.session) await invalidateSession(locals.session.id);
+		clearSessionCookie(cookies);
+		redirect(303, '/');
+	}
+};

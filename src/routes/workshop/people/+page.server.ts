@@ -1,0 +1,55 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { addHelperSchema, promoteSchema, removeHelperSchema } from '$lib/schemas/auth';
+import { requireRole } from '$lib/server/auth/guard';
+import { addHelper, listStaff, promoteCustomer, removeHelper } from '$lib/server/auth/staff';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const owner = requireRole(event, 'owner');
+	return { staff: await listStaff(), me: owner.id };
+};
+
+const text = (v: FormDataEntryValue | undefined) => (typeof v === 'string' ? v : '');
+
+export const actions: Actions = {
+	add: async (event) => {
+		requireRole(event, 'owner');
+		const form = Object.fromEntries(await event.request.formData());
+		const values = { name: text(form.name), email: text(form.email) };
+		const parsed = addHelperSchema.safeParse(form);
+		if (!parsed.success) {
+			return fail(400, { form: 'add', errors: z.flattenError(parsed.error).fieldErrors, values });
+		}
+		const r = await addHelper(parsed.data);
+		if (!r.ok) return fail(400, { form: 'add', errors: { [r.field]: [r.message] }, values });
+		return { form: 'add', done: `${r.user.name} can now sign in as a helper.` };
+	},
+
+	promote: async (event) => {
+		requireRole(event, 'owner');
+		const form = Object.fromEntries(await event.request.formData());
+		const values = { email: text(form.email) };
+		const parsed = promoteSchema.safeParse(form);
+		if (!parsed.success) {
+			return fail(400, { form: 'promote', errors: z.flattenError(parsed.error).fieldErrors, values });
+		}
+		const r = await promoteCustomer(parsed.data.email);
+		if (!r.ok) return fail(400, { form: 'promote', errors: { [r.field]: [r.message] }, values });
+		return { form: 'promote', done: `${r.user.name} is now a helper.` };
+	},
+
+	remove: async (event) => {
+		const owner = requireRole(event, 'owner');
+		const parsed = removeHelperSchema.safeParse(Object.fromEntries(await event.request.formData()));
+		if (!parsed.success) {
+			return fail(400, { form: 'remove', errors: z.flattenError(parsed.error).fieldErrors });
+		}
+		const r = await removeHelper(owner.id, parsed.data.userId);
+		if (!r.ok) return fail(400, { form: 'remove', errors: { userId: [r.message] } });
+		return {
+			form: 'remove',
+			done: `${r.user.name} is no longer a helper and has been signed out of the workshop.`
+		};
+	}
+};

@@ -1,0 +1,29 @@
+import { expect } from '@playwright/test';
+
+export type CaughtMail = { to: string[]; subject: string; text: string; html?: string; date: string };
+
+/** The mail stand-in's JSON list of caught messages. */
+export const mailInboxUrl = () =>
+	process.env.MAIL_INBOX_URL ||
+	`http://127.0.0.1:${process.env.MAIL_INBOX_PORT || 8025}/api/messages`;
+
+/** Waits until a message to `to` arrives and returns the newest one. */
+export async function waitForMail(to: string, subject?: RegExp): Promise<CaughtMail> {
+	let found: CaughtMail | undefined;
+	await expect
+		.poll(
+			async () => {
+				const res = await fetch(mailInboxUrl());
+				const list = (await res.json()) as CaughtMail[];
+				found = list.find(
+					(m) =>
+						m.to.some((t) => t.toLowerCase() === to.toLowerCase()) &&
+						(!subject || subject.test(m.subject))
+				);
+				return Boolean(found);
+			},
+			{ timeout: 10_000, message: `an e-mail to ${to}` }
+		)
+		.toBe(true);
+	return found!;
+}
