@@ -1,14 +1,11 @@
 import { computePattern } from '$lib/pattern';
+import { initialsSchema, ROSETTE_STYLES, styleSchema } from '$lib/schemas/pattern';
 import type { Personalisation, PiecePattern } from './db/schema';
 import { jsonValue } from './json-column';
+import { letterFont } from './letter-font';
 
 type PieceBlank = { pattern: unknown; widthMm: number; lengthMm: number; thicknessMm: number };
 type WoodTones = { slug?: string; toneLight: string; toneDark: string };
-
-export const STYLES = { classic: 'Classic six petals', split: 'Split petals (24 chips)' } as const;
-export type Style = keyof typeof STYLES;
-
-const INITIALS = /^[A-Z]{1,3}$/;
 
 /**
  * The server's own run of the pattern engine for a personalised piece: the piece's layout and
@@ -20,12 +17,15 @@ export function personalise(
 	wood: WoodTones,
 	input: { initials: string; style?: string }
 ): { ok: true; snapshot: Personalisation } | { ok: false; fields: Record<string, string[]> } {
-	const initials = input.initials.trim().toUpperCase();
-	if (!INITIALS.test(initials)) {
-		return { ok: false, fields: { initials: ['Use one to three letters, A to Z.'] } };
+	const parsedInitials = initialsSchema.safeParse(input.initials);
+	if (!parsedInitials.success) {
+		return { ok: false, fields: { initials: [parsedInitials.error.issues[0].message] } };
 	}
-	const style = (input.style || 'classic') as Style;
-	if (!(style in STYLES)) return { ok: false, fields: { style: ['Choose one of the rosette styles.'] } };
+	const parsedStyle = styleSchema.safeParse(input.style || 'classic');
+	if (!parsedStyle.success) return { ok: false, fields: { style: [parsedStyle.error.issues[0].message] } };
+	const initials = parsedInitials.data;
+	const style = parsedStyle.data;
+	const split = ROSETTE_STYLES[style].split;
 	const layout = jsonValue<PiecePattern>(piece.pattern);
 	const spacingMm = layout.spacingMm || layout.diameterMm / 2;
 	const result = computePattern(
@@ -33,14 +33,14 @@ export function personalise(
 			diameterMm: layout.diameterMm,
 			count: layout.count,
 			spacingMm,
-			split: style === 'split',
+			split,
 			initials,
 			woodSlug: wood.slug,
 			widthMm: piece.widthMm,
 			lengthMm: piece.lengthMm,
 			thicknessMm: piece.thicknessMm
 		},
-		{ svg: false }
+		{ svg: false, font: letterFont() }
 	);
 	return {
 		ok: true,
@@ -50,7 +50,7 @@ export function personalise(
 			diameterMm: layout.diameterMm,
 			count: layout.count,
 			spacingMm,
-			split: style === 'split',
+			split,
 			chipCount: result.chipCount,
 			cutLengthMm: Math.round(result.cutLengthMm),
 			estimateMinutes: Math.round(result.estimateMinutes)
@@ -75,6 +75,6 @@ export function previewSvg(
 			woodSlug: wood.slug,
 			...blank
 		},
-		{ idPrefix }
+		{ idPrefix, font: letterFont() }
 	).svg;
 }

@@ -1,0 +1,65 @@
+import { error, fail } from '@sveltejs/kit';
+import { getPiece } from '$lib/server/catalogue';
+import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
+import { addLineSchema, fieldErrors } from '$lib/schemas/cart';
+import { hardnessWords, weightWords } from '$lib/woods';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params }) => {
+	const piece = await getPiece(params.slug);
+	if (!piece) error(404, 'We do not have a piece at this address.');
+	return {
+		piece: {
+			...piece,
+			woods: piece.woods.map((w) => ({
+				slug: w.slug,
+				name: w.name,
+				toneLight: w.toneLight,
+				toneDark: w.toneDark,
+				priceAddOnMinor: w.priceAddOnMinor,
+				inStock: w.inStock,
+				hardness: hardnessWords(w.sideHardnessN),
+				weight: weightWords(w.densityKgM3),
+				densityKgM3: w.densityKgM3,
+				character: w.character,
+				caution: w.caution ?? undefined
+			}))
+		}
+	};
+};
+
+export const actions: Actions = {
+	/** Adds the piece, personalised or ready-made; the server checks and prices it again. */
+	add: async ({ request, params, cookies, locals, url }) => {
+		const form = Object.fromEntries(await request.formData());
+		const personalised = form.mode === 'personalised';
+		const values = {
+			mode: personalised ? 'personalised' : 'ready',
+			initials: String(form.initials ?? ''),
+			wood: String(form.wood ?? ''),
+			style: String(form.style ?? ''),
+			quantity: String(form.quantity ?? '1')
+		};
+		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
+		const errors: Record<string, string[]> = parsed.success ? {} : fieldErrors(parsed.error);
+		if (personalised && !values.initials.trim()) {
+			errors.initials = ['Type one to three letters for the rosette.'];
+		}
+		if (!parsed.success || Object.keys(errors).length) return fail(400, { errors, values });
+
+		const input = { ...parsed.data, initials: personalised ? parsed.data.initials : undefined };
+		try {
+			const cartId = await ensureCart(cookies, locals.user?.id ?? null, url.protocol === 'https:');
+			await addLine(cartId, input);
+			return { added: true, count: await cartCount(cartId), values };
+		} catch (err) {
+			if (err instanceof CartError) {
+				return fail(err.status === 404 ? 404 : 400, {
+					errors: err.fields ?? { form: [err.message] },
+					values
+				});
+			}
+			throw err;
+		}
+	}
+};
