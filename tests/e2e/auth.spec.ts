@@ -110,6 +110,7 @@ test.describe('signing in and up', () => {
 
 test.describe('password reset', () => {
 	test('the e-mailed link sets a new password once, then says it was used', async ({ page, baseURL }) => {
+		test.slow(); // five sign-ins and a mail round trip
 		const email = unique('forgetful');
 		await signUp(page, 'Fern Forgetful', email, 'the first password');
 		await expect(page).toHaveURL(/\/account$/);
@@ -175,4 +176,61 @@ test.describe('signing out', () => {
 		await page.goto('/account');
 		await expect(page).toHaveURL(/\/signin\?next=%2Faccount$/);
 	});
+});
+
+test.describe('the owner manages helpers', () => {
+	test('adds a helper who can open the workshop, then removes them and their session ends', async ({
+		page,
+		browser
+	}) => {
+		test.slow(); // two browsers, four sign-ins
+		const email = unique('newhelper');
+		await signInAs(page, 'owner');
+		await page.goto('/workshop/people');
+		// No way to remove yourself.
+		const me = page.getByTestId('staff-list').getByRole('listitem').filter({ hasText: '(you)' });
+		await expect(me.getByRole('button', { name: /remove/i })).toHaveCount(0);
+
+		await page.getByLabel('Name').fill('Moss Newhand');
+		await page.getByLabel('E-mail').first().fill(email);
+		await page.getByLabel('Temporary password').fill('temporary-pass-1');
+		await page.getByRole('button', { name: 'Add helper' }).click();
+		await expect(page.getByText('Moss Newhand can now sign in as a helper.')).toBeVisible();
+		await expect(page.getByTestId('staff-list')).toContainText(email);
+
+		const helperContext = await browser.newContext();
+		const helper = await helperContext.newPage();
+		await signInWith(helper, email, 'temporary-pass-1');
+		await expect(helper).toHaveURL(/\/workshop$/);
+
+		await page.getByRole('button', { name: 'Remove Moss Newhand as a helper' }).click();
+		await expect(page.getByText('Moss Newhand is no longer a helper')).toBeVisible();
+		await expect(page.getByTestId('staff-list')).not.toContainText(email);
+
+		// Their open session ended with the removal; signing in again gives a customer account.
+		await helper.goto('/workshop');
+		await expect(helper).toHaveURL(/\/signin\?next=%2Fworkshop$/);
+		await signInWith(helper, email, 'temporary-pass-1');
+		await expect(helper).toHaveURL(/\/account$/);
+		expect((await helper.goto('/workshop'))?.status()).toBe(403);
+		await helperContext.close();
+	});
+
+	test('adding a helper over an existing customer points to promotion instead', async ({ page }) => {
+		await signInAs(page, 'owner');
+		await page.goto('/workshop/people');
+		await page.getByLabel('Name').fill('Juniper');
+		await page.getByLabel('E-mail').first().fill(demoAccount('customer').email);
+		await page.getByLabel('Temporary password').fill('temporary-pass-1');
+		await page.getByRole('button', { name: 'Add helper' }).click();
+		await expect(page.locator('#add-email-error')).toContainText('already has a customer account');
+		await expect(page.getByLabel('Name')).toHaveValue('Juniper');
+	});
+});
+
+test('API errors answer JSON `{ error }` with the status, also to a browser', async ({ request }) => {
+	const res = await request.get('/api/no-such-endpoint', { headers: { accept: 'text/html' } });
+	expect(res.status()).toBe(404);
+	expect(res.headers()['content-type']).toContain('application/json');
+	expect(await res.json()).toEqual({ error: expect.any(String) });
 });
