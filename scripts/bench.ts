@@ -24,18 +24,32 @@ async function timeIt(runs: number, fn: () => unknown | Promise<unknown>): Promi
 }
 
 const font = readLetterFont();
-const input = { diameterMm: 70, count: 3, initials: 'HMW', woodSlug: 'cherry', widthMm: 100, lengthMm: 300 };
+const input = {
+	diameterMm: 70,
+	count: 3,
+	initials: 'HMW',
+	woodSlug: 'cherry',
+	widthMm: 100,
+	lengthMm: 300
+};
 const heapBefore = process.memoryUsage().heapUsed;
 
 // Vary the initials so the per-text outline cache does not flatter the figure.
 const letters = ['HMW', 'ABC', 'JK', 'Q', 'XYZ', 'LF'];
 let n = 0;
-const patternMs = await timeIt(500, () => computePattern({ ...input, initials: letters[n++ % letters.length] }, { font }));
+const patternMs = await timeIt(500, () =>
+	computePattern({ ...input, initials: letters[n++ % letters.length] }, { font })
+);
 const halvedMs = await timeIt(200, () => computePattern({ ...input, split: true }, { font }));
 const result = computePattern(input, { font });
-const pdfMs = await timeIt(30, () => templatePdf(result, { paper: 'a4', orderRef: 'CS-1042', title: 'Bottle holder' }));
+const pdfMs = await timeIt(30, () =>
+	templatePdf(result, { paper: 'a4', orderRef: 'CS-1042', title: 'Bottle holder' })
+);
 const bigPdfMs = await timeIt(15, () =>
-	templatePdf(computePattern({ ...input, count: 6, lengthMm: 600, border: { edgeMm: 26 } }, { font }), { paper: 'letter' })
+	templatePdf(
+		computePattern({ ...input, count: 6, lengthMm: 600, border: { edgeMm: 26 } }, { font }),
+		{ paper: 'letter' }
+	)
 );
 const mem = process.memoryUsage();
 

@@ -44,13 +44,17 @@ describe('GET /api/pattern', () => {
 
 describe('personalisation schema (shared with the cart)', () => {
 	it('uppercases initials and accepts our woods only', () => {
-		expect(personalisationSchema.parse({ initials: ' hm ', wood: 'walnut', style: 'split' })).toEqual({
+		expect(
+			personalisationSchema.parse({ initials: ' hm ', wood: 'walnut', style: 'split' })
+		).toEqual({
 			initials: 'HM',
 			wood: 'walnut',
 			style: 'split'
 		});
 		expect(personalisationSchema.safeParse({ initials: 'HM', wood: 'ebony' }).success).toBe(false);
-		expect(personalisationSchema.safeParse({ initials: 'ÉL', wood: 'basswood' }).success).toBe(false);
+		expect(personalisationSchema.safeParse({ initials: 'ÉL', wood: 'basswood' }).success).toBe(
+			false
+		);
 		expect(personalisationSchema.safeParse({ initials: '', wood: 'basswood' }).success).toBe(false);
 	});
 });

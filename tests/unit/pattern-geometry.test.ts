@@ -6,18 +6,27 @@ import { rosetteAt, stepRound } from '../../src/lib/pattern/rosette';
 
 const { point, circle, arc } = Flatten;
 const one = (diameterMm: number, split = false) =>
-	computePattern({ diameterMm, count: 1, split, widthMm: diameterMm + 40, lengthMm: diameterMm + 40 }, { svg: false });
+	computePattern(
+		{ diameterMm, count: 1, split, widthMm: diameterMm + 40, lengthMm: diameterMm + 40 },
+		{ svg: false }
+	);
 
 describe('six-petal rosette geometry', () => {
 	it('steps the radius six times round and closes (Euclid, Elements IV.15)', () => {
-		for (const [x, y, r] of [[0, 0, 1], [50, 150, 35], [12.5, -7.25, 123.456]]) {
+		for (const [x, y, r] of [
+			[0, 0, 1],
+			[50, 150, 35],
+			[12.5, -7.25, 123.456]
+		]) {
 			const c = { x, y, r };
 			const marks = stepRound(c, { x, y: y - r });
 			// Euclid, Elements, Book IV, Prop. 15: the side of the inscribed hexagon equals the radius,
 			// so six steps of the compass close the circle exactly.
 			expect(Math.hypot(marks[6].x - marks[0].x, marks[6].y - marks[0].y)).toBeLessThan(1e-9);
 			for (let k = 0; k < 6; k++) {
-				expect(Math.abs(Math.hypot(marks[k + 1].x - marks[k].x, marks[k + 1].y - marks[k].y) - r)).toBeLessThan(1e-9);
+				expect(
+					Math.abs(Math.hypot(marks[k + 1].x - marks[k].x, marks[k + 1].y - marks[k].y) - r)
+				).toBeLessThan(1e-9);
 				expect(Math.abs(Math.hypot(marks[k].x - x, marks[k].y - y) - r)).toBeLessThan(1e-9);
 			}
 		}
@@ -39,9 +48,11 @@ describe('six-petal rosette geometry', () => {
 			expect(between).toHaveLength(6);
 			// Petal = lens of two radius-r circles with centres r√3 apart (MathWorld lens formula):
 			// r²(π/3 − √3/2).
-			for (const p of petals) expect(p.areaMm2).toBeCloseTo(r * r * (Math.PI / 3 - Math.sqrt(3) / 2), 8);
+			for (const p of petals)
+				expect(p.areaMm2).toBeCloseTo(r * r * (Math.PI / 3 - Math.sqrt(3) / 2), 8);
 			// Between-petal chip r²(3√3 − π)/6 (TRADE.md, derived from the lens formula).
-			for (const b of between) expect(b.areaMm2).toBeCloseTo((r * r * (3 * Math.sqrt(3) - Math.PI)) / 6, 8);
+			for (const b of between)
+				expect(b.areaMm2).toBeCloseTo((r * r * (3 * Math.sqrt(3) - Math.PI)) / 6, 8);
 			// 6 petals + 6 between = the disc, πr² (area of a circle).
 			const total = res.chips.reduce((s, c) => s + c.areaMm2, 0);
 			expect(total).toBeCloseTo(Math.PI * r * r, 8);

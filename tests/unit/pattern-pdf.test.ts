@@ -5,7 +5,10 @@ import { readLetterFont } from '../../src/lib/server/letter-font-file';
 import { templatePdf, tileGrid } from '../../src/lib/server/pdf/template';
 
 const font = readLetterFont();
-const small = computePattern({ diameterMm: 60, count: 1, initials: 'LF', widthMm: 90, lengthMm: 120 }, { font });
+const small = computePattern(
+	{ diameterMm: 60, count: 1, initials: 'LF', widthMm: 90, lengthMm: 120 },
+	{ font }
+);
 const long = computePattern(
 	{ diameterMm: 90, count: 5, initials: 'AB', widthMm: 130, lengthMm: 520, border: { edgeMm: 26 } },
 	{ font }
@@ -19,14 +22,18 @@ function contentOf(doc: PDFDocument, index: number): string {
 	return refs
 		.map((r) => {
 			const s = r instanceof PDFRef ? doc.context.lookup(r) : r;
-			return s instanceof PDFRawStream ? new TextDecoder('latin1').decode(decodePDFRawStream(s).decode()) : '';
+			return s instanceof PDFRawStream
+				? new TextDecoder('latin1').decode(decodePDFRawStream(s).decode())
+				: '';
 		})
 		.join('\n');
 }
 
 describe('1:1 template PDF', () => {
 	it('A4 pages are 210 × 297 mm = 595.276 × 841.890 pt', async () => {
-		const doc = await PDFDocument.load(await templatePdf(small, { paper: 'a4', orderRef: 'CS-1042' }));
+		const doc = await PDFDocument.load(
+			await templatePdf(small, { paper: 'a4', orderRef: 'CS-1042' })
+		);
 		for (const page of doc.getPages()) {
 			const { width, height } = page.getSize();
 			// ISO 216: A4 is 210 × 297 mm; ISO 32000-1 §8.3.2.3: 1 pt = 1/72 in; 1 in = 25.4 mm (1959 agreement).
@@ -46,7 +53,9 @@ describe('1:1 template PDF', () => {
 	});
 
 	it('draws a calibration square of 50 mm and says to print at actual size', async () => {
-		const doc = await PDFDocument.load(await templatePdf(small, { paper: 'a4', orderRef: 'CS-1042' }));
+		const doc = await PDFDocument.load(
+			await templatePdf(small, { paper: 'a4', orderRef: 'CS-1042' })
+		);
 		const text = contentOf(doc, 0);
 		// A rectangle operator `x y w h re` with w = h = 50 mm = 50 / 25.4 · 72 pt = 141.732 pt.
 		const squares = [...text.matchAll(/(-?[\d.]+) (-?[\d.]+) (-?[\d.]+) (-?[\d.]+) re/g)].filter(
@@ -64,7 +73,9 @@ describe('1:1 template PDF', () => {
 		const grid = tileGrid(long.drawing.widthMm, long.drawing.heightMm, 'a4');
 		expect(grid.rows).toBeGreaterThan(1);
 		// Windows that overlap cover the whole drawing.
-		expect((grid.rows - 1) * grid.step.y + grid.tileH).toBeGreaterThanOrEqual(long.drawing.heightMm);
+		expect((grid.rows - 1) * grid.step.y + grid.tileH).toBeGreaterThanOrEqual(
+			long.drawing.heightMm
+		);
 		expect((grid.cols - 1) * grid.step.x + grid.tileW).toBeGreaterThanOrEqual(long.drawing.widthMm);
 		expect(grid.step.y).toBeLessThan(grid.tileH);
 		const doc = await PDFDocument.load(await templatePdf(long, { paper: 'a4' }));
@@ -88,7 +99,9 @@ describe('1:1 template PDF', () => {
 		// top and bottom of the circle, so the vertical extremes are the rosette's diameter.
 		const fills = c.split('Q').filter((b) => b.includes('0.9 0.88 0.85 rg'));
 		expect(fills.length).toBe(12);
-		const ys = fills.flatMap((b) => [...b.matchAll(/(-?[\d.]+) (-?[\d.]+) (?:m|l|c)\b/g)].map((m) => Number(m[2])));
+		const ys = fills.flatMap((b) =>
+			[...b.matchAll(/(-?[\d.]+) (-?[\d.]+) (?:m|l|c)\b/g)].map((m) => Number(m[2]))
+		);
 		const span = (Math.max(...ys) - Math.min(...ys)) * scale;
 		// 90 mm at 72 pt per inch and 25.4 mm per inch (ISO 32000-1 §8.3.2.3; 1959 inch) = 255.118 pt.
 		expect(span).toBeCloseTo((90 / 25.4) * 72, 2);

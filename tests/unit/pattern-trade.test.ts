@@ -7,14 +7,20 @@ import { readLetterFont } from '../../src/lib/server/letter-font-file';
 
 describe('trade practice', () => {
 	it('a 70 mm rosette is drawn with the compass at 35 mm (common practice)', () => {
-		const res = computePattern({ diameterMm: 70, count: 1, widthMm: 100, lengthMm: 120 }, { svg: false });
+		const res = computePattern(
+			{ diameterMm: 70, count: 1, widthMm: 100, lengthMm: 120 },
+			{ svg: false }
+		);
 		// Common practice: the compass is set to the radius, half the diameter.
 		expect(res.compassRadiusMm).toBe(35);
 		expect(res.steps.some((s) => s.includes('compass to 35 mm'))).toBe(true);
 	});
 
 	it('three rosettes spaced by the radius span 140 mm on the centre line (common practice)', () => {
-		const res = computePattern({ diameterMm: 70, count: 3, widthMm: 100, lengthMm: 300 }, { svg: false });
+		const res = computePattern(
+			{ diameterMm: 70, count: 3, widthMm: 100, lengthMm: 300 },
+			{ svg: false }
+		);
 		const [a, , c] = res.rosettes;
 		// Common practice: centres r apart, so the row spans 2r + 2·r = 4r = 140 mm.
 		expect(c.y + c.r - (a.y - a.r)).toBeCloseTo(140, 9);
@@ -22,7 +28,10 @@ describe('trade practice', () => {
 	});
 
 	it('the stepping starts on the centre line: two petal tips of each rosette lie on it (issue 4)', () => {
-		const res = computePattern({ diameterMm: 70, count: 2, widthMm: 100, lengthMm: 300 }, { svg: false });
+		const res = computePattern(
+			{ diameterMm: 70, count: 2, widthMm: 100, lengthMm: 300 },
+			{ svg: false }
+		);
 		// Tips on the centre line: every petal edge that ends at x = 50 away from a centre.
 		const tips = res.drawing.chips
 			.filter((k) => k.kind === 'petal')
@@ -49,7 +58,13 @@ describe('trade practice', () => {
 
 	it('counts the border triangles as chips', () => {
 		const res = computePattern(
-			{ diameterMm: 70, count: 1, widthMm: 100, lengthMm: 110, border: { edgeMm: 26, trianglesPerSquare: 1 } },
+			{
+				diameterMm: 70,
+				count: 1,
+				widthMm: 100,
+				lengthMm: 110,
+				border: { edgeMm: 26, trianglesPerSquare: 1 }
+			},
 			{ svg: false }
 		);
 		// 100 mm of edge between 5 mm start marks = 20 squares × 2 rows × 1 triangle, plus 12 rosette chips.
@@ -73,11 +88,17 @@ describe('trade practice', () => {
 
 describe('fit on the blank', () => {
 	it('warns when the rosette is wider than the blank less its margins', () => {
-		const res = computePattern({ diameterMm: 70, count: 1, widthMm: 75, lengthMm: 120 }, { svg: false });
+		const res = computePattern(
+			{ diameterMm: 70, count: 1, widthMm: 75, lengthMm: 120 },
+			{ svg: false }
+		);
 		expect(res.warnings.map((w) => w.code)).toContain('too-wide');
 	});
 	it('warns when the row runs off the ends, and when it runs into a curved top', () => {
-		const long = computePattern({ diameterMm: 70, count: 5, widthMm: 100, lengthMm: 150 }, { svg: false });
+		const long = computePattern(
+			{ diameterMm: 70, count: 5, widthMm: 100, lengthMm: 150 },
+			{ svg: false }
+		);
 		expect(long.warnings.map((w) => w.code)).toContain('too-long');
 		const top = computePattern(
 			{ diameterMm: 70, count: 1, widthMm: 90, lengthMm: 200, curvedTop: true, firstCentreMm: 30 },
@@ -86,7 +107,10 @@ describe('fit on the blank', () => {
 		expect(top.warnings.map((w) => w.code)).toContain('top-end');
 	});
 	it('is quiet when it fits', () => {
-		const ok = computePattern({ diameterMm: 70, count: 3, widthMm: 100, lengthMm: 300, curvedTop: true }, { svg: false });
+		const ok = computePattern(
+			{ diameterMm: 70, count: 3, widthMm: 100, lengthMm: 300, curvedTop: true },
+			{ svg: false }
+		);
 		expect(ok.warnings).toEqual([]);
 	});
 });
@@ -94,7 +118,10 @@ describe('fit on the blank', () => {
 describe('initials in the medallion', () => {
 	const font = readLetterFont();
 	it('centres the letters in the medallion and keeps them inside it with the margin', () => {
-		const res = computePattern({ diameterMm: 70, count: 3, initials: 'HMW', widthMm: 100, lengthMm: 300 }, { font });
+		const res = computePattern(
+			{ diameterMm: 70, count: 3, initials: 'HMW', widthMm: 100, lengthMm: 300 },
+			{ font }
+		);
 		const lt = res.drawing.lettering!;
 		expect(lt.letters.map((l) => l.char).join('')).toBe('HMW');
 		const nums = lt.letters.flatMap((l) => (l.d.match(/-?\d+(\.\d+)?/g) ?? []).map(Number));
@@ -105,7 +132,9 @@ describe('initials in the medallion', () => {
 		expect(Math.abs(cx - lt.medallion.x)).toBeLessThan(0.3);
 		expect(Math.abs(cy - lt.medallion.y)).toBeLessThan(0.3);
 		for (let i = 0; i < xs.length; i++) {
-			expect(Math.hypot(xs[i] - lt.medallion.x, ys[i] - lt.medallion.y)).toBeLessThanOrEqual(lt.medallion.r - 2 + 0.5);
+			expect(Math.hypot(xs[i] - lt.medallion.x, ys[i] - lt.medallion.y)).toBeLessThanOrEqual(
+				lt.medallion.r - 2 + 0.5
+			);
 		}
 		expect(res.svg).toContain(lt.letters[0].d);
 		expect(res.letterCount).toBe(3);
@@ -114,12 +143,20 @@ describe('initials in the medallion', () => {
 		const input = { diameterMm: 70, count: 1, widthMm: 100, lengthMm: 120 };
 		const one = computePattern({ ...input, initials: 'H' }, { font, svg: false });
 		const three = computePattern({ ...input, initials: 'HMW' }, { font, svg: false });
-		expect(one.drawing.lettering!.capHeightMm).toBeGreaterThan(three.drawing.lettering!.capHeightMm);
+		expect(one.drawing.lettering!.capHeightMm).toBeGreaterThan(
+			three.drawing.lettering!.capHeightMm
+		);
 	});
 	it('warns when letters come out too small to carve (thresholds: common practice)', () => {
-		const res = computePattern({ diameterMm: 30, count: 1, initials: 'WWW', widthMm: 60, lengthMm: 60 }, { font, svg: false });
+		const res = computePattern(
+			{ diameterMm: 30, count: 1, initials: 'WWW', widthMm: 60, lengthMm: 60 },
+			{ font, svg: false }
+		);
 		expect(res.warnings.map((w) => w.code)).toContain('letters-small');
-		const big = computePattern({ diameterMm: 120, count: 1, initials: 'AB', widthMm: 140, lengthMm: 140 }, { font, svg: false });
+		const big = computePattern(
+			{ diameterMm: 120, count: 1, initials: 'AB', widthMm: 140, lengthMm: 140 },
+			{ font, svg: false }
+		);
 		expect(big.warnings).toEqual([]);
 	});
 });

@@ -134,7 +134,14 @@ function buildGroups(curves: CurveSpec[]): Group[] {
 		groups.push({ kind: 'circle', c: k.c, spans, full, tags: k.tags, marks: [] });
 	}
 	for (const k of lines) {
-		groups.push({ kind: 'line', p: k.p, u: k.u, spans: unionSpans(k.raw), tags: k.tags, marks: [] });
+		groups.push({
+			kind: 'line',
+			p: k.p,
+			u: k.u,
+			spans: unionSpans(k.raw),
+			tags: k.tags,
+			marks: []
+		});
 	}
 	return groups;
 }
@@ -374,7 +381,13 @@ export function buildArrangement(curves: CurveSpec[]): Arrangement {
 		}
 		const edges = loop.map((hi) => {
 			const hh = halves[hi];
-			return edgeGeometry(groups[raw[hh.edge].group], raw[hh.edge], hh.dir, raw[hh.edge].group, verts);
+			return edgeGeometry(
+				groups[raw[hh.edge].group],
+				raw[hh.edge],
+				hh.dir,
+				raw[hh.edge].group,
+				verts
+			);
 		});
 		const area = edges.reduce((s, e) => s + edgeAreaTerm(e), 0);
 		if (area <= 1e-9) continue; // unbounded face of a connected part

@@ -28,7 +28,13 @@ export function blankOutline(b: Blank): string {
  * Rosette centres along the centre line, `spacing` apart. The first centre sits `firstCentreMm`
  * from the top end when given; otherwise the row is centred on the length.
  */
-export function placeRosettes(b: Blank, r: number, count: number, spacing: number, firstCentreMm?: number): Circle[] {
+export function placeRosettes(
+	b: Blank,
+	r: number,
+	count: number,
+	spacing: number,
+	firstCentreMm?: number
+): Circle[] {
 	const span = (count - 1) * spacing + 2 * r;
 	const first = firstCentreMm ?? (b.lengthMm - span) / 2 + r;
 	return Array.from({ length: count }, (_, i) => ({ x: b.widthMm / 2, y: first + i * spacing, r }));

@@ -73,16 +73,36 @@ export function layoutBorder(input: BorderInput, edgeLengthMm: number): BorderLa
 		});
 	}
 	if (startMm + columns * stepMm > edgeLengthMm + 1e-9) {
-		warnings.push({ code: 'border-too-long', message: 'The squares run past the end of the edge.' });
+		warnings.push({
+			code: 'border-too-long',
+			message: 'The squares run past the end of the edge.'
+		});
 	}
 	const gridStart = { x: startMm, y: centre - (rows * stepMm) / 2 };
 	const triangles: Point[][] = [];
 	for (let i = 0; i < columns; i++) {
 		for (let j = 0; j < rows; j++) {
-			triangles.push(...squareTriangles(gridStart.x + i * stepMm, gridStart.y + j * stepMm, stepMm, trianglesPerSquare));
+			triangles.push(
+				...squareTriangles(
+					gridStart.x + i * stepMm,
+					gridStart.y + j * stepMm,
+					stepMm,
+					trianglesPerSquare
+				)
+			);
 		}
 	}
-	return { edgeMm, lengthMm: edgeLengthMm, rules, columns, rows, gridStart, stepMm, triangles, warnings };
+	return {
+		edgeMm,
+		lengthMm: edgeLengthMm,
+		rules,
+		columns,
+		rows,
+		gridStart,
+		stepMm,
+		triangles,
+		warnings
+	};
 }
 
 function squareTriangles(x: number, y: number, s: number, per: 1 | 2 | 4): Point[][] {
@@ -91,9 +111,18 @@ function squareTriangles(x: number, y: number, s: number, per: 1 | 2 | 4): Point
 	const c = { x: x + s, y: y + s };
 	const d = { x, y: y + s };
 	if (per === 1) return [[a, c, d]];
-	if (per === 2) return [[a, b, c], [a, c, d]];
+	if (per === 2)
+		return [
+			[a, b, c],
+			[a, c, d]
+		];
 	const m = { x: x + s / 2, y: y + s / 2 };
-	return [[a, b, m], [b, c, m], [c, d, m], [d, a, m]];
+	return [
+		[a, b, m],
+		[b, c, m],
+		[c, d, m],
+		[d, a, m]
+	];
 }
 
 export function triangleArea([a, b, c]: Point[]): number {
@@ -101,7 +130,11 @@ export function triangleArea([a, b, c]: Point[]): number {
 }
 
 export function trianglePerimeter([a, b, c]: Point[]): number {
-	return Math.hypot(b.x - a.x, b.y - a.y) + Math.hypot(c.x - b.x, c.y - b.y) + Math.hypot(a.x - c.x, a.y - c.y);
+	return (
+		Math.hypot(b.x - a.x, b.y - a.y) +
+		Math.hypot(c.x - b.x, c.y - b.y) +
+		Math.hypot(a.x - c.x, a.y - c.y)
+	);
 }
 
 function fmtMm(n: number) {

@@ -38,6 +38,9 @@ export function estimateMinutes(
 	m: EffortModel = EFFORT_DEFAULTS
 ): number {
 	const h = hardnessFactor(sideHardnessN, m);
-	const chipSeconds = chips.reduce((s, c) => s + m.secondsPerChip + m.secondsPerMmCut * c.cutLengthMm, 0);
+	const chipSeconds = chips.reduce(
+		(s, c) => s + m.secondsPerChip + m.secondsPerMmCut * c.cutLengthMm,
+		0
+	);
 	return Math.round(m.setupMinutes + (chipSeconds * h) / 60 + letterCount * m.minutesPerLetter * h);
 }

@@ -6,7 +6,13 @@ import { woodBySlug, WOODS } from '../woods';
 import { type CurveSpec, type Face, type SegSpec, buildArrangement } from './arrangement';
 import { axisOf } from './split';
 import { blankOutline, fitWarnings, placeRosettes, type Blank } from './blank';
-import { BORDER_DEFAULTS, layoutBorder, triangleArea, trianglePerimeter, type BorderInput } from './borders';
+import {
+	BORDER_DEFAULTS,
+	layoutBorder,
+	triangleArea,
+	trianglePerimeter,
+	type BorderInput
+} from './borders';
 import { clipOutsideDisc } from './clip';
 import { EFFORT_DEFAULTS, estimateMinutes } from './effort';
 import { LETTERING_DEFAULTS, setInitials } from './lettering';
@@ -40,13 +46,24 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
 
 	const initials = (input.initials ?? '').trim();
 	const rules = { ...LETTERING_DEFAULTS, ...input.lettering };
-	const initialsOn = Math.min(Math.max(0, input.initialsOn ?? Math.floor((input.count - 1) / 2)), input.count - 1);
-	const lettering = initials ? setInitials(initials, circles[initialsOn], options.font, rules) : null;
+	const initialsOn = Math.min(
+		Math.max(0, input.initialsOn ?? Math.floor((input.count - 1) / 2)),
+		input.count - 1
+	);
+	const lettering = initials
+		? setInitials(initials, circles[initialsOn], options.font, rules)
+		: null;
 
 	let curves: CurveSpec[] = rosettes.flatMap((g, i) => rosetteCurves(g, i));
 	if (lettering) {
 		curves = clipOutsideDisc(curves, lettering.medallion);
-		curves.push({ kind: 'arc', c: lettering.medallion, from: 0, to: 2 * Math.PI, tag: 'medallion' });
+		curves.push({
+			kind: 'arc',
+			c: lettering.medallion,
+			from: 0,
+			to: 2 * Math.PI,
+			tag: 'medallion'
+		});
 	}
 	let arrangement = buildArrangement(curves);
 	if (split) {
@@ -78,17 +95,31 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
 		border = { ...layoutBorder(b, blank.lengthMm), x: blank.widthMm + STRIP_GAP, y: 0 };
 		for (const t of border.triangles) {
 			const pts = t.map((p) => ({ x: border!.x + p.y, y: border!.y + p.x }));
-			chips.push({ kind: 'triangle', areaMm2: triangleArea(t), cutLengthMm: trianglePerimeter(t), edges: [], centroid: pts[0] });
+			chips.push({
+				kind: 'triangle',
+				areaMm2: triangleArea(t),
+				cutLengthMm: trianglePerimeter(t),
+				edges: [],
+				centroid: pts[0]
+			});
 		}
 	}
 
-	const letterChips = (lettering?.letters ?? []).map((l) => ({ kind: 'letter' as ChipKind, areaMm2: l.areaMm2, cutLengthMm: l.outlineMm }));
+	const letterChips = (lettering?.letters ?? []).map((l) => ({
+		kind: 'letter' as ChipKind,
+		areaMm2: l.areaMm2,
+		cutLengthMm: l.outlineMm
+	}));
 	const counted = chips.map(({ kind, areaMm2, cutLengthMm }) => ({ kind, areaMm2, cutLengthMm }));
 	const allChips = [...counted, ...letterChips];
 	const effort = { ...EFFORT_DEFAULTS, ...input.effort };
 	const letterCount = initials.length;
 	const minutes = estimateMinutes(counted, letterCount, wood.sideHardnessN, effort);
-	const warnings = [...fitWarnings(blank, circles), ...(lettering?.warnings ?? []), ...(border?.warnings ?? [])];
+	const warnings = [
+		...fitWarnings(blank, circles),
+		...(lettering?.warnings ?? []),
+		...(border?.warnings ?? [])
+	];
 	const drawing: PatternResult['drawing'] = {
 		widthMm: border ? border.x + border.edgeMm : blank.widthMm,
 		heightMm: blank.lengthMm,
@@ -113,8 +144,20 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
 		drawing
 	};
 	result.steps = layoutSteps(input, result, wood.name);
-	if (options.svg !== false) result.svg = renderSvg(drawing, wood, options.idPrefix ?? 'rz');
+	if (options.svg !== false) {
+		const view = options.closeUpMm !== undefined ? closeUp(circles, options.closeUpMm) : undefined;
+		result.svg = renderSvg(drawing, wood, options.idPrefix ?? 'rz', options.padMm ?? 4, view);
+	}
 	return result;
+}
+
+/** The box round all the rosettes, `around` mm wider on every side. */
+function closeUp(circles: { x: number; y: number; r: number }[], around: number) {
+	const x0 = Math.min(...circles.map((c) => c.x - c.r)) - around;
+	const x1 = Math.max(...circles.map((c) => c.x + c.r)) + around;
+	const y0 = Math.min(...circles.map((c) => c.y - c.r)) - around;
+	const y1 = Math.max(...circles.map((c) => c.y + c.r)) + around;
+	return { x: x0, y: y0, w: x1 - x0, h: y1 - y0 };
 }
 
 /**
@@ -123,7 +166,12 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
  * of the place they sit in that rosette. Anything else (where rosettes at an odd spacing cut
  * each other's chips) is a 'part'.
  */
-function classify(face: Face, rosettes: RosetteGeometry[], split: boolean, medallionOn: number): ChipKind {
+function classify(
+	face: Face,
+	rosettes: RosetteGeometry[],
+	split: boolean,
+	medallionOn: number
+): ChipKind {
 	const arcs = face.sideKinds.filter((k) => k === 'arc').length;
 	const lines = face.sideKinds.length - arcs;
 	if (face.tags.has('medallion') && medallionOn >= 0) {
@@ -136,4 +184,3 @@ function classify(face: Face, rosettes: RosetteGeometry[], split: boolean, medal
 	if (lines === 1 && arcs === 2) return 'half-between';
 	return 'part';
 }
-

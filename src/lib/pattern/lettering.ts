@@ -44,7 +44,13 @@ export const LETTERING_DEFAULTS: LetteringRules = {
 	minStrokeMm: 1.2
 };
 
-export type LetterShape = { char: string; d: string; areaMm2: number; outlineMm: number; strokeMm: number };
+export type LetterShape = {
+	char: string;
+	d: string;
+	areaMm2: number;
+	outlineMm: number;
+	strokeMm: number;
+};
 
 export type Lettering = {
 	text: string;
@@ -126,7 +132,8 @@ function pathData(commands: PathCommand[], s: number, ox: number, oy: number): s
 	for (const c of commands) {
 		if (c.type === 'M' || c.type === 'L') d += `${c.type}${X(c.x)} ${Y(c.y)}`;
 		else if (c.type === 'Q') d += `Q${X(c.x1)} ${Y(c.y1)} ${X(c.x)} ${Y(c.y)}`;
-		else if (c.type === 'C') d += `C${X(c.x1)} ${Y(c.y1)} ${X(c.x2)} ${Y(c.y2)} ${X(c.x)} ${Y(c.y)}`;
+		else if (c.type === 'C')
+			d += `C${X(c.x1)} ${Y(c.y1)} ${X(c.x2)} ${Y(c.y2)} ${X(c.x)} ${Y(c.y)}`;
 		else d += 'Z';
 	}
 	return d;
@@ -149,15 +156,23 @@ export function setInitials(
 	let baseline: Point;
 
 	if (font) {
-		const glyphs = font.outline(text).map((g, i) => ({ char: text[i] ?? '', commands: g.commands, rings: flatten(g.commands) }));
-		let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+		const glyphs = font
+			.outline(text)
+			.map((g, i) => ({ char: text[i] ?? '', commands: g.commands, rings: flatten(g.commands) }));
+		let minX = Infinity,
+			minY = Infinity,
+			maxX = -Infinity,
+			maxY = -Infinity;
 		for (const g of glyphs)
 			for (const r of g.rings)
 				for (const p of r) {
-					minX = Math.min(minX, p.x); maxX = Math.max(maxX, p.x);
-					minY = Math.min(minY, p.y); maxY = Math.max(maxY, p.y);
+					minX = Math.min(minX, p.x);
+					maxX = Math.max(maxX, p.x);
+					minY = Math.min(minY, p.y);
+					maxY = Math.max(maxY, p.y);
 				}
-		if (!isFinite(minX)) return { text, medallion, capHeightMm: 0, letters: [], baseline: medallion, warnings };
+		if (!isFinite(minX))
+			return { text, medallion, capHeightMm: 0, letters: [], baseline: medallion, warnings };
 		const w = maxX - minX;
 		const h = maxY - minY;
 		// The ink box's corners touch the inner circle: the largest size that fits.
@@ -186,7 +201,9 @@ export function setInitials(
 		baseline = { x: medallion.x, y: medallion.y + capHeightMm / 2 };
 	}
 
-	const stroke = letters.length ? Math.min(...letters.map((l) => l.strokeMm)) : (capHeightMm / FALLBACK.capEm) * FALLBACK.strokeEm;
+	const stroke = letters.length
+		? Math.min(...letters.map((l) => l.strokeMm))
+		: (capHeightMm / FALLBACK.capEm) * FALLBACK.strokeEm;
 	if (capHeightMm < rules.minCapHeightMm) {
 		warnings.push({
 			code: 'letters-small',

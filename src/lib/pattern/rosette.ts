@@ -18,7 +18,7 @@ export function stepRound(c: Circle, start: Point): Point[] {
 		const hits = circleCircle(c, { x: last.x, y: last.y, r: c.r });
 		const a = angleOf(c, last);
 		// Take the hit reached by turning the positive way (clockwise on screen).
-		const ahead = (p: Point) => ((angleOf(c, p) - a) % TAU + TAU) % TAU;
+		const ahead = (p: Point) => (((angleOf(c, p) - a) % TAU) + TAU) % TAU;
 		hits.sort((p, q) => ahead(p) - ahead(q));
 		marks.push(hits[0]);
 	}
@@ -36,7 +36,9 @@ export type RosetteGeometry = {
 export function rosetteAt(x: number, y: number, r: number): RosetteGeometry {
 	const circle = { x, y, r };
 	const marks = stepRound(circle, { x, y: y - r }).slice(0, 6);
-	const midEdges = marks.map((_, k) => onCircle(circle, -Math.PI / 2 + Math.PI / 6 + (k * Math.PI) / 3));
+	const midEdges = marks.map((_, k) =>
+		onCircle(circle, -Math.PI / 2 + Math.PI / 6 + (k * Math.PI) / 3)
+	);
 	return { circle, marks, midEdges };
 }
 

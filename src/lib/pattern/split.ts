@@ -47,11 +47,16 @@ function runMiddle(run: Edge[]): Point {
 	return { x: (first.from.x + last.to.x) / 2, y: (first.from.y + last.to.y) / 2 };
 }
 
-export function axisOf(face: Face, medallion: Circle | null, home: RosetteGeometry | null): SegSpec | null {
+export function axisOf(
+	face: Face,
+	medallion: Circle | null,
+	home: RosetteGeometry | null
+): SegSpec | null {
 	if (medallion && home && face.tags.has('medallion')) return medallionAxis(face, medallion, home);
 	const sides = runs(face.edges);
 	if (sides.some((s) => s[0].kind !== 'arc')) return null;
-	if (sides.length === 2) return { kind: 'seg', a: sides[0][0].from, b: sides[1][0].from, tag: 'axis' };
+	if (sides.length === 2)
+		return { kind: 'seg', a: sides[0][0].from, b: sides[1][0].from, tag: 'axis' };
 	if (sides.length === 3) {
 		// The pointed corner: where the boundary turns right back on itself.
 		let best = 0;
@@ -78,7 +83,9 @@ function medallionAxis(face: Face, m: Circle, g: RosetteGeometry): SegSpec | nul
 	let best: Point | null = null;
 	let bestGap = Infinity;
 	for (const p of targets) {
-		const gap = Math.abs(Math.atan2(Math.sin(angleOf(g.circle, p) - a), Math.cos(angleOf(g.circle, p) - a)));
+		const gap = Math.abs(
+			Math.atan2(Math.sin(angleOf(g.circle, p) - a), Math.cos(angleOf(g.circle, p) - a))
+		);
 		if (gap < bestGap) {
 			bestGap = gap;
 			best = p;

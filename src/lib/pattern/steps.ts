@@ -21,16 +21,24 @@ export function layoutSteps(input: PatternInput, res: PatternResult, woodName: s
 			`Mark the first centre on the centre line, ${mm(first.y)} from the top end, then ${n - 1} more, each ${mm(spacing)} further down (the last ${mm(res.rosettes[n - 1].y)} from the top end).`
 		);
 	}
-	steps.push(`Set the compass to ${mm(r)} — the radius of the ${mm(2 * r)} rosette — and draw ${n === 1 ? 'the circle' : `a circle round each centre`}.`);
+	steps.push(
+		`Set the compass to ${mm(r)} — the radius of the ${mm(2 * r)} rosette — and draw ${n === 1 ? 'the circle' : `a circle round each centre`}.`
+	);
 	steps.push(
 		`On each circle put the compass point where the circle crosses the centre line and step round: six marks, the sixth lands back on the first.`
 	);
-	steps.push(`From each mark draw an arc of the same radius from edge to edge through the centre: six petals and six chips between them.`);
+	steps.push(
+		`From each mark draw an arc of the same radius from edge to edge through the centre: six petals and six chips between them.`
+	);
 	if (n > 1 && Math.abs(spacing - r) < 1e-6) {
-		steps.push(`Where the circles overlap, the arcs fall on each other's lines: draw each line once.`);
+		steps.push(
+			`Where the circles overlap, the arcs fall on each other's lines: draw each line once.`
+		);
 	}
 	if (input.split) {
-		steps.push(`Halve every chip along its middle: rule a line from each centre to every mark and to the middle of every outer edge.`);
+		steps.push(
+			`Halve every chip along its middle: rule a line from each centre to every mark and to the middle of every outer edge.`
+		);
 	}
 	const lt = res.drawing.lettering;
 	if (lt) {
@@ -52,7 +60,9 @@ export function layoutSteps(input: PatternInput, res: PatternResult, woodName: s
 			);
 		}
 	}
-	const letters = res.letterCount ? ` and ${res.letterCount} letter${res.letterCount > 1 ? 's' : ''}` : '';
+	const letters = res.letterCount
+		? ` and ${res.letterCount} letter${res.letterCount > 1 ? 's' : ''}`
+		: '';
 	steps.push(
 		`Carve ${res.chipCount} chips${letters}: about ${res.estimateMinutes} minutes in ${woodName.toLowerCase()}. Cut away from the hand holding the work and keep the blade keen.`
 	);

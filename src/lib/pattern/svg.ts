@@ -69,14 +69,16 @@ function grain(w: number, l: number, color: string, clip: string): string {
 	return `<path d="${lines.join('')}" fill="none" stroke="${color}" stroke-width="0.35" opacity="0.35" clip-path="url(#${clip})"/>`;
 }
 
-export function renderSvg(d: Drawing, tones: Tones, id = 'rz'): string {
+export type ViewBox = { x: number; y: number; w: number; h: number };
+
+export function renderSvg(d: Drawing, tones: Tones, id = 'rz', pad = 4, view?: ViewBox): string {
 	const { blank } = d;
-	const pad = 4;
+	const vb = view ?? { x: -pad, y: -pad, w: d.widthMm + 2 * pad, h: d.heightMm + 2 * pad };
 	const surface = tones.toneLight;
 	const ink = mix(tones.toneDark, '#2e2118', 0.55);
 	const parts: string[] = [];
 	parts.push(
-		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${fmt(-pad)} ${fmt(-pad)} ${fmt(d.widthMm + 2 * pad)} ${fmt(d.heightMm + 2 * pad)}" role="img" aria-labelledby="${id}-t">`,
+		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${fmt(vb.x)} ${fmt(vb.y)} ${fmt(vb.w)} ${fmt(vb.h)}" role="img" aria-labelledby="${id}-t">`,
 		`<title id="${id}-t">${esc(`Carving layout on ${tones.name.toLowerCase()}: ${d.chips.length} chips${d.lettering ? `, initials ${d.lettering.text}` : ''}`)}</title>`,
 		`<defs><linearGradient id="${id}-w" x1="0" y1="0" x2="1" y2="1"><stop offset="0" stop-color="${surface}"/><stop offset="1" stop-color="${mix(surface, tones.toneDark, 0.28)}"/></linearGradient>`,
 		`<clipPath id="${id}-c"><path d="${blank.outline}"/></clipPath></defs>`,
@@ -88,23 +90,32 @@ export function renderSvg(d: Drawing, tones: Tones, id = 'rz'): string {
 		`<path d="M${fmt(d.centreLineX)} 0V${fmt(blank.lengthMm)}" stroke="${ink}" stroke-width="0.8" stroke-dasharray="6 4" opacity="0.45" vector-effect="non-scaling-stroke" clip-path="url(#${id}-c)"/>`
 	);
 	for (const c of d.chips) {
-		if (c.edges.length) parts.push(`<g>${c.edges.map((e) => wall(e, c.centroid, tones)).join('')}</g>`);
+		if (c.edges.length)
+			parts.push(`<g>${c.edges.map((e) => wall(e, c.centroid, tones)).join('')}</g>`);
 	}
-	parts.push(`<path d="${d.lines}" fill="none" stroke="${ink}" stroke-width="0.9" stroke-linecap="round" vector-effect="non-scaling-stroke"/>`);
+	parts.push(
+		`<path d="${d.lines}" fill="none" stroke="${ink}" stroke-width="0.9" stroke-linecap="round" vector-effect="non-scaling-stroke"/>`
+	);
 	const lt = d.lettering;
 	if (lt) {
 		const m = lt.medallion;
-		parts.push(`<circle cx="${fmt(m.x)}" cy="${fmt(m.y)}" r="${fmt(m.r)}" fill="${surface}" stroke="${ink}" stroke-width="1" vector-effect="non-scaling-stroke"/>`);
+		parts.push(
+			`<circle cx="${fmt(m.x)}" cy="${fmt(m.y)}" r="${fmt(m.r)}" fill="${surface}" stroke="${ink}" stroke-width="1" vector-effect="non-scaling-stroke"/>`
+		);
 		if (lt.letters.length) {
-			const fill = mix(tones.toneDark, '#2e2118', 0.3);
-			parts.push(`<path d="${lt.letters.map((l) => l.d).join('')}" fill="${fill}" stroke="${ink}" stroke-width="0.6" vector-effect="non-scaling-stroke"/>`);
+			const fill = mix(tones.toneDark, '#2e2118', 0.55);
+			parts.push(
+				`<path d="${lt.letters.map((l) => l.d).join('')}" fill="${fill}" stroke="${ink}" stroke-width="0.6" vector-effect="non-scaling-stroke"/>`
+			);
 		} else {
 			parts.push(
-				`<text x="${fmt(lt.baseline.x)}" y="${fmt(lt.baseline.y)}" text-anchor="middle" font-family="Nunito, sans-serif" font-weight="800" font-size="${fmt(lt.capHeightMm / 0.705)}" fill="${mix(tones.toneDark, '#2e2118', 0.3)}">${esc(lt.text)}</text>`
+				`<text x="${fmt(lt.baseline.x)}" y="${fmt(lt.baseline.y)}" text-anchor="middle" font-family="Nunito, sans-serif" font-weight="800" font-size="${fmt(lt.capHeightMm / 0.705)}" fill="${mix(tones.toneDark, '#2e2118', 0.55)}">${esc(lt.text)}</text>`
 			);
 		}
 	}
-	parts.push(`<path d="${blank.outline}" fill="none" stroke="${ink}" stroke-width="1.4" vector-effect="non-scaling-stroke"/>`);
+	parts.push(
+		`<path d="${blank.outline}" fill="none" stroke="${ink}" stroke-width="1.4" vector-effect="non-scaling-stroke"/>`
+	);
 	const b = d.border;
 	if (b) {
 		const at = (p: Point) => ({ x: b.x + p.y, y: b.y + p.x });
@@ -112,8 +123,12 @@ export function renderSvg(d: Drawing, tones: Tones, id = 'rz'): string {
 			`<rect x="${fmt(b.x)}" y="${fmt(b.y)}" width="${fmt(b.edgeMm)}" height="${fmt(b.lengthMm)}" fill="${surface}" stroke="${ink}" stroke-width="1.2" vector-effect="non-scaling-stroke"/>`
 		);
 		for (const t of b.triangles) parts.push(triangleWalls(t.map(at), tones));
-		const rules = b.rules.map((v) => `M${fmt(b.x + v)} ${fmt(b.y)}V${fmt(b.y + b.lengthMm)}`).join('');
-		parts.push(`<path d="${rules}" stroke="${ink}" stroke-width="0.6" opacity="0.6" vector-effect="non-scaling-stroke"/>`);
+		const rules = b.rules
+			.map((v) => `M${fmt(b.x + v)} ${fmt(b.y)}V${fmt(b.y + b.lengthMm)}`)
+			.join('');
+		parts.push(
+			`<path d="${rules}" stroke="${ink}" stroke-width="0.6" opacity="0.6" vector-effect="non-scaling-stroke"/>`
+		);
 	}
 	parts.push('</svg>');
 	return parts.join('');

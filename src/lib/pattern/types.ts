@@ -37,11 +37,16 @@ export type PatternOptions = {
 	font?: GlyphSource | null;
 	/** Prefix for SVG ids, so several drawings can share a page. */
 	idPrefix?: string;
+	/** Blank paper round the drawing in the SVG, mm; default 4. */
+	padMm?: number;
+	/** Show only the rosettes, `closeUpMm` of wood round them (a close-up of the carving). */
+	closeUpMm?: number;
 	/** Leave out the SVG string (the PDF and the API's light callers do not need it). */
 	svg?: boolean;
 };
 
-export type ChipKind = 'petal' | 'between' | 'half-petal' | 'half-between' | 'part' | 'triangle' | 'letter';
+export type ChipKind =
+	'petal' | 'between' | 'half-petal' | 'half-between' | 'part' | 'triangle' | 'letter';
 
 export type Chip = { kind: ChipKind; areaMm2: number; cutLengthMm: number };
 

@@ -12,11 +12,14 @@ const mm = (label: string, min: number, max: number) =>
 	z.coerce
 		.number({
 			error: (iss) =>
-				iss.input === undefined ? `${label} is required (mm).` : `${label} must be a number of millimetres.`
+				iss.input === undefined
+					? `${label} is required (mm).`
+					: `${label} must be a number of millimetres.`
 		})
 		.min(min, `${label} must be at least ${min} mm.`)
 		.max(max, `${label} must be at most ${max} mm.`);
-const mmField = (label: string, min: number, max: number) => z.preprocess(blankToUndefined, mm(label, min, max));
+const mmField = (label: string, min: number, max: number) =>
+	z.preprocess(blankToUndefined, mm(label, min, max));
 const mmOptional = (label: string, min: number, max: number) =>
 	z.preprocess(blankToUndefined, mm(label, min, max).optional());
 
@@ -41,12 +44,19 @@ export const woodSlugSchema = z
 
 export const ROSETTE_STYLES = {
 	classic: { split: false, label: 'Classic', hint: 'Six petals, twelve chips a rosette' },
-	split: { split: true, label: 'Split petals', hint: 'Every chip halved: twenty-four smaller chips' }
+	split: {
+		split: true,
+		label: 'Split petals',
+		hint: 'Every chip halved: twenty-four smaller chips'
+	}
 } as const;
 export type RosetteStyle = keyof typeof ROSETTE_STYLES;
-export const styleSchema = z.enum(Object.keys(ROSETTE_STYLES) as [RosetteStyle, ...RosetteStyle[]], {
-	error: 'Choose a rosette style.'
-});
+export const styleSchema = z.enum(
+	Object.keys(ROSETTE_STYLES) as [RosetteStyle, ...RosetteStyle[]],
+	{
+		error: 'Choose a rosette style.'
+	}
+);
 
 /** What a buyer chooses for a personalised piece. */
 export const personalisationSchema = z.object({
@@ -78,7 +88,11 @@ export const patternQuerySchema = z
 	})
 	.superRefine((v, ctx) => {
 		if (v.spacing !== undefined && v.spacing < v.diameter / 10) {
-			ctx.addIssue({ code: 'custom', path: ['spacing'], message: 'Spacing must be at least a tenth of the diameter.' });
+			ctx.addIssue({
+				code: 'custom',
+				path: ['spacing'],
+				message: 'Spacing must be at least a tenth of the diameter.'
+			});
 		}
 	});
 export type PatternQuery = z.infer<typeof patternQuerySchema>;
@@ -95,7 +109,10 @@ export const plannerSchema = patternQuerySchema.safeExtend({
 		blankToUndefined,
 		z
 			.string()
-			.regex(/^\s*\d+(\.\d+)?(\s*[, ]\s*\d+(\.\d+)?){0,5}\s*$/, 'List up to six offsets in mm, e.g. 5, 2, 1.5.')
+			.regex(
+				/^\s*\d+(\.\d+)?(\s*[, ]\s*\d+(\.\d+)?){0,5}\s*$/,
+				'List up to six offsets in mm, e.g. 5, 2, 1.5.'
+			)
 			.transform((s) => s.split(/[ ,]+/).filter(Boolean).map(Number))
 			.optional()
 	),
@@ -103,9 +120,15 @@ export const plannerSchema = patternQuerySchema.safeExtend({
 	start: mmOptional('Start mark', 0, 500),
 	triangles: z.preprocess(
 		blankToUndefined,
-		z.enum(['1', '2', '4'], { error: 'Choose 1, 2 or 4 triangles a square.' }).transform(Number).optional()
+		z
+			.enum(['1', '2', '4'], { error: 'Choose 1, 2 or 4 triangles a square.' })
+			.transform(Number)
+			.optional()
 	),
-	paper: z.preprocess(blankToUndefined, z.enum(['a4', 'letter'], { error: 'Choose A4 or US Letter.' }).default('a4'))
+	paper: z.preprocess(
+		blankToUndefined,
+		z.enum(['a4', 'letter'], { error: 'Choose A4 or US Letter.' }).default('a4')
+	)
 });
 export type PlannerQuery = z.infer<typeof plannerSchema>;
 
@@ -140,6 +163,7 @@ export function patternInputFrom(q: PatternQuery | PlannerQuery) {
 /** zod issues → { field: [messages] }. */
 export function patternFieldErrors(error: z.ZodError): Record<string, string[]> {
 	const out: Record<string, string[]> = {};
-	for (const issue of error.issues) (out[String(issue.path[0] ?? 'form')] ??= []).push(issue.message);
+	for (const issue of error.issues)
+		(out[String(issue.path[0] ?? 'form')] ??= []).push(issue.message);
 	return out;
 }

@@ -7,12 +7,18 @@ export type PatternApiResponse =
 	| { status: 200; body: Record<string, unknown> }
 	| { status: 400; body: { error: string; fields: Record<string, string[]> } };
 
-export function patternResponse(params: URLSearchParams, font: GlyphSource | null): PatternApiResponse {
+export function patternResponse(
+	params: URLSearchParams,
+	font: GlyphSource | null
+): PatternApiResponse {
 	const parsed = patternQuerySchema.safeParse(Object.fromEntries(params));
 	if (!parsed.success) {
 		return {
 			status: 400,
-			body: { error: 'Some of the pattern settings are not usable.', fields: patternFieldErrors(parsed.error) }
+			body: {
+				error: 'Some of the pattern settings are not usable.',
+				fields: patternFieldErrors(parsed.error)
+			}
 		};
 	}
 	const res = computePattern(patternInputFrom(parsed.data), { font, idPrefix: 'api' });

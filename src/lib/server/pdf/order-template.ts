@@ -42,5 +42,9 @@ export async function orderLineTemplatePdf(input: OrderLineTemplateInput): Promi
 		},
 		{ font: input.font ?? letterFont(), svg: false }
 	);
-	return templatePdf(result, { paper: input.paper ?? 'a4', orderRef: input.orderRef, title: input.lineTitle });
+	return templatePdf(result, {
+		paper: input.paper ?? 'a4',
+		orderRef: input.orderRef,
+		title: input.lineTitle
+	});
 }

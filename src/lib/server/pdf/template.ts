@@ -66,7 +66,13 @@ function wrap(text: string, font: PDFFont, size: number, widthPt: number): strin
 	return lines;
 }
 
-export type TileGrid = { cols: number; rows: number; tileW: number; tileH: number; step: { x: number; y: number } };
+export type TileGrid = {
+	cols: number;
+	rows: number;
+	tileW: number;
+	tileH: number;
+	step: { x: number; y: number };
+};
 
 /** How the drawing splits into page-sized windows (mm). */
 export function tileGrid(widthMm: number, heightMm: number, paper: Paper): TileGrid {
@@ -88,12 +94,19 @@ function tileName(row: number, col: number) {
 	return `${String.fromCharCode(65 + (row % 26))}${col + 1}`;
 }
 
-export async function templatePdf(result: PatternResult, opts: TemplateOptions): Promise<Uint8Array> {
+export async function templatePdf(
+	result: PatternResult,
+	opts: TemplateOptions
+): Promise<Uint8Array> {
 	const page = PAPER_MM[opts.paper];
 	const pageW = page.w * k;
 	const pageH = page.h * k;
 	const doc = await PDFDocument.create();
-	doc.setTitle(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}${opts.orderRef ? ` — ${opts.orderRef}` : ''}`));
+	doc.setTitle(
+		ansi(
+			`Carving layout${opts.title ? ` — ${opts.title}` : ''}${opts.orderRef ? ` — ${opts.orderRef}` : ''}`
+		)
+	);
 	doc.setCreator('Chipstall');
 	doc.setProducer('Chipstall');
 	const font = await doc.embedFont(StandardFonts.Helvetica);
@@ -110,16 +123,26 @@ export async function templatePdf(result: PatternResult, opts: TemplateOptions):
 			const y0 = row * grid.step.y;
 			const title = [
 				`Tile ${tileName(row, col)}`,
-				grid.rows * grid.cols > 1 ? `row ${row + 1} of ${grid.rows}, column ${col + 1} of ${grid.cols}` : 'whole layout',
+				grid.rows * grid.cols > 1
+					? `row ${row + 1} of ${grid.rows}, column ${col + 1} of ${grid.cols}`
+					: 'whole layout',
 				opts.orderRef ? `order ${opts.orderRef}` : '',
 				'print at actual size / 100 %'
 			]
 				.filter(Boolean)
 				.join('  ·  ');
-			p.drawText(ansi(title), { x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 5) * k, size: 8.5, font: bold, color: INK });
+			p.drawText(ansi(title), {
+				x: MARGIN_MM * k,
+				y: pageH - (MARGIN_MM + 5) * k,
+				size: 8.5,
+				font: bold,
+				color: INK
+			});
 			if (grid.rows * grid.cols > 1) {
 				p.drawText(
-					ansi(`Tiles overlap by ${OVERLAP_MM} mm: lay the round marks of neighbouring tiles over each other, then tape.`),
+					ansi(
+						`Tiles overlap by ${OVERLAP_MM} mm: lay the round marks of neighbouring tiles over each other, then tape.`
+					),
 					{ x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 8.5) * k, size: 7, font, color: SOFT }
 				);
 			}
@@ -129,27 +152,49 @@ export async function templatePdf(result: PatternResult, opts: TemplateOptions):
 	return doc.save();
 }
 
-function infoPage(p: PDFPage, r: PatternResult, opts: TemplateOptions, grid: TileGrid, font: PDFFont, bold: PDFFont) {
+function infoPage(
+	p: PDFPage,
+	r: PatternResult,
+	opts: TemplateOptions,
+	grid: TileGrid,
+	font: PDFFont,
+	bold: PDFFont
+) {
 	const pageW = p.getWidth();
 	const pageH = p.getHeight();
 	const left = MARGIN_MM * k;
 	const width = pageW - 2 * left;
 	let y = pageH - MARGIN_MM * k - 14;
-	p.drawText(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}`), { x: left, y, size: 16, font: bold, color: INK });
+	p.drawText(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}`), {
+		x: left,
+		y,
+		size: 16,
+		font: bold,
+		color: INK
+	});
 	y -= 18;
 	if (opts.orderRef) {
 		p.drawText(ansi(`Order ${opts.orderRef}`), { x: left, y, size: 11, font: bold, color: INK });
 		y -= 16;
 	}
-	p.drawText('Print at actual size / 100 %. Turn off "fit to page" and any scaling.', { x: left, y, size: 11, font: bold, color: INK });
-	y -= 14;
-	p.drawText(`Then measure the square: it must be ${CALIBRATION_MM} mm on each side, or the layout is not true to size.`, {
+	p.drawText('Print at actual size / 100 %. Turn off "fit to page" and any scaling.', {
 		x: left,
 		y,
-		size: 9,
-		font,
-		color: SOFT
+		size: 11,
+		font: bold,
+		color: INK
 	});
+	y -= 14;
+	p.drawText(
+		`Then measure the square: it must be ${CALIBRATION_MM} mm on each side, or the layout is not true to size.`,
+		{
+			x: left,
+			y,
+			size: 9,
+			font,
+			color: SOFT
+		}
+	);
 	y -= 10;
 	// The calibration square, exactly 50 mm.
 	const sq = CALIBRATION_MM * k;
@@ -162,7 +207,13 @@ function infoPage(p: PDFPage, r: PatternResult, opts: TemplateOptions, grid: Til
 		strokeOp(),
 		popGraphicsState()
 	);
-	p.drawText(`${CALIBRATION_MM} mm`, { x: left + sq / 2 - 12, y: y - sq / 2 - 3, size: 9, font, color: INK });
+	p.drawText(`${CALIBRATION_MM} mm`, {
+		x: left + sq / 2 - 12,
+		y: y - sq / 2 - 3,
+		size: 9,
+		font,
+		color: INK
+	});
 	const facts = [
 		`Compass radius ${fmt(r.compassRadiusMm, 1)} mm, ${r.rosettes.length} rosette${r.rosettes.length > 1 ? 's' : ''}`,
 		`${r.chipCount} chips${r.letterCount ? ` and ${r.letterCount} letter${r.letterCount > 1 ? 's' : ''}` : ''}`,
@@ -184,7 +235,10 @@ function infoPage(p: PDFPage, r: PatternResult, opts: TemplateOptions, grid: Til
 	const lines = [
 		...r.steps.map((s, i) => ({ text: `${i + 1}. ${s}`, bold: false })),
 		...r.warnings.map((w) => ({ text: `Check: ${w.message}`, bold: true })),
-		{ text: 'Knives cut: carve away from the hand holding the work. Some wood dust irritates skin and airways.', bold: false }
+		{
+			text: 'Knives cut: carve away from the hand holding the work. Some wood dust irritates skin and airways.',
+			bold: false
+		}
 	];
 	for (const l of lines) {
 		for (const part of wrap(l.text, l.bold ? bold : font, 9.5, width)) {
@@ -196,7 +250,14 @@ function infoPage(p: PDFPage, r: PatternResult, opts: TemplateOptions, grid: Til
 	}
 }
 
-function drawTile(p: PDFPage, r: PatternResult, grid: TileGrid, x0: number, y0: number, pageH: number) {
+function drawTile(
+	p: PDFPage,
+	r: PatternResult,
+	grid: TileGrid,
+	x0: number,
+	y0: number,
+	pageH: number
+) {
 	const d = r.drawing;
 	const left = MARGIN_MM;
 	const top = MARGIN_MM + HEADER_MM;
@@ -208,23 +269,39 @@ function drawTile(p: PDFPage, r: PatternResult, grid: TileGrid, x0: number, y0: 
 		endPath()
 	);
 	const stroke = (path: string, width: number, color = INK, dash?: number[]) => {
-		if (path) p.drawSvgPath(path, { ...at, borderColor: color, borderWidth: width / k, borderDashArray: dash?.map((v) => v / k) });
+		if (path)
+			p.drawSvgPath(path, {
+				...at,
+				borderColor: color,
+				borderWidth: width / k,
+				borderDashArray: dash?.map((v) => v / k)
+			});
 	};
-	for (const c of d.chips) if (c.edges.length) p.drawSvgPath(facePath(c.edges), { ...at, color: CHIP_FILL });
+	for (const c of d.chips)
+		if (c.edges.length) p.drawSvgPath(facePath(c.edges), { ...at, color: CHIP_FILL });
 	stroke(d.blank.outline, 0.8);
 	stroke(`M${fmt(d.centreLineX)} 0V${fmt(d.blank.lengthMm)}`, 0.4, SOFT, [4, 2.5]);
 	stroke(d.lines, 0.45);
-	const marks = r.rosettes.map((c) => `M${fmt(c.x - 2.5)} ${fmt(c.y)}h5M${fmt(c.x)} ${fmt(c.y - 2.5)}v5`).join('');
+	const marks = r.rosettes
+		.map((c) => `M${fmt(c.x - 2.5)} ${fmt(c.y)}h5M${fmt(c.x)} ${fmt(c.y - 2.5)}v5`)
+		.join('');
 	stroke(marks, 0.4);
 	if (d.lettering) {
 		const m = d.lettering.medallion;
-		stroke(`M${fmt(m.x - m.r)} ${fmt(m.y)}a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(2 * m.r)} 0a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(-2 * m.r)} 0`, 0.5);
+		stroke(
+			`M${fmt(m.x - m.r)} ${fmt(m.y)}a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(2 * m.r)} 0a${fmt(m.r)} ${fmt(m.r)} 0 1 0 ${fmt(-2 * m.r)} 0`,
+			0.5
+		);
 		stroke(d.lettering.letters.map((l) => l.d).join(''), 0.45);
 	}
 	if (d.border) {
 		const b = d.border;
 		stroke(`M${fmt(b.x)} ${fmt(b.y)}h${fmt(b.edgeMm)}v${fmt(b.lengthMm)}h${fmt(-b.edgeMm)}Z`, 0.8);
-		stroke(b.rules.map((v) => `M${fmt(b.x + v)} ${fmt(b.y)}V${fmt(b.y + b.lengthMm)}`).join(''), 0.35, SOFT);
+		stroke(
+			b.rules.map((v) => `M${fmt(b.x + v)} ${fmt(b.y)}V${fmt(b.y + b.lengthMm)}`).join(''),
+			0.35,
+			SOFT
+		);
 		const tri = b.triangles
 			.map((t) => `M${t.map((q) => `${fmt(b.x + q.y)} ${fmt(b.y + q.x)}`).join('L')}Z`)
 			.join('');
