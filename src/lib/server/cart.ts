@@ -1,7 +1,7 @@
 import type { Cookies } from '@sveltejs/kit';
-import { and, eq, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from './db';
-import { cartLines, carts, pieces, pieceWoods, woods, type Personalisation } from './db/schema';
+import { cartLines, carts, photos, pieces, pieceWoods, woods, type Personalisation } from './db/schema';
 import { priceCart, stockOnHand } from './pricing';
 import { personalise, previewSvg } from './personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
@@ -186,6 +186,15 @@ export async function cartSummary(cartId: string | null, country?: string) {
 	}
 	destination ??= HOME_COUNTRY;
 	const priced = cartId ? await priceCart(cartId, destination) : await priceCart('', destination);
+	const pieceIds = [...new Set(priced.lines.map((l) => l.pieceId))];
+	const firstPhotos = pieceIds.length
+		? await db
+				.select({ pieceId: photos.pieceId, storageKey: photos.storageKey, position: photos.position })
+				.from(photos)
+				.where(inArray(photos.pieceId, pieceIds))
+				.orderBy(asc(photos.position))
+		: [];
+	const photoOf = (pieceId: number) => firstPhotos.find((p) => p.pieceId === pieceId)?.storageKey ?? null;
 	return {
 		country: destination,
 		zone: priced.zone,
@@ -203,6 +212,7 @@ export async function cartSummary(cartId: string | null, country?: string) {
 			id: l.id,
 			slug: l.slug,
 			title: l.title,
+			photoKey: photoOf(l.pieceId),
 			wood: { slug: l.woodSlug, name: l.woodName, toneLight: l.toneLight, toneDark: l.toneDark },
 			quantity: l.quantity,
 			unitMinor: l.unitMinor,

@@ -70,3 +70,14 @@ export async function expireCheckoutSession(sessionId: string) {
 		// Already completed or expired, or the stand-in lacks the call: the hold is released anyway.
 	}
 }
+
+/** The card error from the last attempt on a session, if there was one (e.g. a decline). */
+export async function lastPaymentError(sessionId: string): Promise<string | null> {
+	try {
+		const s = await stripe().checkout.sessions.retrieve(sessionId, { expand: ['payment_intent'] });
+		const pi = s.payment_intent;
+		return pi && typeof pi !== 'string' ? (pi.last_payment_error?.message ?? null) : null;
+	} catch {
+		return null;
+	}
+}

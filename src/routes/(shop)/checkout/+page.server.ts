@@ -1,0 +1,59 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { cartIdFrom, cartSummary } from '$lib/server/cart';
+import { createCheckoutSession } from '$lib/server/checkout';
+import { attachCheckoutSession, createPendingOrder, OrderError, releaseExpiredHolds, releaseOrder } from '$lib/server/orders';
+import { checkoutSchema } from '$lib/schemas/checkout';
+import { fieldErrors } from '$lib/schemas/cart';
+import { COUNTRIES } from '$lib/shipping';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ cookies, locals }) => {
+	const summary = await cartSummary(cartIdFrom(cookies));
+	if (summary.lines.length === 0) redirect(303, '/cart');
+	return {
+		summary,
+		countries: COUNTRIES,
+		buyer: { name: locals.user?.name ?? '', email: locals.user?.email ?? '' }
+	};
+};
+
+export const actions: Actions = {
+	default: async ({ request, cookies, locals, url }) => {
+		const raw = Object.fromEntries(await request.formData());
+		const values = Object.fromEntries(
+			Object.entries(raw).filter(([k]) => k !== 'seenTotal').map(([k, v]) => [k, String(v)])
+		);
+		const parsed = checkoutSchema.safeParse(raw);
+		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
+
+		const cartId = cartIdFrom(cookies);
+		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });
+
+		// Pieces held by checkouts that were never finished go back on the shelf first.
+		await releaseExpiredHolds();
+		let order;
+		try {
+			order = await createPendingOrder(cartId, parsed.data, locals.user?.id ?? null);
+		} catch (err) {
+			if (err instanceof OrderError) return fail(err.status, { errors: { form: [err.message] }, values, code: err.code });
+			throw err;
+		}
+
+		let session;
+		try {
+			session = await createCheckoutSession(order, parsed.data.email, url.origin);
+		} catch {
+			await releaseOrder(order.id);
+			return fail(503, {
+				errors: { form: ['The payment service did not answer. Nothing was charged; please try again in a minute.'] },
+				values
+			});
+		}
+		await attachCheckoutSession(order.id, session.id);
+		if (!session.url) {
+			await releaseOrder(order.id);
+			return fail(503, { errors: { form: ['The payment page could not be opened. Nothing was charged.'] }, values });
+		}
+		redirect(303, session.url);
+	}
+};

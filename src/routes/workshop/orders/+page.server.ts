@@ -1,0 +1,8 @@
+import { requireRole } from '$lib/server/auth/guard';
+import { workshopOrders } from '$lib/server/orders';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	requireRole(event, 'owner', 'helper');
+	return { orders: await workshopOrders() };
+};
