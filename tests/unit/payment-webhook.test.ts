@@ -1,0 +1,131 @@
+/**
+ * The payment webhook route against the real database: signatures checked with the official
+ * `stripe` SDK (the reference for Stripe's scheme: header `t=…,v1=…`, HMAC-SHA256 over
+ * `t.payload`, 300 s tolerance — Stripe docs "Check the webhook signatures"), bad or old
+ * signatures answered 400, and a repeated event applied once.
+ */
+import Stripe from 'stripe';
+import { and, eq } from 'drizzle-orm';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { db } from '../../src/lib/server/db';
+import * as s from '../../src/lib/server/db/schema';
+import { config } from '../../src/lib/server/config';
+import { POST } from '../../src/routes/api/payments/webhook/+server';
+
+const sdk = new Stripe('sk_test_unused');
+const secret = config.stripe.webhookSecret;
+const tag = `w${process.pid}${Date.now() % 100000}`;
+let orderId = 0;
+let ref = '';
+
+function sign(payload: string, opts: { secret?: string; timestamp?: number } = {}) {
+	// Reference signer: the SDK's own test-header generator.
+	return sdk.webhooks.generateTestHeaderString({ payload, secret: opts.secret ?? secret, timestamp: opts.timestamp });
+}
+
+function call(payload: string, header: string | null) {
+	const request = new Request('http://localhost/api/payments/webhook', {
+		method: 'POST',
+		headers: header ? { 'stripe-signature': header, 'content-type': 'application/json' } : {},
+		body: payload
+	});
+	// The route only reads the request.
+	return POST({ request } as Parameters<typeof POST>[0]) as Promise<Response>;
+}
+
+function completed(eventId: string) {
+	return JSON.stringify({
+		id: eventId,
+		object: 'event',
+		type: 'checkout.session.completed',
+		created: Math.floor(Date.now() / 1000),
+		data: {
+			object: {
+				id: `cs_${tag}`,
+				object: 'checkout.session',
+				payment_status: 'paid',
+				status: 'complete',
+				payment_intent: `pi_${tag}`,
+				client_reference_id: ref,
+				metadata: { orderRef: ref }
+			}
+		}
+	});
+}
+
+beforeAll(async () => {
+	ref = `CS-${tag.slice(-6).toUpperCase().padStart(6, 'W')}`;
+	const [piece] = await db.select().from(s.pieces).limit(1);
+	const [wood] = await db.select().from(s.woods).limit(1);
+	[{ id: orderId }] = await db
+		.insert(s.orders)
+		.values({
+			ref,
+			email: 'webhook-test@example.test',
+			buyerName: 'Webhook Test',
+			address: { line1: '1 Lane', city: 'Boulder', region: 'CO', postcode: '80302', country: 'US' },
+			currency: 'USD',
+			subtotalMinor: 4800,
+			shippingMinor: 900,
+			taxMinor: 0,
+			totalMinor: 5700,
+			status: 'pending',
+			checkoutSessionId: `cs_${tag}`,
+			createdAt: new Date()
+		})
+		.$returningId();
+	await db.insert(s.orderLines).values({
+		orderId,
+		pieceId: piece.id,
+		woodId: wood.id,
+		title: piece.title,
+		woodName: wood.name,
+		quantity: 1,
+		unitPriceMinor: 4800,
+		lineTotalMinor: 4800,
+		fromStock: false,
+		personalisation: { initials: 'WT', style: 'classic', diameterMm: 60, count: 1, spacingMm: 30, split: false }
+	});
+});
+
+const status = async () => (await db.select().from(s.orders).where(eq(s.orders.id, orderId)))[0].status;
+
+describe('POST /api/payments/webhook', () => {
+	it('answers 400 to a missing, wrong-secret, tampered or old signature and changes nothing', async () => {
+		const body = completed(`evt_${tag}_bad`);
+		expect((await call(body, null)).status).toBe(400);
+		expect((await call(body, sign(body, { secret: 'whsec_someone_else' }))).status).toBe(400);
+		const tampered = body.replace('"paid"', '"unpaid"');
+		expect((await call(tampered, sign(body))).status).toBe(400);
+		// Older than the SDK's default 300 s tolerance.
+		const old = sign(body, { timestamp: Math.floor(Date.now() / 1000) - 600 });
+		const res = await call(body, old);
+		expect(res.status).toBe(400);
+		expect(await res.json()).toMatchObject({ error: expect.any(String) });
+		expect(await status()).toBe('pending');
+	});
+
+	it('applies a signed checkout.session.completed once, however often it arrives', async () => {
+		const body = completed(`evt_${tag}_ok`);
+		const first = await call(body, sign(body));
+		expect(first.status).toBe(200);
+		expect(await first.json()).toMatchObject({ received: true, changed: true });
+		expect(await status()).toBe('paid');
+
+		const again = await call(body, sign(body));
+		expect(again.status).toBe(200);
+		expect(await again.json()).toMatchObject({ received: true, changed: false });
+		const events = await db
+			.select()
+			.from(s.processedEvents)
+			.where(and(eq(s.processedEvents.id, `evt_${tag}_ok`), eq(s.processedEvents.type, 'checkout.session.completed')));
+		expect(events).toHaveLength(1);
+	});
+
+	it('accepts and ignores event types it does not handle', async () => {
+		const body = JSON.stringify({ id: `evt_${tag}_other`, object: 'event', type: 'charge.updated', data: { object: {} } });
+		const res = await call(body, sign(body));
+		expect(res.status).toBe(200);
+		expect(await res.json()).toMatchObject({ handled: false });
+	});
+});
