@@ -58,3 +58,36 @@ describe('personalisation schema (shared with the cart)', () => {
 		expect(personalisationSchema.safeParse({ initials: '', wood: 'basswood' }).success).toBe(false);
 	});
 });
+
+describe('GET /api/pattern handler (route module)', () => {
+	it('answers 200 JSON with letters drawn from the bundled font, and 400 with fields', async () => {
+		const { GET } = await import('../../src/routes/api/pattern/+server');
+		const call = (q: string) =>
+			GET({ url: new URL(`http://x/api/pattern?${q}`) } as unknown as Parameters<
+				typeof GET
+			>[0]) as Response;
+		const ok = call('diameter=70&count=1&initials=ab&width=100&length=100');
+		expect(ok.status).toBe(200);
+		const body = await ok.json();
+		expect(body.letterCount).toBe(2);
+		expect(body.chips.filter((c: { kind: string }) => c.kind === 'letter')).toHaveLength(2);
+		const bad = call('diameter=70&count=1&width=100&length=100&wood=oak-from-nowhere');
+		expect(bad.status).toBe(400);
+		const err = await bad.json();
+		expect(err.fields.wood[0]).toMatch(/woods/);
+	});
+});
+
+describe('planner settings', () => {
+	it('reads border offsets and refuses bad ones with a message', async () => {
+		const { plannerSchema } = await import('../../src/lib/schemas/pattern');
+		const base = { diameter: '70', width: '100', length: '300' };
+		expect(plannerSchema.parse({ ...base, border: '1', offsets: '5, 2, 1.5' }).offsets).toEqual([
+			5, 2, 1.5
+		]);
+		const bad = plannerSchema.safeParse({ ...base, offsets: '5;x', paper: 'a3' });
+		expect(bad.success).toBe(false);
+		const paths = bad.success ? [] : bad.error.issues.map((i) => i.path[0]);
+		expect(paths).toEqual(expect.arrayContaining(['offsets', 'paper']));
+	});
+});

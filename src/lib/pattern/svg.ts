@@ -5,7 +5,7 @@
  */
 import type { Edge } from './arrangement';
 import { type Point, fmt, onCircle } from './geometry';
-import { edgeCommand, facePath } from './paths';
+import { edgeCommand } from './paths';
 import type { Drawing } from './types';
 
 type Tones = { name: string; toneLight: string; toneDark: string };
@@ -134,4 +134,3 @@ export function renderSvg(d: Drawing, tones: Tones, id = 'rz', pad = 4, view?: V
 	return parts.join('');
 }
 
-export { facePath };
