@@ -7,7 +7,8 @@ import { SESSION_COOKIE, demoAccount, signInAs, signInWith, signOut } from './he
 import { waitForMail } from './helpers/mail';
 
 const NO_MATCH = "That e-mail and password don't match an account.";
-const unique = (tag: string) => `${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
+const unique = (tag: string) =>
+	`${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
 
 async function signUp(page: Page, name: string, email: string, password: string) {
 	await page.goto('/signup');
@@ -53,13 +54,20 @@ test.describe('who may open the workshop', () => {
 	});
 
 	test('a `next` pointing off the site is ignored', async ({ page }) => {
-		await signInWith(page, demoAccount('helper').email, demoAccount('helper').password, '//elsewhere.example/x');
+		await signInWith(
+			page,
+			demoAccount('helper').email,
+			demoAccount('helper').password,
+			'//elsewhere.example/x'
+		);
 		await expect(page).toHaveURL((url) => url.pathname === '/workshop');
 	});
 });
 
 test.describe('signing in and up', () => {
-	test('a wrong password and an unknown e-mail get the same message, e-mail kept', async ({ page }) => {
+	test('a wrong password and an unknown e-mail get the same message, e-mail kept', async ({
+		page
+	}) => {
 		const owner = demoAccount('owner');
 		await signInWith(page, owner.email, 'not-the-password');
 		await expect(page.getByRole('alert')).toContainText(NO_MATCH);
@@ -82,7 +90,9 @@ test.describe('signing in and up', () => {
 		expect(cookie?.path).toBe('/');
 	});
 
-	test('sign-up makes a customer; the same e-mail again gets a message beside the field', async ({ page }) => {
+	test('sign-up makes a customer; the same e-mail again gets a message beside the field', async ({
+		page
+	}) => {
 		const email = unique('newbuyer');
 		await signUp(page, 'Ada Linden', email, 'a good long password');
 		await expect(page).toHaveURL(/\/account$/);
@@ -109,7 +119,10 @@ test.describe('signing in and up', () => {
 });
 
 test.describe('password reset', () => {
-	test('the e-mailed link sets a new password once, then says it was used', async ({ page, baseURL }) => {
+	test('the e-mailed link sets a new password once, then says it was used', async ({
+		page,
+		baseURL
+	}) => {
 		test.slow(); // five sign-ins and a mail round trip
 		const email = unique('forgetful');
 		await signUp(page, 'Fern Forgetful', email, 'the first password');
@@ -158,7 +171,10 @@ test.describe('password reset', () => {
 });
 
 test.describe('signing out', () => {
-	test('a GET does not sign out; the POST ends the session on the server', async ({ page, context }) => {
+	test('a GET does not sign out; the POST ends the session on the server', async ({
+		page,
+		context
+	}) => {
 		await signInAs(page, 'customer');
 		const before = (await context.cookies()).find((c) => c.name === SESSION_COOKIE)!;
 
@@ -216,7 +232,9 @@ test.describe('the owner manages helpers', () => {
 		await helperContext.close();
 	});
 
-	test('adding a helper over an existing customer points to promotion instead', async ({ page }) => {
+	test('adding a helper over an existing customer points to promotion instead', async ({
+		page
+	}) => {
 		await signInAs(page, 'owner');
 		await page.goto('/workshop/people');
 		await page.getByLabel('Name').fill('Juniper');
@@ -228,7 +246,9 @@ test.describe('the owner manages helpers', () => {
 	});
 });
 
-test('API errors answer JSON `{ error }` with the status, also to a browser', async ({ request }) => {
+test('API errors answer JSON `{ error }` with the status, also to a browser', async ({
+	request
+}) => {
 	const res = await request.get('/api/no-such-endpoint', { headers: { accept: 'text/html' } });
 	expect(res.status()).toBe(404);
 	expect(res.headers()['content-type']).toContain('application/json');

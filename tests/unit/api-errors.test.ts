@@ -6,7 +6,7 @@ import { requireRoleApi } from '$lib/server/auth/guard';
 const read = async (r: Response) => ({ status: r.status, body: await r.json() });
 
 describe('API error bodies', () => {
-	it('turns SvelteKit\'s `{ message }` into `{ error }`, keeping status and fields', async () => {
+	it("turns SvelteKit's `{ message }` into `{ error }`, keeping status and fields", async () => {
 		const r = await toApiErrorResponse(json({ message: 'Sign in first.' }, { status: 401 }));
 		expect(await read(r)).toEqual({ status: 401, body: { error: 'Sign in first.' } });
 		const withFields = await toApiErrorResponse(
@@ -19,16 +19,25 @@ describe('API error bodies', () => {
 	});
 
 	it('leaves a body that is already `{ error }` untouched', async () => {
-		const original = json({ error: 'Out of stock.', fields: { woodId: ['Gone.'] } }, { status: 409 });
+		const original = json(
+			{ error: 'Out of stock.', fields: { woodId: ['Gone.'] } },
+			{ status: 409 }
+		);
 		const r = await toApiErrorResponse(original);
 		expect(r).toBe(original);
 	});
 
 	it('replaces an HTML error page with JSON for the same status', async () => {
-		const html = new Response('<html>403</html>', { status: 403, headers: { 'content-type': 'text/html' } });
+		const html = new Response('<html>403</html>', {
+			status: 403,
+			headers: { 'content-type': 'text/html' }
+		});
 		const r = await toApiErrorResponse(html);
 		expect(r.headers.get('content-type')).toBe('application/json');
-		expect(await read(r)).toEqual({ status: 403, body: { error: 'Your account cannot use this.' } });
+		expect(await read(r)).toEqual({
+			status: 403,
+			body: { error: 'Your account cannot use this.' }
+		});
 	});
 
 	it('requireRoleApi answers 401 for nobody and 403 for the wrong role', () => {

@@ -10,7 +10,12 @@ const made: string[] = [];
 const fresh = (tag: string) => `${tag}-${crypto.randomUUID()}@example.test`;
 
 async function account(tag: string, role: 'owner' | 'helper' | 'customer' = 'customer') {
-	const r = await createAccount({ name: `Test ${tag}`, email: fresh(tag), password: 'a long password', role });
+	const r = await createAccount({
+		name: `Test ${tag}`,
+		email: fresh(tag),
+		password: 'a long password',
+		role
+	});
 	if (!r.ok) throw new Error('setup failed');
 	made.push(r.user.id);
 	return r.user;
@@ -38,12 +43,18 @@ describe('accounts', () => {
 
 	it('reports a taken e-mail, also when two sign-ups race on the unique index', async () => {
 		const user = await account('dupe');
-		const again = await createAccount({ name: 'Again', email: user.email, password: 'another one!' });
+		const again = await createAccount({
+			name: 'Again',
+			email: user.email,
+			password: 'another one!'
+		});
 		expect(again).toEqual({ ok: false, reason: 'email-taken' });
 
 		const email = fresh('race');
 		const both = await Promise.all(
-			[1, 2, 3].map((n) => createAccount({ name: `Racer ${n}`, email, password: 'racing password' }))
+			[1, 2, 3].map((n) =>
+				createAccount({ name: `Racer ${n}`, email, password: 'racing password' })
+			)
 		);
 		const winners = both.filter((r) => r.ok);
 		expect(winners).toHaveLength(1);
@@ -81,7 +92,7 @@ describe('staff', () => {
 	it('removes a helper: back to customer, every session ended', async () => {
 		const owner = await account('owner', 'owner');
 		const helper = await account('leaving', 'helper');
-		const { token } = await createSessionFor(helper.id);
+		const token = await createSessionFor(helper.id);
 		const r = await removeHelper(owner.id, helper.id);
 		expect(r.ok).toBe(true);
 		expect((await validateToken(token)).session).toBeNull();
@@ -94,10 +105,16 @@ describe('staff', () => {
 		const owner = await account('owner2', 'owner');
 		const other = await account('owner3', 'owner');
 		const customer = await account('cust', 'customer');
-		expect(await removeHelper(owner.id, owner.id)).toMatchObject({ ok: false, message: 'You cannot remove yourself.' });
+		expect(await removeHelper(owner.id, owner.id)).toMatchObject({
+			ok: false,
+			message: 'You cannot remove yourself.'
+		});
 		expect(await removeHelper(owner.id, other.id)).toMatchObject({ ok: false });
 		expect(await removeHelper(owner.id, customer.id)).toMatchObject({ ok: false });
-		const roles = await db.select({ id: users.id, role: users.role }).from(users).where(inArray(users.id, [owner.id, other.id]));
+		const roles = await db
+			.select({ id: users.id, role: users.role })
+			.from(users)
+			.where(inArray(users.id, [owner.id, other.id]));
 		expect(roles.every((r) => r.role === 'owner')).toBe(true);
 	});
 });

@@ -31,8 +31,10 @@ describe('safeNext', () => {
 	});
 });
 
-const fields = (r: { success: boolean; error?: z.ZodError }): Record<string, string[] | undefined> =>
-	r.error ? z.flattenError(r.error).fieldErrors : {};
+const fields = (r: {
+	success: boolean;
+	error?: z.ZodError;
+}): Record<string, string[] | undefined> => (r.error ? z.flattenError(r.error).fieldErrors : {});
 
 describe('auth form schemas', () => {
 	it('normalises the e-mail and accepts any non-empty password to sign in', () => {
@@ -41,7 +43,12 @@ describe('auth form schemas', () => {
 	});
 
 	it('sign-up wants a name, an e-mail, 10+ characters and the same password twice', () => {
-		const r = signUpSchema.safeParse({ name: ' ', email: 'nope', password: 'short', confirm: 'other' });
+		const r = signUpSchema.safeParse({
+			name: ' ',
+			email: 'nope',
+			password: 'short',
+			confirm: 'other'
+		});
 		const f = fields(r);
 		expect(f.name?.[0]).toBe('Tell us your name.');
 		expect(f.email?.[0]).toBe('That does not look like an e-mail address.');
@@ -65,11 +72,12 @@ describe('auth form schemas', () => {
 	});
 
 	it('reset and add-helper reuse the same password rule', () => {
-		expect(fields(resetPasswordSchema.safeParse({ password: 'x', confirm: 'x' })).password?.[0]).toBe(
-			'Use at least 10 characters.'
-		);
 		expect(
-			fields(addHelperSchema.safeParse({ name: 'W', email: 'w@example.test', password: 'short' })).password?.[0]
+			fields(resetPasswordSchema.safeParse({ password: 'x', confirm: 'x' })).password?.[0]
+		).toBe('Use at least 10 characters.');
+		expect(
+			fields(addHelperSchema.safeParse({ name: 'W', email: 'w@example.test', password: 'short' }))
+				.password?.[0]
 		).toBe('Use at least 10 characters.');
 	});
 

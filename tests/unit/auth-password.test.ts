@@ -11,7 +11,10 @@ describe('password hashing', () => {
 	});
 
 	it('salts every hash, so the same password never gives the same string', async () => {
-		const [a, b] = await Promise.all([hashPassword('same-password'), hashPassword('same-password')]);
+		const [a, b] = await Promise.all([
+			hashPassword('same-password'),
+			hashPassword('same-password')
+		]);
 		expect(a).not.toBe(b);
 	});
 

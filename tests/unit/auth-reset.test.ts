@@ -55,7 +55,11 @@ describe('password reset tokens', () => {
 		const { token } = (await createResetToken(email, now))!;
 		expect(await checkResetToken(token, new Date(now.getTime() + HOUR - 60_000))).toBe('valid');
 		expect(await checkResetToken(token, new Date(now.getTime() + HOUR + 60_000))).toBe('expired');
-		const late = await completeReset(token, 'too late password', new Date(now.getTime() + HOUR + 1000));
+		const late = await completeReset(
+			token,
+			'too late password',
+			new Date(now.getTime() + HOUR + 1000)
+		);
 		expect(late).toEqual({ ok: false, state: 'expired' });
 	});
 
@@ -68,7 +72,7 @@ describe('password reset tokens', () => {
 	});
 
 	it('sets the new password, ends old sessions, and works only once', async () => {
-		const old = await createSessionFor(userId);
+		const oldToken = await createSessionFor(userId);
 		const { token } = (await createResetToken(email))!;
 		const other = (await createResetToken(email))!;
 
@@ -76,7 +80,7 @@ describe('password reset tokens', () => {
 		expect(first).toEqual({ ok: true, userId });
 		expect(await authenticate(email, 'second password')).not.toBeNull();
 		expect(await authenticate(email, 'first password')).toBeNull();
-		expect((await validateToken(old.token)).session).toBeNull();
+		expect((await validateToken(oldToken)).session).toBeNull();
 		expect(await db.select().from(sessions).where(eq(sessions.userId, userId))).toHaveLength(0);
 
 		expect(await checkResetToken(token)).toBe('used');

@@ -36,7 +36,9 @@ function handlers(src: string): { name: string; body: string }[] {
 	const actionsAt = src.search(/export const actions\b/);
 	if (actionsAt >= 0) {
 		// Named actions, one tab in: `name: async (event) => {` or `async name(event) {`.
-		for (const m of src.slice(actionsAt).matchAll(/^\t(?:(\w+)\s*:\s*async\b|async (\w+)\s*\()/gm)) {
+		for (const m of src
+			.slice(actionsAt)
+			.matchAll(/^\t(?:(\w+)\s*:\s*async\b|async (\w+)\s*\()/gm)) {
 			starts.push({ name: `action ${m[1] ?? m[2]}`, at: actionsAt + m.index! });
 		}
 	}

@@ -1,6 +1,12 @@
 import { expect } from '@playwright/test';
 
-export type CaughtMail = { to: string[]; subject: string; text: string; html?: string; date: string };
+export type CaughtMail = {
+	to: string[];
+	subject: string;
+	text: string;
+	html?: string;
+	date: string;
+};
 
 /** The mail stand-in's JSON list of caught messages. */
 export const mailInboxUrl = () =>

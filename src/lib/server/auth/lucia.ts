@@ -29,10 +29,10 @@ declare module 'lucia' {
  * Starts a session and returns the token for the cookie. The session row's id is the token's
  * SHA-256, so a leaked sessions table cannot be replayed as cookies.
  */
-export async function createSessionFor(userId: string): Promise<{ token: string; expiresAt: Date }> {
+export async function createSessionFor(userId: string): Promise<string> {
 	const token = generateToken();
-	const session = await lucia.createSession(userId, {}, { sessionId: hashToken(token) });
-	return { token, expiresAt: session.expiresAt };
+	await lucia.createSession(userId, {}, { sessionId: hashToken(token) });
+	return token;
 }
 
 /** The session and user behind a cookie token, or nulls. `session.fresh` means "re-send the cookie". */
@@ -63,8 +63,7 @@ export function clearSessionCookie(cookies: Cookies): void {
 
 /** Signs a user in on this response: new session, cookie set. */
 export async function signIn(cookies: Cookies, userId: string): Promise<void> {
-	const { token } = await createSessionFor(userId);
-	setSessionCookie(cookies, token);
+	setSessionCookie(cookies, await createSessionFor(userId));
 }
 
 export const sessionCookieName = lucia.sessionCookieName;

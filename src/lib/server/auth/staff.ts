@@ -14,8 +14,7 @@ export async function listStaff(): Promise<AccountUser[]> {
 }
 
 export type StaffResult =
-	| { ok: true; user: AccountUser }
-	| { ok: false; field: 'email' | 'userId'; message: string };
+	{ ok: true; user: AccountUser } | { ok: false; field: 'email' | 'userId'; message: string };
 
 /** A new helper account with a temporary password the owner hands over in person. */
 export async function addHelper(input: {
@@ -67,7 +66,11 @@ export async function removeHelper(actorId: string, userId: string): Promise<Sta
 			.where(eq(users.id, userId))
 			.for('update');
 		if (!user || user.role !== 'helper') {
-			return { ok: false as const, field: 'userId' as const, message: 'That person is not a helper.' };
+			return {
+				ok: false as const,
+				field: 'userId' as const,
+				message: 'That person is not a helper.'
+			};
 		}
 		await tx.update(users).set({ role: 'customer' }).where(eq(users.id, userId));
 		await tx.delete(sessions).where(eq(sessions.userId, userId));

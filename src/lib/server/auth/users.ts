@@ -37,8 +37,7 @@ export async function authenticate(email: string, password: string): Promise<Acc
 		return null;
 	}
 	if (!(await verifyPassword(row.passwordHash, password))) return null;
-	const { passwordHash: _omit, ...user } = row;
-	return user;
+	return { id: row.id, email: row.email, name: row.name, role: row.role };
 }
 
 export type NewAccount = { name: string; email: string; password: string; role?: Role };

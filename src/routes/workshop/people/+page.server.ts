@@ -32,7 +32,11 @@ export const actions: Actions = {
 		const values = { email: text(form.email) };
 		const parsed = promoteSchema.safeParse(form);
 		if (!parsed.success) {
-			return fail(400, { form: 'promote', errors: z.flattenError(parsed.error).fieldErrors, values });
+			return fail(400, {
+				form: 'promote',
+				errors: z.flattenError(parsed.error).fieldErrors,
+				values
+			});
 		}
 		const r = await promoteCustomer(parsed.data.email);
 		if (!r.ok) return fail(400, { form: 'promote', errors: { [r.field]: [r.message] }, values });

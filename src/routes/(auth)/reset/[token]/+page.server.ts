@@ -19,7 +19,10 @@ export const actions: Actions = {
 	default: async ({ params, request, cookies }) => {
 		const parsed = resetPasswordSchema.safeParse(Object.fromEntries(await request.formData()));
 		if (!parsed.success) {
-			return fail(400, { errors: z.flattenError(parsed.error).fieldErrors, state: 'valid' as const });
+			return fail(400, {
+				errors: z.flattenError(parsed.error).fieldErrors,
+				state: 'valid' as const
+			});
 		}
 		const done = await completeReset(params.token, parsed.data.password);
 		if (!done.ok) return fail(400, { errors: {}, state: done.state });
