@@ -1,0 +1,48 @@
+import { z } from 'zod';
+import { apiError, requireRole } from '$lib/server/auth/guard';
+import { letterFont } from '$lib/server/letter-font';
+import { orderLineForTemplate } from '$lib/server/order-detail';
+import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';
+import type { RequestHandler } from './$types';
+
+const paperSchema = z.enum(['a4', 'letter'], { error: 'Paper must be a4 or letter.' }).default('a4');
+
+/** The 1:1 carving template for one personalised order line, with the order reference on it. */
+export const GET: RequestHandler = async (event) => {
+	requireRole(event, 'owner', 'helper');
+	const paper = paperSchema.safeParse(event.url.searchParams.get('paper') ?? undefined);
+	if (!paper.success) {
+		return apiError(400, 'This paper size is not offered.', {
+			paper: [paper.error.issues[0].message]
+		});
+	}
+	const lineId = /^[1-9]\d{0,9}$/.test(event.params.lineId) ? Number(event.params.lineId) : null;
+	const line = lineId ? await orderLineForTemplate(event.params.ref, lineId) : null;
+	if (!line) return apiError(404, 'No such line on this order.');
+	if (!line.personalisation) return apiError(404, 'This line is not personalised, so it has no template.');
+
+	const p = line.personalisation;
+	const bytes = await orderLineTemplatePdf({
+		personalisation: {
+			initials: p.initials,
+			diameterMm: p.diameterMm,
+			count: p.count,
+			spacingMm: p.spacingMm || p.diameterMm / 2,
+			split: !!p.split
+		},
+		blank: { widthMm: line.widthMm, lengthMm: line.lengthMm, thicknessMm: line.thicknessMm },
+		woodSlug: line.woodSlug,
+		orderRef: line.ref,
+		lineTitle: `${line.title}, ${line.woodName}`,
+		paper: paper.data,
+		font: letterFont()
+	});
+	const name = `template-${line.ref}-line${line.id}-${paper.data}.pdf`;
+	return new Response(bytes as BodyInit, {
+		headers: {
+			'content-type': 'application/pdf',
+			'content-disposition': `attachment; filename="${name}"`,
+			'cache-control': 'private, no-store'
+		}
+	});
+};
