@@ -7,7 +7,7 @@ import type { PageServerLoad } from './$types';
 /** Reachable by the signed link from the e-mail, or by the signed-in account that placed it. */
 export const load: PageServerLoad = async ({ params, url, locals }) => {
 	const ref = params.ref.toUpperCase();
-	const order = /^CS-[A-Z0-9]{6}$/.test(ref) ? await orderByRef(ref) : null;
+	const order = /^[A-Z]{2}-[A-Z0-9]{3,12}$/.test(ref) ? await orderByRef(ref) : null;
 	const byLink = order && verifyOrderKey(order.ref, url.searchParams.get('k'));
 	const byAccount = order && locals.user && order.userId === locals.user.id;
 	// Same answer for "no such order" and "not yours", so references cannot be probed.
