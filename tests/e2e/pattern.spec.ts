@@ -185,7 +185,7 @@ test.describe('order line template', () => {
 		await expect(page.getByTestId('payment-id')).toHaveText('pi_demo_1009');
 		const line = page.getByTestId('order-line').first();
 		await expect(line.getByTestId('line-initials')).toHaveText('HO');
-		const svg = line.getByTestId('line-preview').locator('svg');
+		const svg = line.getByTestId('line-preview').locator('svg').first();
 		await expect(svg.locator('title')).toContainText('initials HO');
 		// Server-side letter font: the initials are outlines, not text.
 		await expect(svg.locator('circle + path')).toHaveCount(1);
@@ -233,14 +233,22 @@ test.describe('order line template', () => {
 		expect(bad.status()).toBe(400);
 		expect((await bad.json()).fields.paper[0]).toMatch(/a4 or letter/i);
 
-		expect((await page.request.get(`/workshop/orders/CS-9999/lines/${id}/template.pdf`)).status()).toBe(404);
-		expect((await page.request.get(`/workshop/orders/${REF}/lines/abc/template.pdf`)).status()).toBe(404);
+		expect(
+			(await page.request.get(`/workshop/orders/CS-9999/lines/${id}/template.pdf`)).status()
+		).toBe(404);
+		expect(
+			(await page.request.get(`/workshop/orders/${REF}/lines/abc/template.pdf`)).status()
+		).toBe(404);
 		// A line of another order is not found under this one.
 		const otherLine = await lineId('CS-1001', 0);
-		expect((await page.request.get(`/workshop/orders/${REF}/lines/${otherLine}/template.pdf`)).status()).toBe(404);
+		expect(
+			(await page.request.get(`/workshop/orders/${REF}/lines/${otherLine}/template.pdf`)).status()
+		).toBe(404);
 		// CS-1006's second line is a ready-made coffee scoop: no template.
 		const scoop = await lineId('CS-1006', 1);
-		const notPersonal = await page.request.get(`/workshop/orders/CS-1006/lines/${scoop}/template.pdf`);
+		const notPersonal = await page.request.get(
+			`/workshop/orders/CS-1006/lines/${scoop}/template.pdf`
+		);
 		expect(notPersonal.status()).toBe(404);
 		expect((await notPersonal.json()).error).toMatch(/not personalised/);
 		// An unknown order page is a 404 too.
@@ -250,7 +258,9 @@ test.describe('order line template', () => {
 
 test.describe('pattern API', () => {
 	test('GET /api/pattern answers with the layout', async ({ request }) => {
-		const res = await request.get('/api/pattern?diameter=70&count=3&width=100&length=300&initials=ab&wood=cherry');
+		const res = await request.get(
+			'/api/pattern?diameter=70&count=3&width=100&length=300&initials=ab&wood=cherry'
+		);
 		expect(res.status()).toBe(200);
 		const body = await res.json();
 		// Common practice: a 70 mm rosette is drawn with the compass at 35 mm.
@@ -265,11 +275,21 @@ test.describe('pattern API', () => {
 		expect(Math.max(...ys) + 35 - (Math.min(...ys) - 35)).toBeCloseTo(140, 9);
 		expect(body.chips.length).toBeGreaterThan(0);
 		for (const c of body.chips) {
-			expect(['petal', 'between', 'half-petal', 'half-between', 'part', 'triangle', 'letter']).toContain(c.kind);
+			expect([
+				'petal',
+				'between',
+				'half-petal',
+				'half-between',
+				'part',
+				'triangle',
+				'letter'
+			]).toContain(c.kind);
 			expect(c.areaMm2).toBeGreaterThan(0);
 			expect(c.cutLengthMm).toBeGreaterThan(0);
 		}
-		expect(body.chipCount).toBe(body.chips.filter((c: { kind: string }) => c.kind !== 'letter').length);
+		expect(body.chipCount).toBe(
+			body.chips.filter((c: { kind: string }) => c.kind !== 'letter').length
+		);
 		expect(body.chips.filter((c: { kind: string }) => c.kind === 'letter')).toHaveLength(2);
 		expect(body.cutLengthMm).toBeGreaterThan(0);
 		expect(body.estimateMinutes).toBeGreaterThan(0);
@@ -280,7 +300,9 @@ test.describe('pattern API', () => {
 	});
 
 	test('GET /api/pattern refuses bad settings field by field', async ({ request }) => {
-		const res = await request.get('/api/pattern?diameter=abc&count=0&width=10&initials=A1&wood=oak-ish');
+		const res = await request.get(
+			'/api/pattern?diameter=abc&count=0&width=10&initials=A1&wood=oak-ish'
+		);
 		expect(res.status()).toBe(400);
 		const body = await res.json();
 		expect(typeof body.error).toBe('string');

@@ -6,7 +6,15 @@
 import { and, eq } from 'drizzle-orm';
 import { computePattern, type PatternInput } from '$lib/pattern';
 import { db } from './db';
-import { orderLines, orders, pieces, shipments, woods, type Address, type Personalisation } from './db/schema';
+import {
+	orderLines,
+	orders,
+	pieces,
+	shipments,
+	woods,
+	type Address,
+	type Personalisation
+} from './db/schema';
 import { jsonValue } from './json-column';
 import { letterFont } from './letter-font';
 
@@ -16,7 +24,11 @@ export type LineBlank = { widthMm: number; lengthMm: number; thicknessMm: number
  * Engine input for a stored snapshot. Single-rosette pieces store spacing 0 ("not used"), so a
  * missing or zero spacing falls back to the radius, as the shop does when it takes the order.
  */
-export function snapshotInput(snap: Personalisation, blank: LineBlank, woodSlug: string): PatternInput {
+export function snapshotInput(
+	snap: Personalisation,
+	blank: LineBlank,
+	woodSlug: string
+): PatternInput {
 	return {
 		diameterMm: snap.diameterMm,
 		count: snap.count,
@@ -86,9 +98,12 @@ export async function workshopOrderDetail(ref: string) {
 		})),
 		lines: lines.map((l) => {
 			const snap = l.personalisation ? jsonValue<Personalisation>(l.personalisation) : null;
-			const pattern = snap
-				? computePattern(snapshotInput(snap, l, l.woodSlug), { font, idPrefix: `wo${l.id}` })
+			const input = snap ? snapshotInput(snap, l, l.woodSlug) : null;
+			// The carving close up (what the carver checks), and the whole blank small beside it.
+			const pattern = input
+				? computePattern(input, { font, idPrefix: `wo${l.id}`, closeUpMm: 6 })
 				: null;
+			const wholeSvg = input ? computePattern(input, { font, idPrefix: `wow${l.id}` }).svg : null;
 			return {
 				id: l.id,
 				title: l.title,
@@ -102,6 +117,7 @@ export async function workshopOrderDetail(ref: string) {
 				personalisation: snap,
 				pattern: pattern && {
 					svg: pattern.svg,
+					wholeSvg: wholeSvg ?? '',
 					chipCount: pattern.chipCount,
 					letterCount: pattern.letterCount,
 					compassRadiusMm: pattern.compassRadiusMm,

@@ -5,7 +5,9 @@ import { orderLineForTemplate } from '$lib/server/order-detail';
 import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';
 import type { RequestHandler } from './$types';
 
-const paperSchema = z.enum(['a4', 'letter'], { error: 'Paper must be a4 or letter.' }).default('a4');
+const paperSchema = z
+	.enum(['a4', 'letter'], { error: 'Paper must be a4 or letter.' })
+	.default('a4');
 
 /** The 1:1 carving template for one personalised order line, with the order reference on it. */
 export const GET: RequestHandler = async (event) => {
@@ -19,7 +21,8 @@ export const GET: RequestHandler = async (event) => {
 	const lineId = /^[1-9]\d{0,9}$/.test(event.params.lineId) ? Number(event.params.lineId) : null;
 	const line = lineId ? await orderLineForTemplate(event.params.ref, lineId) : null;
 	if (!line) return apiError(404, 'No such line on this order.');
-	if (!line.personalisation) return apiError(404, 'This line is not personalised, so it has no template.');
+	if (!line.personalisation)
+		return apiError(404, 'This line is not personalised, so it has no template.');
 
 	const p = line.personalisation;
 	const bytes = await orderLineTemplatePdf({
