@@ -85,16 +85,16 @@ export const DEMO_PIECES: DemoPiece[] = [
 		slug: 'twin-rosette-bottle-holder',
 		title: 'Twin-rosette bottle holder',
 		kind: 'bottle_holder',
-		summary: 'A longer bottle holder with two rosettes side by side, for two sets of initials.',
+		summary: 'A longer bottle holder with two rosettes overlapping by a radius, initials at the heart.',
 		description:
-			'Made for couples and house-warmings: two rosettes, each able to carry a set of initials, ' +
-			'with a border of small chips between them.',
+			'Made for couples and house-warmings: two rosettes laid out along the board so the second ' +
+			'starts where the first one\'s circle crosses the centre line, with the initials in the first.',
 		size: [330, 105, 19],
 		basePriceMinor: 5800,
 		personalisable: true,
 		foodContact: false,
 		leadDays: 16,
-		pattern: { diameterMm: 50, count: 2, spacingMm: 14, split: false },
+		pattern: { diameterMm: 50, count: 2, spacingMm: 25, split: false },
 		woods: ['basswood', 'cherry', 'walnut'],
 		stock: { basswood: 1 }
 	},
@@ -102,10 +102,10 @@ export const DEMO_PIECES: DemoPiece[] = [
 		slug: 'welcome-plate',
 		title: 'Welcome plate',
 		kind: 'plate',
-		summary: 'A round wall plate with a large split rosette and a name or date.',
+		summary: 'A round wall plate with a large rosette of halved chips and your initials.',
 		description:
-			'A turned basswood plate for the wall by the door. The large rosette is split into two ' +
-			'halves so a family name or a wedding date can run through the middle. Not for food.',
+			'A turned basswood plate for the wall by the door. Every chip of the large rosette is ' +
+			'halved along its axis for a finer, lacier look, with the initials at its heart. Not for food.',
 		size: [250, 250, 18],
 		basePriceMinor: 6500,
 		personalisable: true,
@@ -119,16 +119,17 @@ export const DEMO_PIECES: DemoPiece[] = [
 		slug: 'rim-rosette-serving-plate',
 		title: 'Serving plate with a rosette rim',
 		kind: 'plate',
-		summary: 'A shallow serving plate, eight small rosettes round the rim, food-safe finish.',
+		summary: 'A shallow serving plate with a band of small overlapping rosettes, food-safe finish.',
 		description:
-			'The centre is left plain for bread and cheese; eight small rosettes run round the rim. ' +
+			'The centre is left plain for bread and cheese; a band of five small overlapping rosettes ' +
+			'runs across the top. ' +
 			'Finished with a fully cured food-safe oil. Hand wash, dry, and re-oil now and then.',
 		size: [280, 280, 20],
 		basePriceMinor: 7200,
 		personalisable: true,
 		foodContact: true,
 		leadDays: 21,
-		pattern: { diameterMm: 36, count: 8, spacingMm: 20, split: false },
+		pattern: { diameterMm: 36, count: 5, spacingMm: 18, split: false },
 		woods: ['cherry', 'maple', 'walnut'],
 		stock: { cherry: 1, maple: 1 }
 	},
@@ -155,7 +156,7 @@ export const DEMO_PIECES: DemoPiece[] = [
 		kind: 'box',
 		summary: 'A small square box for rings and coins, a rosette on the lid.',
 		description:
-			'A small square box with a sliding lid and a rosette of twelve petals. Ready to ship.',
+			'A small square box with a sliding lid and a six-petal rosette. Ready to ship.',
 		size: [95, 95, 50],
 		basePriceMinor: 4200,
 		personalisable: false,
