@@ -31,13 +31,20 @@ async function body(request: Request): Promise<Record<string, unknown> | null> {
 	}
 }
 
-/** Runs a cart change and answers with the new summary, or a JSON error the page can show. */
-async function change(event: RequestEvent, fn: (cartId: string, input: Record<string, unknown>) => Promise<unknown>) {
+/**
+ * Parses the request first (so bad input never creates a basket), then runs the change and
+ * answers with the new summary, or a JSON error the page can show.
+ */
+async function change(
+	event: RequestEvent,
+	prepare: (input: Record<string, unknown>) => (cartId: string) => Promise<unknown>
+) {
 	const input = await body(event.request);
 	if (!input) return apiError(400, 'Send a JSON object.');
 	try {
+		const run = prepare(input);
 		const cartId = await ensureCart(event.cookies, event.locals.user?.id ?? null, event.url.protocol === 'https:');
-		await fn(cartId, input);
+		await run(cartId);
 		return json(await cartSummary(cartId));
 	} catch (err) {
 		if (err instanceof CartError) return apiError(err.status, err.message, err.fields);
@@ -69,26 +76,26 @@ export const GET: RequestHandler = async ({ url, cookies }) => {
 
 /** Adds a piece: { slug, wood, quantity?, initials?, style? }. */
 export const POST: RequestHandler = (event) =>
-	change(event, async (cartId, input) => {
-		await addLine(cartId, parse(addLineSchema, input));
+	change(event, (input) => {
+		const line = parse(addLineSchema, input);
+		return (cartId) => addLine(cartId, line);
 	});
 
 /** Changes a quantity { lineId, quantity } or the destination { country }. */
 export const PATCH: RequestHandler = (event) =>
-	change(event, async (cartId, input) => {
+	change(event, (input) => {
 		if ('country' in input) {
 			const { country } = parse(destinationSchema, input);
 			if (!knownCountry(country)) throw new InputError({ country: ['We do not post to that country yet.'] });
-			await setDestination(cartId, country);
-			return;
+			return (cartId) => setDestination(cartId, country);
 		}
 		const { lineId, quantity } = parse(setQuantitySchema, input);
-		await setQuantity(cartId, lineId, quantity);
+		return (cartId) => setQuantity(cartId, lineId, quantity);
 	});
 
 /** Removes a line { lineId }. */
 export const DELETE: RequestHandler = (event) =>
-	change(event, async (cartId, input) => {
+	change(event, (input) => {
 		const { lineId } = parse(removeLineSchema, input);
-		await removeLine(cartId, lineId);
+		return (cartId) => removeLine(cartId, lineId);
 	});
