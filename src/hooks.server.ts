@@ -1,5 +1,5 @@
 import { sequence } from '@sveltejs/kit/hooks';
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import {
 	clearSessionCookie,
 	sessionCookieName,
@@ -7,6 +7,11 @@ import {
 	validateToken
 } from '$lib/server/auth/lucia';
 import { toApiErrorResponse } from '$lib/server/api-errors';
+import { startHoldSweeper } from '$lib/server/hold-sweeper';
+
+export const init: ServerInit = () => {
+	startHoldSweeper();
+};
 
 /** Loads the signed-in user from the session cookie; renews or clears the cookie as needed. */
 const sessionHandle: Handle = async ({ event, resolve }) => {
