@@ -14,6 +14,34 @@ import * as schema from '../db/schema';
 import type { Personalisation, PiecePattern, PieceKind, OrderStatus, Role } from '../db/schema';
 import { WOODS, densityAt12 } from '../../woods';
 import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
+import { computePattern } from '../../pattern';
+
+/** The snapshot the shop would have stored for these initials (same fields, same engine). */
+function demoSnapshot(
+	piece: { pattern: PiecePattern; size: number[] },
+	woodSlug: string,
+	initials: string
+): Personalisation {
+	const { diameterMm, count } = piece.pattern;
+	const split = piece.pattern.split ?? false;
+	const spacingMm = piece.pattern.spacingMm || diameterMm / 2;
+	const [lengthMm, widthMm, thicknessMm] = piece.size;
+	const result = computePattern(
+		{ diameterMm, count, spacingMm, split, initials, woodSlug, widthMm, lengthMm, thicknessMm },
+		{ svg: false }
+	);
+	return {
+		initials,
+		style: split ? 'split' : 'classic',
+		diameterMm,
+		count,
+		spacingMm,
+		split,
+		chipCount: result.chipCount,
+		cutLengthMm: Math.round(result.cutLengthMm),
+		estimateMinutes: Math.round(result.estimateMinutes)
+	};
+}
 
 /** Demo-only accounts, listed in the README and printed by `npm start`. */
 export const DEMO_ACCOUNTS: { email: string; password: string; name: string; role: Role }[] = [
@@ -292,7 +320,7 @@ export const DEMO_ORDERS: DemoOrder[] = [
 		address: addr('201 Ferry Street', 'Marrow Point', 'ME', '04101'),
 		status: 'packed',
 		daysAgo: 19,
-		lines: [{ piece: 'welcome-plate', wood: 'basswood', quantity: 1, initials: 'CALLOW 2026' }]
+		lines: [{ piece: 'welcome-plate', wood: 'basswood', quantity: 1, initials: 'EMC' }]
 	},
 	{
 		ref: 'CS-1005',
@@ -312,7 +340,7 @@ export const DEMO_ORDERS: DemoOrder[] = [
 		status: 'carving',
 		daysAgo: 9,
 		lines: [
-			{ piece: 'twin-rosette-bottle-holder', wood: 'walnut', quantity: 1, initials: 'JV+RH' },
+			{ piece: 'twin-rosette-bottle-holder', wood: 'walnut', quantity: 1, initials: 'JRH' },
 			{ piece: 'coffee-scoop', wood: 'cherry', quantity: 1, fromStock: true }
 		]
 	},
@@ -359,7 +387,7 @@ export const DEMO_ORDERS: DemoOrder[] = [
 		address: addr('22 Cooper Lane', 'Elm Hollow', 'OH', '43001'),
 		status: 'cancelled',
 		daysAgo: 12,
-		lines: [{ piece: 'welcome-plate', wood: 'butternut', quantity: 1, initials: 'ACHTERBERG' }]
+		lines: [{ piece: 'welcome-plate', wood: 'butternut', quantity: 1, initials: 'DKA' }]
 	},
 	{
 		ref: 'CS-1012',
@@ -631,14 +659,7 @@ async function seedOrders(
 			const wood = WOODS.find((w) => w.slug === l.wood)!;
 			const unit = unitPrice(l.piece, l.wood);
 			const personalisation: Personalisation | null = l.initials
-				? {
-						initials: l.initials,
-						style: 'block',
-						diameterMm: piece.pattern.diameterMm,
-						count: piece.pattern.count,
-						spacingMm: piece.pattern.spacingMm ?? 0,
-						split: piece.pattern.split ?? false
-					}
+				? demoSnapshot(piece, l.wood, l.initials)
 				: null;
 			return {
 				pieceId: pieceIds[l.piece],
