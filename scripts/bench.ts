@@ -4,7 +4,7 @@
  */
 import { performance } from 'node:perf_hooks';
 import { computePattern } from '../src/lib/pattern';
-import { readLetterFont } from '../src/lib/server/letter-font-file';
+import { letterFont } from '../src/lib/pattern/letter-font';
 import { templatePdf } from '../src/lib/server/pdf/template';
 
 function median(xs: number[]): number {
@@ -23,7 +23,7 @@ async function timeIt(runs: number, fn: () => unknown | Promise<unknown>): Promi
 	return median(times);
 }
 
-const font = readLetterFont();
+const font = letterFont();
 const input = {
 	diameterMm: 70,
 	count: 3,

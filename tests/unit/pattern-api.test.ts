@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { patternResponse } from '../../src/lib/server/pattern-api';
 import { personalisationSchema } from '../../src/lib/schemas/pattern';
-import { readLetterFont } from '../../src/lib/server/letter-font-file';
+import { letterFont } from '../../src/lib/pattern/letter-font';
 
-const font = readLetterFont();
+const font = letterFont();
 const call = (q: string) => patternResponse(new URLSearchParams(q), font);
 
 describe('GET /api/pattern', () => {

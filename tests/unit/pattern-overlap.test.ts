@@ -1,7 +1,7 @@
 import Flatten from '@flatten-js/core';
 import { describe, expect, it } from 'vitest';
 import { computePattern } from '../../src/lib/pattern';
-import { readLetterFont } from '../../src/lib/server/letter-font-file';
+import { letterFont } from '../../src/lib/pattern/letter-font';
 
 const { point, circle, Polygon, BooleanOperations } = Flatten;
 
@@ -66,7 +66,7 @@ describe('overlapping rosettes: chips are the faces of one arrangement', () => {
 	});
 
 	it('the medallion takes its disc out of the chips and nothing else', () => {
-		const font = readLetterFont();
+		const font = letterFont();
 		const res = computePattern(
 			{ diameterMm: 70, count: 3, initials: 'ABC', widthMm: 100, lengthMm: 300 },
 			{ font, svg: false }

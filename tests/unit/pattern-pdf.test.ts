@@ -1,10 +1,10 @@
 import { PDFDocument, PDFRawStream, PDFArray, decodePDFRawStream, PDFRef } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
 import { computePattern } from '../../src/lib/pattern';
-import { readLetterFont } from '../../src/lib/server/letter-font-file';
+import { letterFont } from '../../src/lib/pattern/letter-font';
 import { templatePdf, tileGrid } from '../../src/lib/server/pdf/template';
 
-const font = readLetterFont();
+const font = letterFont();
 const small = computePattern(
 	{ diameterMm: 60, count: 1, initials: 'LF', widthMm: 90, lengthMm: 120 },
 	{ font }

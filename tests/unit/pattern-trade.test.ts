@@ -3,7 +3,7 @@ import { computePattern } from '../../src/lib/pattern';
 import { layoutBorder, BORDER_DEFAULTS } from '../../src/lib/pattern/borders';
 import { hardnessFactor } from '../../src/lib/pattern/effort';
 import { WOODS } from '../../src/lib/woods';
-import { readLetterFont } from '../../src/lib/server/letter-font-file';
+import { letterFont } from '../../src/lib/pattern/letter-font';
 
 describe('trade practice', () => {
 	it('a 70 mm rosette is drawn with the compass at 35 mm (common practice)', () => {
@@ -116,7 +116,7 @@ describe('fit on the blank', () => {
 });
 
 describe('initials in the medallion', () => {
-	const font = readLetterFont();
+	const font = letterFont();
 	it('centres the letters in the medallion and keeps them inside it with the margin', () => {
 		const res = computePattern(
 			{ diameterMm: 70, count: 3, initials: 'HMW', widthMm: 100, lengthMm: 300 },

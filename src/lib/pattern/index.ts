@@ -23,7 +23,6 @@ import { renderSvg } from './svg';
 import type { ChipKind, DrawnChip, PatternInput, PatternOptions, PatternResult } from './types';
 
 export type * from './types';
-export { glyphSourceFromFont } from './font';
 export type { GlyphSource } from './lettering';
 
 /** Gap between the face drawing and the edge strip, mm. */

@@ -1,8 +1,7 @@
 /**
  * Initials in a plain medallion at the centre of a rosette, at the largest cap height that fits.
- * The outlines come from a font through a small GlyphSource interface, so this file needs no
- * font library and no I/O: the browser and the server each parse the shipped font file and hand
- * it over (see font.ts, $lib/fonts/browser.ts, $lib/server/letter-font.ts).
+ * The outlines come through a small GlyphSource interface, so this file needs no font library
+ * and no I/O: callers hand over letterFont() from letter-font.ts, built from generated data.
  */
 import type { Circle, Point } from './geometry';
 import { fmt } from './geometry';

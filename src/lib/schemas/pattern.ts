@@ -3,6 +3,7 @@
  * checked by the cart) and the carver's layout planner, built from one another.
  */
 import { z } from 'zod';
+import { ROSETTE_STYLES, type RosetteStyle } from '../pattern/styles';
 import { WOODS } from '../woods';
 
 /** Empty query values count as "not given", so defaults apply instead of a zero. */
@@ -42,15 +43,6 @@ export const woodSlugSchema = z
 	.trim()
 	.refine((s) => WOODS.some((w) => w.slug === s), 'Choose one of our woods.');
 
-export const ROSETTE_STYLES = {
-	classic: { split: false, label: 'Classic', hint: 'Six petals, twelve chips a rosette' },
-	split: {
-		split: true,
-		label: 'Split petals',
-		hint: 'Every chip halved: twenty-four smaller chips'
-	}
-} as const;
-export type RosetteStyle = keyof typeof ROSETTE_STYLES;
 export const styleSchema = z.enum(
 	Object.keys(ROSETTE_STYLES) as [RosetteStyle, ...RosetteStyle[]],
 	{

@@ -16,7 +16,7 @@ import {
 	type Personalisation
 } from './db/schema';
 import { jsonValue } from './json-column';
-import { letterFont } from './letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 
 export type LineBlank = { widthMm: number; lengthMm: number; thicknessMm: number };
 

@@ -1,8 +1,9 @@
 import { computePattern } from '$lib/pattern';
-import { initialsSchema, ROSETTE_STYLES, styleSchema } from '$lib/schemas/pattern';
+import { ROSETTE_STYLES } from '$lib/pattern/styles';
+import { initialsSchema, styleSchema } from '$lib/schemas/pattern';
 import type { Personalisation, PiecePattern } from './db/schema';
 import { jsonValue } from './json-column';
-import { letterFont } from './letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 
 type PieceBlank = { pattern: unknown; widthMm: number; lengthMm: number; thicknessMm: number };
 type WoodTones = { slug?: string; toneLight: string; toneDark: string };

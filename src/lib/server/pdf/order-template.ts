@@ -4,7 +4,7 @@
  */
 import { computePattern } from '$lib/pattern';
 import type { GlyphSource } from '$lib/pattern/lettering';
-import { letterFont } from '../letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 import { templatePdf, type Paper } from './template';
 
 export type OrderLineTemplateInput = {

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { letterFont } from '$lib/server/letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 import { patternResponse } from '$lib/server/pattern-api';
 import type { RequestHandler } from './$types';
 

@@ -1,7 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { computePattern } from '$lib/pattern';
 import { patternFieldErrors, patternInputFrom, plannerSchema } from '$lib/schemas/pattern';
-import { letterFont } from '$lib/server/letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 import { templatePdf } from '$lib/server/pdf/template';
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { apiError, requireRole } from '$lib/server/auth/guard';
-import { letterFont } from '$lib/server/letter-font';
+import { letterFont } from '$lib/pattern/letter-font';
 import { orderLineForTemplate } from '$lib/server/order-detail';
 import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';
 import type { RequestHandler } from './$types';
