@@ -18,6 +18,11 @@ function filesUnder(dir: string): string[] {
 /** XML namespace names are identifiers, not addresses: the browser never fetches them. */
 const NAMESPACES =
 	/^https?:\/\/www\.w3\.org\/(2000\/svg|1999\/xhtml|1999\/xlink|1998\/Math\/MathML|XML\/1998\/namespace|2000\/xmlns\/?)$/;
+/**
+ * JSON Schema dialect ids (`$schema`) are identifiers too: zod, which the owner's layout planner
+ * runs in the browser to check its fields, carries them for its schema export and never fetches them.
+ */
+const SCHEMA_DIALECTS = /^https?:\/\/json-schema\.org\/(draft[-/][\w-]+\/schema#?|draft\/\d{4}-\d{2}\/schema)$/;
 const LOOPBACK = /^https?:\/\/(localhost|127\.0\.0\.1)([:/]|$)/;
 /** Svelte's production error messages end in a link to the error's explanation: text, never fetched. */
 const SVELTE_ERROR_TEXT = /^https:\/\/svelte\.dev\/e\//;
@@ -26,7 +31,11 @@ function outsideUrls(text: string): string[] {
 	// `/*! … */` comments are licence banners (kept as the licences ask), not requests.
 	const code = text.replace(/\/\*![\s\S]*?\*\//g, '');
 	return (code.match(/https?:\/\/[^\s"'`)<>\\]+/g) ?? []).filter(
-		(u) => !NAMESPACES.test(u) && !LOOPBACK.test(u) && !SVELTE_ERROR_TEXT.test(u)
+		(u) =>
+			!NAMESPACES.test(u) &&
+			!SCHEMA_DIALECTS.test(u) &&
+			!LOOPBACK.test(u) &&
+			!SVELTE_ERROR_TEXT.test(u)
 	);
 }
 
