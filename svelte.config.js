@@ -9,7 +9,14 @@ const config = {
 		// The test command builds into its own folders so it never overwrites `build/` under a running app.
 		adapter: adapter({ out: process.env.CHIPSTALL_BUILD_DIR || 'build' }),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
-		csrf: { trustedOrigins: [] }
+		csrf: { trustedOrigins: [] },
+		typescript: {
+			// Type-check (and type-aware lint) the scripts, stand-ins and root config files too.
+			config: (tsconfig) => {
+				tsconfig.include.push('../scripts/**/*.ts', '../mocks/**/*.ts', '../*.config.ts');
+				return tsconfig;
+			}
+		}
 	}
 };
 

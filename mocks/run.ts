@@ -6,7 +6,8 @@ export function runUntilSignal(name: string, start: () => Promise<{ close(): Pro
 	start()
 		.then((server) => {
 			const stop = () => {
-				server.close().finally(() => process.exit(0));
+				// The process exits in `finally`, so a failed close has nowhere to be reported.
+				void server.close().finally(() => process.exit(0));
 			};
 			process.once('SIGINT', stop);
 			process.once('SIGTERM', stop);

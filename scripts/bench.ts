@@ -12,7 +12,7 @@ function median(xs: number[]): number {
 	return s[Math.floor(s.length / 2)];
 }
 
-async function timeIt(runs: number, fn: () => unknown | Promise<unknown>): Promise<number> {
+async function timeIt(runs: number, fn: () => unknown): Promise<number> {
 	for (let i = 0; i < Math.min(20, runs); i++) await fn(); // warm up
 	const times: number[] = [];
 	for (let i = 0; i < runs; i++) {

@@ -3,6 +3,7 @@
  * and a JSON API on a second port. The app reaches it only through nodemailer.
  */
 import http from 'node:http';
+import type net from 'node:net';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import { config } from '../../src/lib/server/config';
@@ -16,7 +17,7 @@ export type MailServerOptions = {
 	host?: string;
 };
 
-const listen = (server: { listen: Function; once: Function }, port: number, host: string) =>
+const listen = (server: net.Server, port: number, host: string) =>
 	new Promise<void>((resolve, reject) => {
 		server.once('error', reject);
 		server.listen(port, host, () => resolve());
@@ -40,7 +41,7 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 					store.add(parsed, to, from);
 					cb();
 				})
-				.catch((err) => cb(err));
+				.catch((err: Error) => cb(err));
 		}
 	});
 

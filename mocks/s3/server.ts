@@ -1,4 +1,3 @@
-/// <reference path="./s3rver.d.ts" />
 /**
  * S3 stand-in: s3rver on loopback with the photo bucket created at start. Data lives in
  * `.data/s3` (git-ignored) unless S3_DIR points elsewhere (the tests use a temp dir).

@@ -36,7 +36,7 @@ const readBody = (req: http.IncomingMessage) =>
 		req.on('data', (c: Buffer) => {
 			size += c.length;
 			if (size > 1_000_000)
-				reject(new ApiError(413 as 400, 'invalid_request_error', 'Request body too large.'));
+				reject(new ApiError(413, 'invalid_request_error', 'Request body too large.'));
 			else chunks.push(c);
 		});
 		req.on('end', () => resolve(Buffer.concat(chunks).toString('utf8')));

@@ -28,6 +28,8 @@ const MAX_LIFETIME = 24 * 60 * 60;
 function lineItem(raw: unknown, i: number): LineItem {
 	const at = `line_items[${i}]`;
 	const li = p.obj(raw as Form, at) ?? {};
+	// The error echoes what was sent, as Stripe does; a nested value showing as [object Object] is fine.
+	// eslint-disable-next-line @typescript-eslint/no-base-to-string
 	if (li.price !== undefined) throw noSuch('price', String(li.price), `${at}[price]`);
 	const pd = p.obj(li.price_data, `${at}[price_data]`);
 	if (!pd) throw missing(`${at}[price_data]`);

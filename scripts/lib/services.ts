@@ -55,7 +55,12 @@ export function mocks(): Mock[] {
 			ports: [config.mail.port, config.mail.inboxPort]
 		},
 		{ name: 's3', file: 'mocks/s3/server.ts', ports: [config.s3.port] },
-		{ name: 'stripe', file: 'mocks/stripe/server.ts', ports: [config.stripe.port] }
+		{
+			name: 'stripe',
+			file: 'mocks/stripe/server.ts',
+			// Same fallback as the stand-in itself uses when the API port is cleared for production.
+			ports: [config.stripe.port ?? 12111]
+		}
 	];
 }
 
@@ -86,7 +91,8 @@ export function spawnTracked(
 
 async function waitForPorts(s: Started, ports: number[], timeoutMs = 30_000) {
 	const deadline = Date.now() + timeoutMs;
-	let exitCode: number | null = null;
+	// Widened on purpose: the exit callback sets it, which TypeScript's narrowing cannot see.
+	let exitCode = null as number | null;
 	s.child.once('exit', (code) => (exitCode = code ?? -1));
 	while (Date.now() < deadline) {
 		const up = await Promise.all(ports.map((p) => portAnswers(p)));

@@ -26,7 +26,8 @@ export function minorDigits(currency: string): number {
 }
 
 function assertMinor(minor: number) {
-	if (!Number.isSafeInteger(minor)) throw new Error(`Amount must be whole minor units, got ${minor}`);
+	if (!Number.isSafeInteger(minor))
+		throw new Error(`Amount must be whole minor units, got ${minor}`);
 }
 
 /** Shows an amount the way the buyer's locale writes it, with the currency's own decimals. */
@@ -54,7 +55,8 @@ export function parseMajor(text: string, currency: string): number | null {
 /** Line total: unit price × quantity, exact in minor units. */
 export function lineTotal(unitMinor: number, quantity: number): number {
 	assertMinor(unitMinor);
-	if (!Number.isInteger(quantity) || quantity < 0) throw new Error('Quantity must be a whole number');
+	if (!Number.isInteger(quantity) || quantity < 0)
+		throw new Error('Quantity must be a whole number');
 	return unitMinor * quantity;
 }
 
@@ -65,7 +67,8 @@ export function lineTotal(unitMinor: number, quantity: number): number {
  */
 export function lineTax(lineMinor: number, rateBp: number): number {
 	assertMinor(lineMinor);
-	if (!Number.isInteger(rateBp) || rateBp < 0) throw new Error('Tax rate must be whole basis points');
+	if (!Number.isInteger(rateBp) || rateBp < 0)
+		throw new Error('Tax rate must be whole basis points');
 	if (lineMinor < 0) throw new Error('Line total cannot be negative');
 	return Math.floor((lineMinor * rateBp + 5000) / 10000);
 }
@@ -82,5 +85,10 @@ export function totals(lines: PricedLine[], rateBp: number, shippingMinor: numbe
 		tax += lineTax(t, rateBp);
 	}
 	assertMinor(shippingMinor);
-	return { subtotalMinor: subtotal, taxMinor: tax, shippingMinor, totalMinor: subtotal + tax + shippingMinor };
+	return {
+		subtotalMinor: subtotal,
+		taxMinor: tax,
+		shippingMinor,
+		totalMinor: subtotal + tax + shippingMinor
+	};
 }

@@ -7,6 +7,7 @@ export function safeNext(next: string | null | undefined, fallback = '/'): strin
 		return fallback;
 	}
 	// Control characters can turn into "//" once a browser strips them.
+	// eslint-disable-next-line no-control-regex -- matching control characters is the point here
 	if (/[\u0000-\u001f\u007f]/.test(next)) return fallback;
 	const base = 'http://chipstall.invalid';
 	let url: URL;

@@ -66,7 +66,11 @@ export type ParcelItem = { size: PieceSize; densityKgM3: number; quantity: numbe
  * boxes (a simplification: pieces nest rather than stack in exact shapes). Carriers bill the
  * greater of actual weight and dimensional weight, each rounded up to the whole pound.
  */
-export function billableGrams(items: ParcelItem[]): { actualGrams: number; dimGrams: number; billable: number } {
+export function billableGrams(items: ParcelItem[]): {
+	actualGrams: number;
+	dimGrams: number;
+	billable: number;
+} {
 	let actual = 0;
 	let volumeIn3 = 0;
 	for (const it of items) {
@@ -116,8 +120,29 @@ export function shippingCharge(rates: RateRow[], country: string, items: ParcelI
 
 /** Countries we post to, ISO 3166-1 alpha-2; names come from Intl.DisplayNames. */
 export const COUNTRIES = [
-	'US', 'CA', 'MX', 'GB', 'IE', 'DE', 'FR', 'NL', 'BE', 'DK', 'SE', 'NO', 'FI', 'AT', 'CH',
-	'IT', 'ES', 'PT', 'PL', 'CZ', 'AU', 'NZ', 'JP'
+	'US',
+	'CA',
+	'MX',
+	'GB',
+	'IE',
+	'DE',
+	'FR',
+	'NL',
+	'BE',
+	'DK',
+	'SE',
+	'NO',
+	'FI',
+	'AT',
+	'CH',
+	'IT',
+	'ES',
+	'PT',
+	'PL',
+	'CZ',
+	'AU',
+	'NZ',
+	'JP'
 ] as const;
 
 export function countryName(code: string, locale = 'en'): string {

@@ -117,7 +117,8 @@ test('a declined card brings the buyer back to the basket with nothing paid', as
 	await expect(row.getByTestId('order-status')).toHaveText('cancelled');
 	// No confirmation e-mail for an unpaid order.
 	const res = await fetch(
-		process.env.MAIL_INBOX_URL || `http://127.0.0.1:${process.env.MAIL_INBOX_PORT || 8025}/api/messages`
+		process.env.MAIL_INBOX_URL ||
+			`http://127.0.0.1:${process.env.MAIL_INBOX_PORT || 8025}/api/messages`
 	);
 	const list = (await res.json()) as { to: string[] }[];
 	expect(list.some((m) => m.to.includes(email))).toBe(false);

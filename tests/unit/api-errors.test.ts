@@ -3,7 +3,7 @@ import { isHttpError, json } from '@sveltejs/kit';
 import { toApiErrorResponse } from '$lib/server/api-errors';
 import { requireRoleApi } from '$lib/server/auth/guard';
 
-const read = async (r: Response) => ({ status: r.status, body: await r.json() });
+const read = async (r: Response) => ({ status: r.status, body: (await r.json()) as unknown });
 
 describe('API error bodies', () => {
 	it("turns SvelteKit's `{ message }` into `{ error }`, keeping status and fields", async () => {

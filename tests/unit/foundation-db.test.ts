@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { drizzle } from 'drizzle-orm/mysql2';
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import { eq } from 'drizzle-orm';
 import mysql from 'mysql2/promise';
 import * as schema from '../../src/lib/server/db/schema';
@@ -22,7 +22,7 @@ scratchUrl.pathname = `/${scratchName}`;
 
 let server: mysql.Connection;
 let conn: mysql.Connection;
-let db: ReturnType<typeof drizzle<typeof schema>>;
+let db: MySql2Database<typeof schema>;
 
 beforeAll(async () => {
 	const serverUrl = new URL(mainUrl);

@@ -34,7 +34,7 @@ describe('mail stand-in', () => {
 		});
 
 		const list = (await (await fetch(`${api}/api/messages`)).json()) as Array<
-			Record<string, unknown>
+			Record<string, unknown> & { id: string }
 		>;
 		expect(list.map((m) => m.subject)).toEqual(['Second', 'Your rosette plate is on its way']);
 		const first = list[1];
@@ -44,7 +44,9 @@ describe('mail stand-in', () => {
 		expect(first.html).toContain('<b>1Z999</b>');
 		expect(typeof first.date).toBe('string');
 
-		const filtered = await (await fetch(`${api}/api/messages?to=ADA.buyer@example.test`)).json();
+		const filtered = (await (
+			await fetch(`${api}/api/messages?to=ADA.buyer@example.test`)
+		).json()) as unknown[];
 		expect(filtered).toHaveLength(1);
 
 		const one = await fetch(`${api}/api/messages/${first.id}`);

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { formatMoney, lineTax, lineTotal, minorDigits, parseMajor, totals } from '../../src/lib/money';
+import {
+	formatMoney,
+	lineTax,
+	lineTotal,
+	minorDigits,
+	parseMajor,
+	totals
+} from '../../src/lib/money';
 
 describe('minor units per currency', () => {
 	it('follows ISO 4217 minor-unit digits', () => {
@@ -61,6 +68,11 @@ describe('line totals and tax rounding', () => {
 			1250
 		);
 		// 59.97 × 7.25 % = 4.3478 → 4.35; 45.00 × 7.25 % = 3.2625 → 3.26 (hand arithmetic).
-		expect(t).toEqual({ subtotalMinor: 10497, taxMinor: 761, shippingMinor: 1250, totalMinor: 12508 });
+		expect(t).toEqual({
+			subtotalMinor: 10497,
+			taxMinor: 761,
+			shippingMinor: 1250,
+			totalMinor: 12508
+		});
 	});
 });

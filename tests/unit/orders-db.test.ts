@@ -17,6 +17,7 @@ import {
 	releaseOrder
 } from '../../src/lib/server/orders';
 import type { CheckoutInput } from '../../src/lib/schemas/checkout';
+import { jsonValue } from '../../src/lib/server/json-column';
 
 const tag = `t${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -44,7 +45,9 @@ async function shelf() {
 	const [row] = await db
 		.select({ q: s.stock.quantity })
 		.from(s.stock)
-		.where(and(eq(s.stock.pieceId, pieceId), eq(s.stock.woodId, woodId), eq(s.stock.place, 'workshop')));
+		.where(
+			and(eq(s.stock.pieceId, pieceId), eq(s.stock.woodId, woodId), eq(s.stock.place, 'workshop'))
+		);
 	return row.q;
 }
 
@@ -95,7 +98,10 @@ beforeAll(async () => {
 
 afterAll(async () => {
 	// Leave the shared test database as other tests expect it: our rows only.
-	const ours = await db.select({ id: s.orders.id }).from(s.orders).where(eq(s.orders.email, buyer.email));
+	const ours = await db
+		.select({ id: s.orders.id })
+		.from(s.orders)
+		.where(eq(s.orders.email, buyer.email));
 	for (const o of ours) await db.delete(s.orders).where(eq(s.orders.id, o.id));
 });
 
@@ -110,7 +116,9 @@ describe('creating an order from a cart', () => {
 		const [row] = await db.select().from(s.orders).where(eq(s.orders.id, order.id));
 		expect(row.status).toBe('pending');
 		// The hold ends when the payment session does (DATETIME keeps whole seconds).
-		expect(Math.floor(row.holdExpiresAt!.getTime() / 1000)).toBe(Math.floor(order.holdExpiresAt.getTime() / 1000));
+		expect(Math.floor(row.holdExpiresAt!.getTime() / 1000)).toBe(
+			Math.floor(order.holdExpiresAt.getTime() / 1000)
+		);
 
 		expect(await releaseOrder(order.id)).toBe(true);
 		expect(await shelf()).toBe(2);
@@ -127,7 +135,7 @@ describe('creating an order from a cart', () => {
 			createPendingOrder(b, buyer, null)
 		]);
 		const ok = results.filter((r) => r.status === 'fulfilled');
-		const failed = results.filter((r) => r.status === 'rejected') as PromiseRejectedResult[];
+		const failed = results.filter((r): r is PromiseRejectedResult => r.status === 'rejected');
 		expect(ok).toHaveLength(1);
 		expect(failed).toHaveLength(1);
 		expect(failed[0].reason).toBeInstanceOf(OrderError);
@@ -143,7 +151,9 @@ describe('creating an order from a cart', () => {
 	it('refuses a stale total and writes nothing', async () => {
 		await setShelf(1);
 		const cart = await newCart(1);
-		await expect(createPendingOrder(cart, { ...buyer, seenTotal: 1 }, null)).rejects.toMatchObject({ code: 'price' });
+		await expect(createPendingOrder(cart, { ...buyer, seenTotal: 1 }, null)).rejects.toMatchObject({
+			code: 'price'
+		});
 		expect(await shelf()).toBe(1);
 		expect(await db.select().from(s.orders).where(eq(s.orders.cartId, cart))).toHaveLength(0);
 	});
@@ -163,7 +173,7 @@ describe('creating an order from a cart', () => {
 		expect(row.readyBy).toBe('2026-03-12'); // 10 lead days
 		const [line] = await db.select().from(s.orderLines).where(eq(s.orderLines.orderId, order.id));
 		expect(line.fromStock).toBe(false);
-		const snap = typeof line.personalisation === 'string' ? JSON.parse(line.personalisation) : line.personalisation;
+		const snap = jsonValue<{ initials: string; chipCount: number }>(line.personalisation);
 		expect(snap.initials).toBe('AB');
 		expect(snap.chipCount).toBeGreaterThan(0);
 		await releaseOrder(order.id);
@@ -175,8 +185,17 @@ describe('payment events', () => {
 		await setShelf(1);
 		const cart = await newCart(1);
 		const order = await createPendingOrder(cart, buyer, null);
-		await db.update(s.orders).set({ checkoutSessionId: `cs_${tag}_1` }).where(eq(s.orders.id, order.id));
-		const event = { eventId: `evt_${tag}_1`, type: 'checkout.session.completed', sessionId: `cs_${tag}_1`, ref: order.ref, paymentIntentId: 'pi_1' };
+		await db
+			.update(s.orders)
+			.set({ checkoutSessionId: `cs_${tag}_1` })
+			.where(eq(s.orders.id, order.id));
+		const event = {
+			eventId: `evt_${tag}_1`,
+			type: 'checkout.session.completed',
+			sessionId: `cs_${tag}_1`,
+			ref: order.ref,
+			paymentIntentId: 'pi_1'
+		};
 
 		expect(await markPaid(event)).toBe(order.id);
 		expect(await markPaid(event)).toBeNull();
@@ -185,23 +204,42 @@ describe('payment events', () => {
 		expect(row.paymentIntentId).toBe('pi_1');
 		expect(await shelf()).toBe(0); // the hold became the sale
 		expect(await db.select().from(s.cartLines).where(eq(s.cartLines.cartId, cart))).toHaveLength(0);
-		expect(await db.select().from(s.processedEvents).where(eq(s.processedEvents.id, event.eventId))).toHaveLength(1);
+		expect(
+			await db.select().from(s.processedEvents).where(eq(s.processedEvents.id, event.eventId))
+		).toHaveLength(1);
 		// An expiry arriving after payment does not undo it.
-		expect(await markExpired({ ...event, eventId: `evt_${tag}_1x`, type: 'checkout.session.expired' })).toBe(false);
+		expect(
+			await markExpired({ ...event, eventId: `evt_${tag}_1x`, type: 'checkout.session.expired' })
+		).toBe(false);
 		expect(await shelf()).toBe(0);
 	});
 
 	it('releases the hold when the session expires, and when a hold outlives its session', async () => {
 		await setShelf(1);
 		const order = await createPendingOrder(await newCart(1), buyer, null);
-		await db.update(s.orders).set({ checkoutSessionId: `cs_${tag}_2` }).where(eq(s.orders.id, order.id));
+		await db
+			.update(s.orders)
+			.set({ checkoutSessionId: `cs_${tag}_2` })
+			.where(eq(s.orders.id, order.id));
 		expect(await shelf()).toBe(0);
-		expect(await markExpired({ eventId: `evt_${tag}_2`, type: 'checkout.session.expired', sessionId: `cs_${tag}_2`, ref: order.ref })).toBe(true);
+		expect(
+			await markExpired({
+				eventId: `evt_${tag}_2`,
+				type: 'checkout.session.expired',
+				sessionId: `cs_${tag}_2`,
+				ref: order.ref
+			})
+		).toBe(true);
 		expect(await shelf()).toBe(1);
 		const [row] = await db.select().from(s.orders).where(eq(s.orders.id, order.id));
 		expect(row.status).toBe('cancelled');
 
-		const late = await createPendingOrder(await newCart(1), buyer, null, new Date(Date.now() - 3 * 3600_000));
+		const late = await createPendingOrder(
+			await newCart(1),
+			buyer,
+			null,
+			new Date(Date.now() - 3 * 3600_000)
+		);
 		expect(await shelf()).toBe(0);
 		expect(await releaseExpiredHolds()).toBeGreaterThanOrEqual(1);
 		expect(await shelf()).toBe(1);

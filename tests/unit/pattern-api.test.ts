@@ -68,12 +68,12 @@ describe('GET /api/pattern handler (route module)', () => {
 			>[0]) as Response;
 		const ok = call('diameter=70&count=1&initials=ab&width=100&length=100');
 		expect(ok.status).toBe(200);
-		const body = await ok.json();
+		const body = (await ok.json()) as { letterCount: number; chips: { kind: string }[] };
 		expect(body.letterCount).toBe(2);
 		expect(body.chips.filter((c: { kind: string }) => c.kind === 'letter')).toHaveLength(2);
 		const bad = call('diameter=70&count=1&width=100&length=100&wood=oak-from-nowhere');
 		expect(bad.status).toBe(400);
-		const err = await bad.json();
+		const err = (await bad.json()) as { fields: Record<string, string[]> };
 		expect(err.fields.wood[0]).toMatch(/woods/);
 	});
 });

@@ -20,7 +20,11 @@ let ref = '';
 
 function sign(payload: string, opts: { secret?: string; timestamp?: number } = {}) {
 	// Reference signer: the SDK's own test-header generator.
-	return sdk.webhooks.generateTestHeaderString({ payload, secret: opts.secret ?? secret, timestamp: opts.timestamp });
+	return sdk.webhooks.generateTestHeaderString({
+		payload,
+		secret: opts.secret ?? secret,
+		timestamp: opts.timestamp
+	});
 }
 
 function call(payload: string, header: string | null) {
@@ -84,11 +88,19 @@ beforeAll(async () => {
 		unitPriceMinor: 4800,
 		lineTotalMinor: 4800,
 		fromStock: false,
-		personalisation: { initials: 'WT', style: 'classic', diameterMm: 60, count: 1, spacingMm: 30, split: false }
+		personalisation: {
+			initials: 'WT',
+			style: 'classic',
+			diameterMm: 60,
+			count: 1,
+			spacingMm: 30,
+			split: false
+		}
 	});
 });
 
-const status = async () => (await db.select().from(s.orders).where(eq(s.orders.id, orderId)))[0].status;
+const status = async () =>
+	(await db.select().from(s.orders).where(eq(s.orders.id, orderId)))[0].status;
 
 describe('POST /api/payments/webhook', () => {
 	it('answers 400 to a missing, wrong-secret, tampered or old signature and changes nothing', async () => {
@@ -101,6 +113,7 @@ describe('POST /api/payments/webhook', () => {
 		const old = sign(body, { timestamp: Math.floor(Date.now() / 1000) - 600 });
 		const res = await call(body, old);
 		expect(res.status).toBe(400);
+		// eslint-disable-next-line @typescript-eslint/no-unsafe-assignment -- vitest types asymmetric matchers as any
 		expect(await res.json()).toMatchObject({ error: expect.any(String) });
 		expect(await status()).toBe('pending');
 	});
@@ -118,12 +131,22 @@ describe('POST /api/payments/webhook', () => {
 		const events = await db
 			.select()
 			.from(s.processedEvents)
-			.where(and(eq(s.processedEvents.id, `evt_${tag}_ok`), eq(s.processedEvents.type, 'checkout.session.completed')));
+			.where(
+				and(
+					eq(s.processedEvents.id, `evt_${tag}_ok`),
+					eq(s.processedEvents.type, 'checkout.session.completed')
+				)
+			);
 		expect(events).toHaveLength(1);
 	});
 
 	it('accepts and ignores event types it does not handle', async () => {
-		const body = JSON.stringify({ id: `evt_${tag}_other`, object: 'event', type: 'charge.updated', data: { object: {} } });
+		const body = JSON.stringify({
+			id: `evt_${tag}_other`,
+			object: 'event',
+			type: 'charge.updated',
+			data: { object: {} }
+		});
 		const res = await call(body, sign(body));
 		expect(res.status).toBe(200);
 		expect(await res.json()).toMatchObject({ handled: false });

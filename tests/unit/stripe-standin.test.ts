@@ -390,9 +390,11 @@ describe('Stripe stand-in with the official SDK', () => {
 			port: standIn.port,
 			protocol: 'http'
 		});
-		const err = await wrong.checkout.sessions.retrieve('cs_test_x').catch((e) => e);
+		const err: unknown = await wrong.checkout.sessions
+			.retrieve('cs_test_x')
+			.catch((e: unknown) => e);
 		expect(err).toBeInstanceOf(Stripe.errors.StripeAuthenticationError);
-		expect(err.statusCode).toBe(401);
+		expect((err as { statusCode?: number }).statusCode).toBe(401);
 		const none = await fetch(`${standIn.origin}/v1/refunds/re_x`);
 		expect(none.status).toBe(401);
 	});

@@ -28,10 +28,10 @@ function handlers(src: string): { name: string; body: string }[] {
 	const found: { name: string; body: string }[] = [];
 	const starts: { name: string; at: number }[] = [];
 	for (const m of src.matchAll(/export const (load|GET|POST|PUT|PATCH|DELETE)\b/g)) {
-		starts.push({ name: m[1], at: m.index! });
+		starts.push({ name: m[1], at: m.index });
 	}
 	for (const m of src.matchAll(/export (?:async )?function (load|GET|POST|PUT|PATCH|DELETE)\b/g)) {
-		starts.push({ name: m[1], at: m.index! });
+		starts.push({ name: m[1], at: m.index });
 	}
 	const actionsAt = src.search(/export const actions\b/);
 	if (actionsAt >= 0) {
@@ -39,7 +39,7 @@ function handlers(src: string): { name: string; body: string }[] {
 		for (const m of src
 			.slice(actionsAt)
 			.matchAll(/^\t(?:(\w+)\s*:\s*async\b|async (\w+)\s*\()/gm)) {
-			starts.push({ name: `action ${m[1] ?? m[2]}`, at: actionsAt + m.index! });
+			starts.push({ name: `action ${m[1] ?? m[2]}`, at: actionsAt + m.index });
 		}
 	}
 	starts.sort((a, b) => a.at - b.at);

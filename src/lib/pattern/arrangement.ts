@@ -21,7 +21,6 @@
 import {
 	type Circle,
 	type Point,
-	EPS,
 	TAU,
 	angleOf,
 	arcAreaTerm,
@@ -320,7 +319,7 @@ export function buildArrangement(curves: CurveSpec[]): Arrangement {
 		if (s !== null) groups[gi].marks.push({ s, v: verts.id(q) });
 	};
 	// Ends of drawn parts, and any other curve they touch (T-junctions).
-	groups.forEach((g, gi) => {
+	groups.forEach((g) => {
 		if (g.kind === 'circle' && g.full) return;
 		for (const [f, t] of g.spans) {
 			for (const q of [pointAt(g, f), pointAt(g, t)]) {

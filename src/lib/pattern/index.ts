@@ -105,7 +105,7 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
 	}
 
 	const letterChips = (lettering?.letters ?? []).map((l) => ({
-		kind: 'letter' as ChipKind,
+		kind: 'letter' as const,
 		areaMm2: l.areaMm2,
 		cutLengthMm: l.outlineMm
 	}));

@@ -133,4 +133,3 @@ export function renderSvg(d: Drawing, tones: Tones, id = 'rz', pad = 4, view?: V
 	parts.push('</svg>');
 	return parts.join('');
 }
-

@@ -22,7 +22,11 @@ export const addLineSchema = z.object({
 
 export const setQuantitySchema = z.object({
 	lineId: z.coerce.number().int().positive('Unknown line.'),
-	quantity: z.coerce.number().int('Choose a whole number.').min(0).max(10, 'At most 10 of one piece.')
+	quantity: z.coerce
+		.number()
+		.int('Choose a whole number.')
+		.min(0)
+		.max(10, 'At most 10 of one piece.')
 });
 
 export const removeLineSchema = setQuantitySchema.pick({ lineId: true });

@@ -46,10 +46,18 @@ export const checkoutSchema = z
 		} else if (rule && !rule[0].test(v.postcode)) {
 			ctx.addIssue({ code: 'custom', path: ['postcode'], message: rule[1] });
 		} else if (!rule && !/^[A-Z0-9][A-Z0-9 -]{1,10}$/.test(v.postcode)) {
-			ctx.addIssue({ code: 'custom', path: ['postcode'], message: 'Use letters, digits and spaces only.' });
+			ctx.addIssue({
+				code: 'custom',
+				path: ['postcode'],
+				message: 'Use letters, digits and spaces only.'
+			});
 		}
 		if (v.country === 'US' && !/^[A-Za-z]{2}$/.test(v.region ?? '')) {
-			ctx.addIssue({ code: 'custom', path: ['region'], message: 'Enter the two-letter state, like CO.' });
+			ctx.addIssue({
+				code: 'custom',
+				path: ['region'],
+				message: 'Enter the two-letter state, like CO.'
+			});
 		}
 	});
 

@@ -1,7 +1,15 @@
 import type { Cookies } from '@sveltejs/kit';
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from './db';
-import { cartLines, carts, photos, pieces, pieceWoods, woods, type Personalisation } from './db/schema';
+import {
+	cartLines,
+	carts,
+	photos,
+	pieces,
+	pieceWoods,
+	woods,
+	type Personalisation
+} from './db/schema';
 import { priceCart, stockOnHand } from './pricing';
 import { personalise, previewSvg } from './personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
@@ -62,7 +70,8 @@ export async function addLine(cartId: string, input: AddLineInput) {
 		.select()
 		.from(pieces)
 		.where(and(eq(pieces.slug, input.slug), eq(pieces.active, true)));
-	if (!piece) throw new CartError('We do not offer that piece any more.', 404, { slug: ['Unknown piece.'] });
+	if (!piece)
+		throw new CartError('We do not offer that piece any more.', 404, { slug: ['Unknown piece.'] });
 
 	const [wood] = await db
 		.select()
@@ -161,7 +170,10 @@ export async function removeLine(cartId: string, lineId: number) {
 }
 
 export async function setDestination(cartId: string, country: string) {
-	await db.update(carts).set({ destination: country, updatedAt: new Date() }).where(eq(carts.id, cartId));
+	await db
+		.update(carts)
+		.set({ destination: country, updatedAt: new Date() })
+		.where(eq(carts.id, cartId));
 }
 
 async function touch(cartId: string) {
@@ -189,12 +201,17 @@ export async function cartSummary(cartId: string | null, country?: string) {
 	const pieceIds = [...new Set(priced.lines.map((l) => l.pieceId))];
 	const firstPhotos = pieceIds.length
 		? await db
-				.select({ pieceId: photos.pieceId, storageKey: photos.storageKey, position: photos.position })
+				.select({
+					pieceId: photos.pieceId,
+					storageKey: photos.storageKey,
+					position: photos.position
+				})
 				.from(photos)
 				.where(inArray(photos.pieceId, pieceIds))
 				.orderBy(asc(photos.position))
 		: [];
-	const photoOf = (pieceId: number) => firstPhotos.find((p) => p.pieceId === pieceId)?.storageKey ?? null;
+	const photoOf = (pieceId: number) =>
+		firstPhotos.find((p) => p.pieceId === pieceId)?.storageKey ?? null;
 	return {
 		country: destination,
 		zone: priced.zone,

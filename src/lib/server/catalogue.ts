@@ -88,7 +88,8 @@ export async function listPieces(q: ShopQuery) {
 		const shown = q.wood ? woodList.filter((w) => w.slug === q.wood) : woodList;
 		const inStock = shown.reduce((n, w) => n + w.inStock, 0);
 		const fromMinor =
-			r.basePriceMinor + Math.min(...(shown.length ? shown : [{ priceAddOnMinor: 0 }]).map((w) => w.priceAddOnMinor));
+			r.basePriceMinor +
+			Math.min(...(shown.length ? shown : [{ priceAddOnMinor: 0 }]).map((w) => w.priceAddOnMinor));
 		return {
 			slug: r.slug,
 			title: r.title,
@@ -98,7 +99,12 @@ export async function listPieces(q: ShopQuery) {
 			personalisable: r.personalisable,
 			leadDays: r.leadDays,
 			fromMinor,
-			woods: woodList.map(({ slug, name, toneLight, toneDark }) => ({ slug, name, toneLight, toneDark })),
+			woods: woodList.map(({ slug, name, toneLight, toneDark }) => ({
+				slug,
+				name,
+				toneLight,
+				toneDark
+			})),
 			inStock,
 			photo: photoMap.get(r.id)?.[0] ?? null,
 			createdAt: r.createdAt.getTime(),
@@ -108,7 +114,10 @@ export async function listPieces(q: ShopQuery) {
 	list = list.filter((p) => p.matchesWood && (!q.ready || p.inStock > 0));
 
 	const byTitle = (a: { title: string }, b: { title: string }) => a.title.localeCompare(b.title);
-	const sorters: Record<ShopQuery['sort'], (a: (typeof list)[number], b: (typeof list)[number]) => number> = {
+	const sorters: Record<
+		ShopQuery['sort'],
+		(a: (typeof list)[number], b: (typeof list)[number]) => number
+	> = {
 		featured: (a, b) => Number(b.inStock > 0) - Number(a.inStock > 0) || byTitle(a, b),
 		'price-low': (a, b) => a.fromMinor - b.fromMinor || byTitle(a, b),
 		'price-high': (a, b) => b.fromMinor - a.fromMinor || byTitle(a, b),

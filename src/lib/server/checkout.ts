@@ -6,7 +6,9 @@ type PendingOrder = { id: number; ref: string; holdExpiresAt: Date; priced: Pric
 
 function describe(l: PricedCart['lines'][number]) {
 	const p = l.personalisation;
-	return p ? `${l.woodName}, initials ${p.initials}, ${p.style} rosette` : `${l.woodName}, ready now`;
+	return p
+		? `${l.woodName}, initials ${p.initials}, ${p.style} rosette`
+		: `${l.woodName}, ready now`;
 }
 
 /**

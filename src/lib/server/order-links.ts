@@ -7,7 +7,10 @@ import { config } from './config';
  * what the confirmation e-mail already said, plus status and tracking.
  */
 function mac(ref: string): string {
-	return createHmac('sha256', config.linkSecret).update(`order:${ref}`).digest('base64url').slice(0, 32);
+	return createHmac('sha256', config.linkSecret)
+		.update(`order:${ref}`)
+		.digest('base64url')
+		.slice(0, 32);
 }
 
 export function orderPath(ref: string): string {

@@ -5,7 +5,10 @@ import { orderLink } from './order-links';
 import type { OrderDetail } from './orders';
 
 const esc = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+	s.replace(
+		/[&<>"']/g,
+		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!
+	);
 
 export function readyByWords(iso: string | null) {
 	if (!iso) return 'soon';
@@ -31,7 +34,12 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 	});
 	const ready = readyByWords(order.readyBy);
 	const a = order.address;
-	const addr = [a.line1, a.line2, `${a.city}${a.region ? `, ${a.region}` : ''} ${a.postcode}`, countryName(a.country)]
+	const addr = [
+		a.line1,
+		a.line2,
+		`${a.city}${a.region ? `, ${a.region}` : ''} ${a.postcode}`,
+		countryName(a.country)
+	]
 		.filter(Boolean)
 		.join('\n');
 	const totals: [string, number][] = [

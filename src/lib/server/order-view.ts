@@ -8,11 +8,22 @@ import { orderPath } from './order-links';
 /** What a buyer's order page shows: no payment ids, no internal fields. */
 export async function buyerOrderView(order: OrderDetail) {
 	const pieceRows = await db
-		.select({ id: pieces.id, slug: pieces.slug, widthMm: pieces.widthMm, lengthMm: pieces.lengthMm, thicknessMm: pieces.thicknessMm })
+		.select({
+			id: pieces.id,
+			slug: pieces.slug,
+			widthMm: pieces.widthMm,
+			lengthMm: pieces.lengthMm,
+			thicknessMm: pieces.thicknessMm
+		})
 		.from(pieces)
 		.where(inArray(pieces.id, [0, ...order.lines.map((l) => l.pieceId)]));
 	const woodRows = await db
-		.select({ id: woods.id, slug: woods.slug, toneLight: woods.toneLight, toneDark: woods.toneDark })
+		.select({
+			id: woods.id,
+			slug: woods.slug,
+			toneLight: woods.toneLight,
+			toneDark: woods.toneDark
+		})
 		.from(woods)
 		.where(inArray(woods.id, [0, ...order.lines.map((l) => l.woodId)]));
 	return {
@@ -32,7 +43,11 @@ export async function buyerOrderView(order: OrderDetail) {
 		createdAt: order.createdAt,
 		paidAt: order.paidAt,
 		link: orderPath(order.ref),
-		shipments: order.shipments.map((s) => ({ carrier: s.carrier, trackingNumber: s.trackingNumber, shippedAt: s.shippedAt })),
+		shipments: order.shipments.map((s) => ({
+			carrier: s.carrier,
+			trackingNumber: s.trackingNumber,
+			shippedAt: s.shippedAt
+		})),
 		lines: order.lines.map((l) => {
 			const piece = pieceRows.find((p) => p.id === l.pieceId);
 			const wood = woodRows.find((w) => w.id === l.woodId);

@@ -68,7 +68,10 @@ async function putBackStock(tx: Tx, pieceId: number, woodId: number, qty: number
 		.where(and(eq(stock.pieceId, pieceId), eq(stock.woodId, woodId), eq(stock.place, WORKSHOP)))
 		.for('update');
 	if (row) {
-		await tx.update(stock).set({ quantity: sql`${stock.quantity} + ${qty}` }).where(eq(stock.id, row.id));
+		await tx
+			.update(stock)
+			.set({ quantity: sql`${stock.quantity} + ${qty}` })
+			.where(eq(stock.id, row.id));
 	} else {
 		await tx.insert(stock).values({ pieceId, woodId, place: WORKSHOP, quantity: qty });
 	}
@@ -87,14 +90,19 @@ export async function createPendingOrder(
 ) {
 	return db.transaction(async (tx) => {
 		// Lock the cart so a double-submitted form cannot turn one cart into two orders at once.
-		const [cart] = await tx.select({ id: carts.id }).from(carts).where(eq(carts.id, cartId)).for('update');
+		const [cart] = await tx
+			.select({ id: carts.id })
+			.from(carts)
+			.where(eq(carts.id, cartId))
+			.for('update');
 		if (!cart) throw new OrderError('Your basket is empty.', 409, 'empty');
 
 		const priced = await priceCart(cartId, buyer.country, tx);
 		if (priced.lines.length === 0) throw new OrderError('Your basket is empty.', 409, 'empty');
 		if (!priced.shippingKnown) throw new OrderError(priced.problems.at(-1)!.message, 409, 'rates');
 		const blocking = priced.problems.filter((p) => p.lineId !== 0);
-		if (blocking.length) throw new OrderError(blocking.map((p) => p.message).join(' '), 409, 'stock');
+		if (blocking.length)
+			throw new OrderError(blocking.map((p) => p.message).join(' '), 409, 'stock');
 		if (buyer.seenTotal !== undefined && buyer.seenTotal !== priced.totalMinor) {
 			throw new OrderError(
 				'The total has changed since you opened this page. Please check the new total and pay again.',
@@ -179,7 +187,10 @@ async function releaseInTx(tx: Tx, orderId: number): Promise<boolean> {
 		.from(orderLines)
 		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, true)));
 	for (const l of held) await putBackStock(tx, l.pieceId, l.woodId, l.quantity);
-	await tx.update(orders).set({ status: 'cancelled', holdExpiresAt: null }).where(eq(orders.id, orderId));
+	await tx
+		.update(orders)
+		.set({ status: 'cancelled', holdExpiresAt: null })
+		.where(eq(orders.id, orderId));
 	return true;
 }
 
@@ -193,16 +204,32 @@ export async function releaseExpiredHolds(now = new Date()) {
 	const stale = await db
 		.select({ id: orders.id })
 		.from(orders)
-		.where(and(eq(orders.status, 'pending'), isNotNull(orders.holdExpiresAt), lt(orders.holdExpiresAt, now)));
+		.where(
+			and(
+				eq(orders.status, 'pending'),
+				isNotNull(orders.holdExpiresAt),
+				lt(orders.holdExpiresAt, now)
+			)
+		);
 	for (const o of stale) await releaseOrder(o.id);
 	return stale.length;
 }
 
-type PaidEvent = { eventId: string; type: string; sessionId: string; ref?: string; paymentIntentId?: string | null };
+type PaidEvent = {
+	eventId: string;
+	type: string;
+	sessionId: string;
+	ref?: string;
+	paymentIntentId?: string | null;
+};
 
 /** Records an event id; false when it was already handled (the same id arrives again). */
 async function firstTime(tx: Tx, eventId: string, type: string) {
-	const [seen] = await tx.select({ id: processedEvents.id }).from(processedEvents).where(eq(processedEvents.id, eventId)).for('update');
+	const [seen] = await tx
+		.select({ id: processedEvents.id })
+		.from(processedEvents)
+		.where(eq(processedEvents.id, eventId))
+		.for('update');
 	if (seen) return false;
 	await tx.insert(processedEvents).values({ id: eventId, type, processedAt: new Date() });
 	return true;
@@ -240,7 +267,10 @@ export async function markPaid(e: PaidEvent, now = new Date()): Promise<number |
 			const lines = await tx.select().from(orderLines).where(eq(orderLines.orderId, order.id));
 			const lead = Math.max(
 				0,
-				...(await leadDaysOf(tx, lines.filter((l) => !l.fromStock).map((l) => l.pieceId)))
+				...(await leadDaysOf(
+					tx,
+					lines.filter((l) => !l.fromStock).map((l) => l.pieceId)
+				))
 			);
 			await tx
 				.update(orders)
@@ -265,7 +295,10 @@ export async function markPaid(e: PaidEvent, now = new Date()): Promise<number |
 
 async function leadDaysOf(tx: Tx, pieceIds: number[]) {
 	if (pieceIds.length === 0) return [];
-	const rows = await tx.select({ d: pieces.leadDays }).from(pieces).where(inArray(pieces.id, pieceIds));
+	const rows = await tx
+		.select({ d: pieces.leadDays })
+		.from(pieces)
+		.where(inArray(pieces.id, pieceIds));
 	return rows.map((r) => r.d);
 }
 
@@ -304,7 +337,11 @@ export async function orderBySession(sessionId: string) {
 async function withDetails(order: typeof orders.$inferSelect) {
 	const [lines, ships] = await Promise.all([
 		db.select().from(orderLines).where(eq(orderLines.orderId, order.id)).orderBy(orderLines.id),
-		db.select().from(shipments).where(eq(shipments.orderId, order.id)).orderBy(desc(shipments.shippedAt))
+		db
+			.select()
+			.from(shipments)
+			.where(eq(shipments.orderId, order.id))
+			.orderBy(desc(shipments.shippedAt))
 	]);
 	return {
 		...order,
@@ -347,7 +384,10 @@ export async function workshopOrders(limit = 200) {
 			status: orders.status,
 			createdAt: orders.createdAt,
 			readyBy: orders.readyBy,
-			personalised: sql<number>`(select count(*) from ${orderLines} where ${orderLines.orderId} = ${orders.id} and ${orderLines.personalisation} is not null)`.mapWith(Number)
+			personalised:
+				sql<number>`(select count(*) from ${orderLines} where ${orderLines.orderId} = ${orders.id} and ${orderLines.personalisation} is not null)`.mapWith(
+					Number
+				)
 		})
 		.from(orders)
 		.orderBy(desc(orders.createdAt), desc(orders.id))

@@ -11,7 +11,7 @@ export async function handlePaymentEvent(event: Stripe.Event, origin: string) {
 	if (event.type !== 'checkout.session.completed' && event.type !== 'checkout.session.expired') {
 		return { handled: false as const };
 	}
-	const session = event.data.object as Stripe.Checkout.Session;
+	const session = event.data.object;
 	const base = {
 		eventId: event.id,
 		type: event.type,
@@ -23,7 +23,9 @@ export async function handlePaymentEvent(event: Stripe.Event, origin: string) {
 	}
 	if (session.payment_status !== 'paid') return { handled: true as const, changed: false };
 	const paymentIntentId =
-		typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+		typeof session.payment_intent === 'string'
+			? session.payment_intent
+			: (session.payment_intent?.id ?? null);
 	const orderId = await markPaid({ ...base, paymentIntentId });
 	if (orderId !== null) {
 		const order = await orderById(orderId);

@@ -23,7 +23,8 @@ export function personalise(
 		return { ok: false, fields: { initials: [parsedInitials.error.issues[0].message] } };
 	}
 	const parsedStyle = styleSchema.safeParse(input.style || 'classic');
-	if (!parsedStyle.success) return { ok: false, fields: { style: [parsedStyle.error.issues[0].message] } };
+	if (!parsedStyle.success)
+		return { ok: false, fields: { style: [parsedStyle.error.issues[0].message] } };
 	const initials = parsedInitials.data;
 	const style = parsedStyle.data;
 	const split = ROSETTE_STYLES[style].split;

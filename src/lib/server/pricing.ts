@@ -56,7 +56,9 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 	const problems: { lineId: number; message: string }[] = [];
 
 	const lines = rows.map((r) => {
-		const personalisation = r.personalisation ? jsonValue<Personalisation>(r.personalisation) : null;
+		const personalisation = r.personalisation
+			? jsonValue<Personalisation>(r.personalisation)
+			: null;
 		const unitMinor = r.basePriceMinor + r.priceAddOnMinor;
 		const totalMinor = lineTotal(unitMinor, r.quantity);
 		// Personalised pieces are carved to order; plain ones come from finished stock.
@@ -96,7 +98,10 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 		}))
 	);
 	if (lines.length && ship.priceMinor === null) {
-		problems.push({ lineId: 0, message: 'This parcel is too heavy for our rates to that country; write to us.' });
+		problems.push({
+			lineId: 0,
+			message: 'This parcel is too heavy for our rates to that country; write to us.'
+		});
 	}
 	const subtotalMinor = lines.reduce((n, l) => n + l.totalMinor, 0);
 	const taxMinor = lines.reduce((n, l) => n + l.taxMinor, 0);

@@ -310,7 +310,9 @@ export const boothSales = mysqlTable('booth_sales', {
 		.notNull()
 		.references(() => fairs.id, { onDelete: 'cascade' }),
 	method: mysqlEnum('method', paymentMethods).notNull(),
-	lines: json('lines').$type<{ pieceId: number; woodId: number; quantity: number; unitPriceMinor: number }[]>().notNull(),
+	lines: json('lines')
+		.$type<{ pieceId: number; woodId: number; quantity: number; unitPriceMinor: number }[]>()
+		.notNull(),
 	subtotalMinor: int('subtotal_minor').notNull(),
 	taxMinor: int('tax_minor').notNull().default(0),
 	totalMinor: int('total_minor').notNull(),

@@ -113,10 +113,11 @@ export const DEMO_PIECES: DemoPiece[] = [
 		slug: 'twin-rosette-bottle-holder',
 		title: 'Twin-rosette bottle holder',
 		kind: 'bottle_holder',
-		summary: 'A longer bottle holder with two rosettes overlapping by a radius, initials at the heart.',
+		summary:
+			'A longer bottle holder with two rosettes overlapping by a radius, initials at the heart.',
 		description:
 			'Made for couples and house-warmings: two rosettes laid out along the board so the second ' +
-			'starts where the first one\'s circle crosses the centre line, with the initials in the first.',
+			"starts where the first one's circle crosses the centre line, with the initials in the first.",
 		size: [330, 105, 19],
 		basePriceMinor: 5800,
 		personalisable: true,
@@ -183,8 +184,7 @@ export const DEMO_PIECES: DemoPiece[] = [
 		title: 'Trinket box',
 		kind: 'box',
 		summary: 'A small square box for rings and coins, a rosette on the lid.',
-		description:
-			'A small square box with a sliding lid and a six-petal rosette. Ready to ship.',
+		description: 'A small square box with a sliding lid and a six-petal rosette. Ready to ship.',
 		size: [95, 95, 50],
 		basePriceMinor: 4200,
 		personalisable: false,
@@ -487,16 +487,14 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 				.values(p.woods.map((w) => ({ pieceId: id, woodId: woodIds[w] })));
 			const shelf = Object.entries(p.stock);
 			if (shelf.length) {
-				await tx
-					.insert(schema.stock)
-					.values(
-						shelf.map(([w, quantity]) => ({
-							pieceId: id,
-							woodId: woodIds[w],
-							place: 'workshop',
-							quantity
-						}))
-					);
+				await tx.insert(schema.stock).values(
+					shelf.map(([w, quantity]) => ({
+						pieceId: id,
+						woodId: woodIds[w],
+						place: 'workshop',
+						quantity
+					}))
+				);
 			}
 		}
 
@@ -518,7 +516,7 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 			await extra.run(db, seeded);
 		} catch (err) {
 			console.warn(
-				`Demo extra "${extra.name}" failed: ${err instanceof Error ? err.message : err}`
+				`Demo extra "${extra.name}" failed: ${err instanceof Error ? err.message : String(err)}`
 			);
 		}
 	}

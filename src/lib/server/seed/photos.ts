@@ -6,6 +6,7 @@
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import * as schema from '../db/schema';
+import { jsonValue } from '../json-column';
 import { storePhoto } from '../storage';
 import type { DemoExtra } from './extras';
 
@@ -62,9 +63,19 @@ function outline(kind: string, fill: string, edge: string) {
 		case 'plate':
 		case 'ornament': {
 			const r = kind === 'plate' ? 360 : 300;
-			const loop = kind === 'ornament' ? `<circle cx="${cx}" cy="${cy - r - 28}" r="26" fill="none" stroke="${edge}" stroke-width="8"/>` : '';
-			const rim = kind === 'plate' ? `<circle cx="${cx}" cy="${cy}" r="${r - 50}" fill="none" stroke="${edge}" stroke-opacity=".35" stroke-width="4"/>` : '';
-			return { shape: `${loop}<circle cx="${cx}" cy="${cy}" r="${r}" ${common}/>${rim}`, box: [cx - r, cy - r, 2 * r, 2 * r], rosette: [cx, cy, r * 0.5] };
+			const loop =
+				kind === 'ornament'
+					? `<circle cx="${cx}" cy="${cy - r - 28}" r="26" fill="none" stroke="${edge}" stroke-width="8"/>`
+					: '';
+			const rim =
+				kind === 'plate'
+					? `<circle cx="${cx}" cy="${cy}" r="${r - 50}" fill="none" stroke="${edge}" stroke-opacity=".35" stroke-width="4"/>`
+					: '';
+			return {
+				shape: `${loop}<circle cx="${cx}" cy="${cy}" r="${r}" ${common}/>${rim}`,
+				box: [cx - r, cy - r, 2 * r, 2 * r],
+				rosette: [cx, cy, r * 0.5]
+			};
 		}
 		case 'spoon':
 			return {
@@ -93,18 +104,34 @@ function outline(kind: string, fill: string, edge: string) {
 	}
 }
 
-export function pieceSvg(kind: string, count: number, tone: { light: string; dark: string }, seed: number) {
+export function pieceSvg(
+	kind: string,
+	count: number,
+	tone: { light: string; dark: string },
+	seed: number
+) {
 	const o = outline(kind, tone.light, tone.dark);
 	const [bx, by, bw, bh] = o.box;
 	const [rx, ry, rr] = o.rosette;
 	const rosettes =
 		count >= 2 && kind === 'bottle_holder'
-			? [rosette(rx - 130, ry, rr * 0.85, tone.dark, tone.light), rosette(rx + 150, ry, rr * 0.85, tone.dark, tone.light)]
+			? [
+					rosette(rx - 130, ry, rr * 0.85, tone.dark, tone.light),
+					rosette(rx + 150, ry, rr * 0.85, tone.dark, tone.light)
+				]
 			: count >= 3 && kind === 'plate'
-				? [0, 1, 2, 3, 4, 5].map((k) => {
-						const a = (k * Math.PI) / 3;
-						return rosette(rx + 250 * Math.cos(a), ry + 250 * Math.sin(a), 62, tone.dark, tone.light);
-					}).concat(rosette(rx, ry, 120, tone.dark, tone.light))
+				? [0, 1, 2, 3, 4, 5]
+						.map((k) => {
+							const a = (k * Math.PI) / 3;
+							return rosette(
+								rx + 250 * Math.cos(a),
+								ry + 250 * Math.sin(a),
+								62,
+								tone.dark,
+								tone.light
+							);
+						})
+						.concat(rosette(rx, ry, 120, tone.dark, tone.light))
 				: [rosette(rx, ry, rr, tone.dark, tone.light)];
 	return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
 <defs>
@@ -125,13 +152,18 @@ export const demoPhotos: DemoExtra = {
 		const woodRows = await db.select().from(schema.woods);
 		for (const [slug, pieceId] of Object.entries(seeded.pieceIds)) {
 			const [piece] = await db.select().from(schema.pieces).where(eq(schema.pieces.id, pieceId));
-			const woodIds = (await db.select().from(schema.pieceWoods).where(eq(schema.pieceWoods.pieceId, pieceId))).map(
-				(r) => r.woodId
-			);
+			const woodIds = (
+				await db.select().from(schema.pieceWoods).where(eq(schema.pieceWoods.pieceId, pieceId))
+			).map((r) => r.woodId);
 			const woods = woodRows.filter((w) => woodIds.includes(w.id)).slice(0, 2);
-			const pattern = typeof piece.pattern === 'string' ? JSON.parse(piece.pattern) : piece.pattern;
+			const pattern = jsonValue<typeof piece.pattern | null>(piece.pattern);
 			for (const [i, w] of woods.entries()) {
-				const svg = pieceSvg(piece.kind, pattern?.count ?? 1, { light: w.toneLight, dark: w.toneDark }, pieceId + i);
+				const svg = pieceSvg(
+					piece.kind,
+					pattern?.count ?? 1,
+					{ light: w.toneLight, dark: w.toneDark },
+					pieceId + i
+				);
 				const png = await sharp(Buffer.from(svg)).png().toBuffer();
 				const key = `pieces/${slug}/${w.slug}`;
 				const size = await storePhoto(key, png);

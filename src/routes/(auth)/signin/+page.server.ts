@@ -6,7 +6,7 @@ import { authenticate } from '$lib/server/auth/users';
 import { invalidateSession, signIn } from '$lib/server/auth/lucia';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ locals, url }) => {
+export const load: PageServerLoad = ({ locals, url }) => {
 	const next = safeNext(url.searchParams.get('next'), '');
 	if (locals.user) redirect(303, next || homeFor(locals.user.role));
 	return { next };

@@ -3,7 +3,7 @@ import { clearSessionCookie, invalidateSession } from '$lib/server/auth/lucia';
 import type { Actions, PageServerLoad } from './$types';
 
 /** A visit (GET) only asks; signing out is a POST, so a link or a prefetch cannot do it. */
-export const load: PageServerLoad = async ({ locals }) => {
+export const load: PageServerLoad = ({ locals }) => {
 	if (!locals.user) redirect(303, '/');
 	return { name: locals.user.name };
 };

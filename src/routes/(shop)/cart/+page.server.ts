@@ -1,7 +1,20 @@
 import { fail } from '@sveltejs/kit';
-import { CartError, cartIdFrom, cartSummary, ensureCart, removeLine, setDestination, setQuantity } from '$lib/server/cart';
+import {
+	CartError,
+	cartIdFrom,
+	cartSummary,
+	ensureCart,
+	removeLine,
+	setDestination,
+	setQuantity
+} from '$lib/server/cart';
 import { returnUnpaid } from '$lib/server/checkout-return';
-import { destinationSchema, fieldErrors, removeLineSchema, setQuantitySchema } from '$lib/schemas/cart';
+import {
+	destinationSchema,
+	fieldErrors,
+	removeLineSchema,
+	setQuantitySchema
+} from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -16,14 +29,22 @@ export const load: PageServerLoad = async ({ cookies, url }) => {
 };
 
 /** The same changes as /api/cart, for browsers without JavaScript. */
-async function act(event: RequestEvent, fn: (cartId: string, form: Record<string, FormDataEntryValue>) => Promise<void>) {
+async function act(
+	event: RequestEvent,
+	fn: (cartId: string, form: Record<string, FormDataEntryValue>) => Promise<void>
+) {
 	const form = Object.fromEntries(await event.request.formData());
 	try {
-		const cartId = await ensureCart(event.cookies, event.locals.user?.id ?? null, event.url.protocol === 'https:');
+		const cartId = await ensureCart(
+			event.cookies,
+			event.locals.user?.id ?? null,
+			event.url.protocol === 'https:'
+		);
 		await fn(cartId, form);
 		return { ok: true };
 	} catch (err) {
-		if (err instanceof CartError) return fail(err.status === 404 ? 404 : 400, { error: err.message, fields: err.fields });
+		if (err instanceof CartError)
+			return fail(err.status === 404 ? 404 : 400, { error: err.message, fields: err.fields });
 		if (err instanceof FormError) return fail(400, { error: err.message, fields: err.fields });
 		throw err;
 	}

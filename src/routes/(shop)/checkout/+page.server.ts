@@ -1,11 +1,18 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
 import { createCheckoutSession } from '$lib/server/checkout';
-import { attachCheckoutSession, createPendingOrder, OrderError, releaseExpiredHolds, releaseOrder } from '$lib/server/orders';
+import {
+	attachCheckoutSession,
+	createPendingOrder,
+	OrderError,
+	releaseExpiredHolds,
+	releaseOrder
+} from '$lib/server/orders';
 import { checkoutSchema } from '$lib/schemas/checkout';
 import { fieldErrors } from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
 import type { Actions, PageServerLoad } from './$types';
+import { formText } from '$lib/form-text';
 
 export const load: PageServerLoad = async ({ cookies, locals }) => {
 	const summary = await cartSummary(cartIdFrom(cookies));
@@ -21,7 +28,9 @@ export const actions: Actions = {
 	default: async ({ request, cookies, locals, url }) => {
 		const raw = Object.fromEntries(await request.formData());
 		const values = Object.fromEntries(
-			Object.entries(raw).filter(([k]) => k !== 'seenTotal').map(([k, v]) => [k, String(v)])
+			Object.entries(raw)
+				.filter(([k]) => k !== 'seenTotal')
+				.map(([k, v]) => [k, formText(v)])
 		);
 		const parsed = checkoutSchema.safeParse(raw);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
@@ -35,7 +44,8 @@ export const actions: Actions = {
 		try {
 			order = await createPendingOrder(cartId, parsed.data, locals.user?.id ?? null);
 		} catch (err) {
-			if (err instanceof OrderError) return fail(err.status, { errors: { form: [err.message] }, values, code: err.code });
+			if (err instanceof OrderError)
+				return fail(err.status, { errors: { form: [err.message] }, values, code: err.code });
 			throw err;
 		}
 
@@ -45,14 +55,21 @@ export const actions: Actions = {
 		} catch {
 			await releaseOrder(order.id);
 			return fail(503, {
-				errors: { form: ['The payment service did not answer. Nothing was charged; please try again in a minute.'] },
+				errors: {
+					form: [
+						'The payment service did not answer. Nothing was charged; please try again in a minute.'
+					]
+				},
 				values
 			});
 		}
 		await attachCheckoutSession(order.id, session.id);
 		if (!session.url) {
 			await releaseOrder(order.id);
-			return fail(503, { errors: { form: ['The payment page could not be opened. Nothing was charged.'] }, values });
+			return fail(503, {
+				errors: { form: ['The payment page could not be opened. Nothing was charged.'] },
+				values
+			});
 		}
 		redirect(303, session.url);
 	}

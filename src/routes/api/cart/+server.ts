@@ -24,8 +24,8 @@ const knownCountry = (c: string) => (COUNTRIES as readonly string[]).includes(c)
 
 async function body(request: Request): Promise<Record<string, unknown> | null> {
 	try {
-		const v = await request.json();
-		return v && typeof v === 'object' && !Array.isArray(v) ? v : null;
+		const v: unknown = await request.json();
+		return v && typeof v === 'object' && !Array.isArray(v) ? (v as Record<string, unknown>) : null;
 	} catch {
 		return null;
 	}
@@ -43,7 +43,11 @@ async function change(
 	if (!input) return apiError(400, 'Send a JSON object.');
 	try {
 		const run = prepare(input);
-		const cartId = await ensureCart(event.cookies, event.locals.user?.id ?? null, event.url.protocol === 'https:');
+		const cartId = await ensureCart(
+			event.cookies,
+			event.locals.user?.id ?? null,
+			event.url.protocol === 'https:'
+		);
 		await run(cartId);
 		return json(await cartSummary(cartId));
 	} catch (err) {
@@ -59,7 +63,14 @@ class InputError extends Error {
 	}
 }
 
-function parse<T>(schema: { safeParse: (v: unknown) => { success: true; data: T } | { success: false; error: import('zod').ZodError } }, v: unknown): T {
+function parse<T>(
+	schema: {
+		safeParse: (
+			v: unknown
+		) => { success: true; data: T } | { success: false; error: import('zod').ZodError };
+	},
+	v: unknown
+): T {
 	const r = schema.safeParse(v);
 	if (!r.success) throw new InputError(fieldErrors(r.error));
 	return r.data;
@@ -69,7 +80,9 @@ function parse<T>(schema: { safeParse: (v: unknown) => { success: true; data: T 
 export const GET: RequestHandler = async ({ url, cookies }) => {
 	const country = url.searchParams.get('country')?.toUpperCase();
 	if (country && !knownCountry(country)) {
-		return apiError(400, 'We do not post to that country yet.', { country: ['Choose a country from the list.'] });
+		return apiError(400, 'We do not post to that country yet.', {
+			country: ['Choose a country from the list.']
+		});
 	}
 	return json(await cartSummary(cartIdFrom(cookies), country));
 };
@@ -86,7 +99,8 @@ export const PATCH: RequestHandler = (event) =>
 	change(event, (input) => {
 		if ('country' in input) {
 			const { country } = parse(destinationSchema, input);
-			if (!knownCountry(country)) throw new InputError({ country: ['We do not post to that country yet.'] });
+			if (!knownCountry(country))
+				throw new InputError({ country: ['We do not post to that country yet.'] });
 			return (cartId) => setDestination(cartId, country);
 		}
 		const { lineId, quantity } = parse(setQuantitySchema, input);

@@ -25,7 +25,7 @@ const DEFAULTS: Record<string, string> = {
 	triangles: '2'
 };
 
-export const load: PageServerLoad = async (event) => {
+export const load: PageServerLoad = (event) => {
 	requireRole(event, 'owner');
 	const values = { ...DEFAULTS };
 	for (const key of Object.keys(DEFAULTS)) {

@@ -4,6 +4,7 @@ import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
 import { addLineSchema, fieldErrors } from '$lib/schemas/cart';
 import { hardnessWords, weightWords } from '$lib/woods';
 import type { Actions, PageServerLoad } from './$types';
+import { formText } from '$lib/form-text';
 
 export const load: PageServerLoad = async ({ params }) => {
 	const piece = await getPiece(params.slug);
@@ -35,10 +36,10 @@ export const actions: Actions = {
 		const personalised = form.mode === 'personalised';
 		const values = {
 			mode: personalised ? 'personalised' : 'ready',
-			initials: String(form.initials ?? ''),
-			wood: String(form.wood ?? ''),
-			style: String(form.style ?? ''),
-			quantity: String(form.quantity ?? '1')
+			initials: formText(form.initials),
+			wood: formText(form.wood),
+			style: formText(form.style),
+			quantity: formText(form.quantity, '1')
 		};
 		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
 		const errors: Record<string, string[]> = parsed.success ? {} : fieldErrors(parsed.error);
