@@ -146,7 +146,7 @@ export const DEMO_PIECES: DemoPiece[] = [
 	},
 	{
 		slug: 'rim-rosette-serving-plate',
-		title: 'Serving plate with a rosette rim',
+		title: 'Serving plate with a rosette band',
 		kind: 'plate',
 		summary: 'A shallow serving plate with a band of small overlapping rosettes, food-safe finish.',
 		description:

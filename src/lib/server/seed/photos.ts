@@ -19,7 +19,8 @@ function rosette(cx: number, cy: number, r: number, dark: string, light: string)
 		`<circle cx="${cx}" cy="${cy}" r="${r}" fill="none" stroke="${dark}" stroke-opacity=".55" stroke-width="${r * 0.03}"/>`
 	];
 	for (let k = 0; k < 6; k++) {
-		const a = (k * Math.PI) / 3 - Math.PI / 2;
+		// Stepping starts on the horizontal centre line, so neighbours meet at petal tips.
+		const a = (k * Math.PI) / 3;
 		const px = cx + r * Math.cos(a);
 		const py = cy + r * Math.sin(a);
 		const mx = (cx + px) / 2;
@@ -113,26 +114,13 @@ export function pieceSvg(
 	const o = outline(kind, tone.light, tone.dark);
 	const [bx, by, bw, bh] = o.box;
 	const [rx, ry, rr] = o.rosette;
-	const rosettes =
-		count >= 2 && kind === 'bottle_holder'
-			? [
-					rosette(rx - 130, ry, rr * 0.85, tone.dark, tone.light),
-					rosette(rx + 150, ry, rr * 0.85, tone.dark, tone.light)
-				]
-			: count >= 3 && kind === 'plate'
-				? [0, 1, 2, 3, 4, 5]
-						.map((k) => {
-							const a = (k * Math.PI) / 3;
-							return rosette(
-								rx + 250 * Math.cos(a),
-								ry + 250 * Math.sin(a),
-								62,
-								tone.dark,
-								tone.light
-							);
-						})
-						.concat(rosette(rx, ry, 120, tone.dark, tone.light))
-				: [rosette(rx, ry, rr, tone.dark, tone.light)];
+	// Several rosettes overlap along a line, each centre on the last one's petal tip (spacing =
+	// radius), as the layout engine lays them out; plates carry the band above the plain centre.
+	const r = count >= 2 ? Math.min(rr, ((kind === 'plate' ? 0.6 : 0.8) * bw) / (count + 1)) : rr;
+	const rowY = count >= 2 && kind === 'plate' ? by + bh * 0.3 : ry;
+	const rosettes = Array.from({ length: Math.max(1, count) }, (_, k) =>
+		rosette(rx + (k - (count - 1) / 2) * r, rowY, r, tone.dark, tone.light)
+	);
 	return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
 <defs>
 <radialGradient id="bg" cx="50%" cy="40%" r="75%"><stop offset="0" stop-color="#f8f1e6"/><stop offset="1" stop-color="#e4d5bd"/></radialGradient>
