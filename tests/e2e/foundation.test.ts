@@ -22,7 +22,8 @@ const NAMESPACES =
  * JSON Schema dialect ids (`$schema`) are identifiers too: zod, which the owner's layout planner
  * runs in the browser to check its fields, carries them for its schema export and never fetches them.
  */
-const SCHEMA_DIALECTS = /^https?:\/\/json-schema\.org\/(draft[-/][\w-]+\/schema#?|draft\/\d{4}-\d{2}\/schema)$/;
+const SCHEMA_DIALECTS =
+	/^https?:\/\/json-schema\.org\/(draft[-/][\w-]+\/schema#?|draft\/\d{4}-\d{2}\/schema)$/;
 const LOOPBACK = /^https?:\/\/(localhost|127\.0\.0\.1)([:/]|$)/;
 /** Svelte's production error messages end in a link to the error's explanation: text, never fetched. */
 const SVELTE_ERROR_TEXT = /^https:\/\/svelte\.dev\/e\//;

@@ -2,7 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import { inflateSync } from 'node:zlib';
 import { expect, test, type Download, type Page } from '@playwright/test';
-import { PDFDocument, PDFName, PDFRawStream, PDFArray, PDFRef } from 'pdf-lib';
+import { PDFDocument, PDFName, PDFRawStream, PDFArray } from 'pdf-lib';
 import { signInAs } from './helpers/auth';
 
 /**
@@ -16,6 +16,25 @@ import { signInAs } from './helpers/auth';
 const MM = 72 / 25.4;
 const A4 = { w: 210 * MM, h: 297 * MM };
 const LETTER = { w: 8.5 * 72, h: 11 * 72 };
+
+/** A refusal from our API: a message and, per field, what is wrong with it. */
+interface ApiError {
+	error: string;
+	fields: Record<string, string[]>;
+}
+
+/** The parts of GET /api/pattern's answer these tests read. */
+interface PatternAnswer {
+	compassRadiusMm: number;
+	rosettes: { x: number; y: number; r: number }[];
+	chips: { kind: string; areaMm2: number; cutLengthMm: number }[];
+	chipCount: number;
+	cutLengthMm: number;
+	estimateMinutes: number;
+	warnings: unknown;
+	steps: string[];
+	svg: string;
+}
 
 async function pdfOf(download: Download) {
 	const path = await download.path();
@@ -46,7 +65,7 @@ function pdfText(path: string, doc: PDFDocument): string {
 		const contents = page.node.get(PDFName.of('Contents'));
 		const refs = contents instanceof PDFArray ? contents.asArray() : [contents];
 		for (const ref of refs) {
-			const stream = doc.context.lookup(ref as PDFRef);
+			const stream = doc.context.lookup(ref);
 			if (stream instanceof PDFRawStream) out.push(inflateSync(stream.contents).toString('latin1'));
 		}
 	}
@@ -100,7 +119,7 @@ test.describe('personaliser on the shop', () => {
 				return { x: b.x, y: b.y, width: b.width, height: b.height };
 			};
 			return {
-				m: box(circle as SVGCircleElement),
+				m: box(circle),
 				l: box(letters as SVGPathElement),
 				d: letters.getAttribute('d') ?? ''
 			};
@@ -231,7 +250,7 @@ test.describe('order line template', () => {
 
 		const bad = await page.request.get(`${base}?paper=a3`);
 		expect(bad.status()).toBe(400);
-		expect((await bad.json()).fields.paper[0]).toMatch(/a4 or letter/i);
+		expect(((await bad.json()) as ApiError).fields.paper[0]).toMatch(/a4 or letter/i);
 
 		expect(
 			(await page.request.get(`/workshop/orders/CS-9999/lines/${id}/template.pdf`)).status()
@@ -250,7 +269,7 @@ test.describe('order line template', () => {
 			`/workshop/orders/CS-1006/lines/${scoop}/template.pdf`
 		);
 		expect(notPersonal.status()).toBe(404);
-		expect((await notPersonal.json()).error).toMatch(/not personalised/);
+		expect(((await notPersonal.json()) as ApiError).error).toMatch(/not personalised/);
 		// An unknown order page is a 404 too.
 		expect((await page.goto('/workshop/orders/CS-9999'))!.status()).toBe(404);
 	});
@@ -262,7 +281,7 @@ test.describe('pattern API', () => {
 			'/api/pattern?diameter=70&count=3&width=100&length=300&initials=ab&wood=cherry'
 		);
 		expect(res.status()).toBe(200);
-		const body = await res.json();
+		const body = (await res.json()) as PatternAnswer;
 		// Common practice: a 70 mm rosette is drawn with the compass at 35 mm.
 		expect(body.compassRadiusMm).toBe(35);
 		expect(body.rosettes).toHaveLength(3);
@@ -304,7 +323,7 @@ test.describe('pattern API', () => {
 			'/api/pattern?diameter=abc&count=0&width=10&initials=A1&wood=oak-ish'
 		);
 		expect(res.status()).toBe(400);
-		const body = await res.json();
+		const body = (await res.json()) as ApiError;
 		expect(typeof body.error).toBe('string');
 		expect(body.fields.diameter[0]).toMatch(/number of millimetres/);
 		expect(body.fields.count[0]).toMatch(/at least one/i);
