@@ -27,6 +27,8 @@ const SCHEMA_DIALECTS =
 const LOOPBACK = /^https?:\/\/(localhost|127\.0\.0\.1)([:/]|$)/;
 /** Svelte's production error messages end in a link to the error's explanation: text, never fetched. */
 const SVELTE_ERROR_TEXT = /^https:\/\/svelte\.dev\/e\//;
+/** A scheme with no host name after it (`http://[${host}]` built at run time) addresses nothing. */
+const NO_HOST = /^https?:\/\/(\[?\$\{|$)/;
 
 function outsideUrls(text: string): string[] {
 	// `/*! … */` comments are licence banners (kept as the licences ask), not requests.
@@ -36,7 +38,8 @@ function outsideUrls(text: string): string[] {
 			!NAMESPACES.test(u) &&
 			!SCHEMA_DIALECTS.test(u) &&
 			!LOOPBACK.test(u) &&
-			!SVELTE_ERROR_TEXT.test(u)
+			!SVELTE_ERROR_TEXT.test(u) &&
+			!NO_HOST.test(u)
 	);
 }
 
