@@ -21,11 +21,14 @@ export const addLineSchema = z.object({
 });
 
 export const setQuantitySchema = z.object({
-	lineId: z.coerce.number().int().positive('Unknown line.'),
+	lineId: z.coerce
+		.number({ error: 'Say which basket line to change.' })
+		.int('Unknown basket line.')
+		.positive('Unknown basket line.'),
 	quantity: z.coerce
-		.number()
+		.number({ error: 'Choose how many.' })
 		.int('Choose a whole number.')
-		.min(0)
+		.min(0, 'Choose zero (to remove it) or more.')
 		.max(10, 'At most 10 of one piece.')
 });
 
