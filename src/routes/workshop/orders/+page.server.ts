@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { workshopOrders } from '$lib/server/orders';
+import { workshopOrders } from '$lib/server/orders/views';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

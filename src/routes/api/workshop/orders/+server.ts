@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { workshopOrders } from '$lib/server/orders';
+import { workshopOrders } from '$lib/server/orders/views';
 import type { RequestHandler } from './$types';
 
 /** The workshop's order list as JSON, newest first. */

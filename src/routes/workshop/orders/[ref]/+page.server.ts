@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { workshopOrderDetail } from '$lib/server/order-detail';
+import { workshopOrderDetail } from '$lib/server/orders/views';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
