@@ -53,10 +53,10 @@ async function firstImageRgba(doc: Awaited<ReturnType<typeof parse>>, n: number)
 	const ops = await page.getOperatorList();
 	const at = ops.fnArray.indexOf(OPS.paintImageXObject);
 	expect(at).toBeGreaterThanOrEqual(0);
-	const name = ops.argsArray[at][0] as string;
-	const img = await new Promise<{ width: number; height: number; data: Uint8ClampedArray }>((r) =>
-		page.objs.get(name, r)
-	);
+	const name = (ops.argsArray[at] as unknown[])[0] as string;
+	const img = await new Promise<{ width: number; height: number; data: Uint8ClampedArray }>((r) => {
+		page.objs.get(name, r);
+	});
 	const channels = img.data.length / (img.width * img.height);
 	expect([3, 4]).toContain(channels);
 	const { data, info } = await sharp(Buffer.from(img.data), {

@@ -5,7 +5,7 @@
  */
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from './db';
-import { settings } from './db/schema';
+import { settings, type Address } from './db/schema';
 import { jsonValue } from './json-column';
 import {
 	away as awaySchema,
@@ -60,15 +60,7 @@ export function awayNotice(a: Away, today = new Date().toISOString().slice(0, 10
 }
 
 /** The lines of an address as printed on slips and pages. */
-export function addressLines(a: {
-	name?: string;
-	line1: string;
-	line2?: string;
-	city: string;
-	region?: string;
-	postcode: string;
-	country: string;
-}) {
+export function addressLines(a: Address & { name?: string }) {
 	return [
 		a.name,
 		a.line1,

@@ -3,14 +3,24 @@ import type { z } from 'zod';
 import { config } from '../config';
 import { slipsPdf, type SlipKind, type SlipPaper } from './packing-slip';
 import { slipOrders, slipShop } from './slip-data';
+import { orderRef, slipQuery } from '../../schemas/slips';
 
 /** Reads the query with a schema; `{ error }` with 400 when it does not fit. */
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S) {
 	const parsed = schema.safeParse(Object.fromEntries(url.searchParams));
-	if (parsed.success) return { data: parsed.data as z.infer<S> };
+	if (parsed.success) return { data: parsed.data };
 	const fields: Record<string, string[]> = {};
 	for (const i of parsed.error.issues) (fields[String(i.path[0])] ??= []).push(i.message);
 	return { response: json({ error: parsed.error.issues[0].message, fields }, { status: 400 }) };
+}
+
+/** One order's slip, from the route's `[ref]` and `?paper=`. */
+export function oneOrderSlip(url: URL, ref: string, kind: SlipKind) {
+	const q = parseQuery(url, slipQuery.omit({ kind: true }));
+	if (q.response) return q.response;
+	const parsed = orderRef.safeParse(ref);
+	if (!parsed.success) return json({ error: 'No such order.' }, { status: 404 });
+	return slipResponse([parsed.data], q.data.paper, kind);
 }
 
 /** The slips for these orders as a PDF download; 404 naming any reference not found. */

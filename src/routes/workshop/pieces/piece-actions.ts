@@ -12,7 +12,7 @@ type FieldErrors = Record<string, string[]>;
 export async function savePieceForm(request: Request, save: (f: PieceForm) => Promise<unknown>) {
 	const input = pieceFormInput(await request.formData());
 	const parsed = pieceForm.safeParse(input);
-	const values = input as Record<string, unknown>;
+	const values = input;
 	if (!parsed.success) {
 		const errors: FieldErrors = {};
 		for (const issue of parsed.error.issues) {

@@ -1,14 +1,9 @@
-import { apiError, requireRole } from '$lib/server/auth/guard';
-import { parseQuery, slipResponse } from '$lib/server/pdf/slip-response';
-import { orderRef, slipQuery } from '$lib/schemas/slips';
+import { requireRole } from '$lib/server/auth/guard';
+import { oneOrderSlip } from '$lib/server/pdf/slip-response';
 import type { RequestHandler } from './$types';
 
 /** The gift slip for one order: ?paper=a4|letter|label. Owner and helpers print slips. */
-export const GET: RequestHandler = async (event) => {
+export const GET: RequestHandler = (event) => {
 	requireRole(event, 'owner', 'helper');
-	const q = parseQuery(event.url, slipQuery.omit({ kind: true }));
-	if (q.response) return q.response;
-	const ref = orderRef.safeParse(event.params.ref);
-	if (!ref.success) return apiError(404, 'No such order.');
-	return slipResponse([ref.data], q.data.paper, 'gift');
+	return oneOrderSlip(event.url, event.params.ref, 'gift');
 };
