@@ -70,7 +70,7 @@ describe('S3 stand-in with the app storage module', () => {
 			expect(meta.height).toBe(Math.round((Math.min(w, 800) * 600) / 800));
 		}
 		await expect(storePhoto('pieces/x', Buffer.from('not an image'))).rejects.toThrow(
-			/not an image/
+			/not a photo we take/
 		);
 	});
 
