@@ -37,7 +37,13 @@ export default defineConfig({
 	webServer: {
 		command: `node ${buildDir}`,
 		url: `${origin}/`,
-		env: { ...(process.env as Record<string, string>), PORT: String(port), ORIGIN: origin },
+		// Photo uploads need more than adapter-node's 512 kB default body limit, as npm start sets.
+		env: {
+			BODY_SIZE_LIMIT: '16M',
+			...(process.env as Record<string, string>),
+			PORT: String(port),
+			ORIGIN: origin
+		},
 		reuseExistingServer: false,
 		timeout: 60_000,
 		stdout: 'pipe',

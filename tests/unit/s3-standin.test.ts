@@ -43,7 +43,7 @@ describe('S3 stand-in with the app storage module', () => {
 		expect(await getObjectBytes('tests/missing.bin')).toBeNull();
 	});
 
-	it('storePhoto writes WebP variants at each width, never upscaled', async () => {
+	it('storePhoto writes WebP variants at each width, never upscaled (JPEG beside each)', async () => {
 		const { storePhoto, getObjectBytes, PHOTO_WIDTHS } =
 			await import('../../src/lib/server/storage');
 		const input = await sharp({
@@ -70,7 +70,7 @@ describe('S3 stand-in with the app storage module', () => {
 			expect(meta.height).toBe(Math.round((Math.min(w, 800) * 600) / 800));
 		}
 		await expect(storePhoto('pieces/x', Buffer.from('not an image'))).rejects.toThrow(
-			/not an image/
+			/not a photo we take/
 		);
 	});
 
@@ -81,12 +81,12 @@ describe('S3 stand-in with the app storage module', () => {
 				params: { key },
 				request: new Request('http://x/')
 			} as never) as Promise<Response>;
-		const res = await call('pieces/test-plate/p1/320.webp');
+		const res = await call('pieces/test-plate/p1/400.webp');
 		expect(res.status).toBe(200);
 		expect(res.headers.get('content-type')).toBe('image/webp');
 		expect(res.headers.get('cache-control')).toContain('max-age');
 		const body = Buffer.from(await res.arrayBuffer());
-		expect((await sharp(body).metadata()).width).toBe(320);
+		expect((await sharp(body).metadata()).width).toBe(400);
 
 		await expect(call('pieces/test-plate/p1/999.webp')).rejects.toMatchObject({
 			status: 404

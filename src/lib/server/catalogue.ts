@@ -173,6 +173,7 @@ export async function getPiece(slug: string) {
 		personalisable: p.personalisable,
 		foodContact: p.foodContact,
 		leadDays: p.leadDays,
+		careNotes: p.careNotes,
 		pattern: jsonValue<PiecePattern>(p.pattern),
 		photos: photoMap.get(p.id) ?? [],
 		woods: (woodMap.get(p.id) ?? []).map((w) => ({ ...w, ...factBySlug.get(w.slug)! }))

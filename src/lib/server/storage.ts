@@ -7,8 +7,11 @@ import {
 	S3Client
 } from '@aws-sdk/client-s3';
 import { Readable } from 'node:stream';
+import { fileTypeFromBuffer } from 'file-type';
 import sharp, { type Metadata } from 'sharp';
 import { config } from './config';
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, PHOTO_TYPES, PHOTO_TYPES_TEXT } from '../photo-limits';
+import { PHOTO_WIDTHS, type PhotoFormat } from '../photos';
 
 let client: S3Client | undefined;
 
@@ -101,41 +104,87 @@ export async function deletePrefix(prefix: string) {
 	}
 }
 
-/** Widths of the responsive variants; pages build srcset from these. */
-export const PHOTO_WIDTHS = [320, 640, 1200] as const;
-
 /** Where one variant lives; also the path under /photos/ that serves it. */
-export const photoKey = (key: string, width: number) => `${key}/${width}.webp`;
+export const photoKey = (key: string, width: number, format: PhotoFormat = 'webp') =>
+	`${key}/${width}.${format}`;
+
+export { PHOTO_WIDTHS };
+
+/** A photo refused for what it is (type, size, pixels, damage): the message is for the owner. */
+export class PhotoRejected extends Error {}
 
 /**
- * Stores a photo as WebP variants at PHOTO_WIDTHS (never upscaled beyond the original) and
- * returns the original's upright size. Throws a clear error when the input is not an image.
+ * Checks a photo by its bytes, not its name: size, type by content (file-type), pixel count
+ * from the header (before anything is decoded). Returns the upright size.
+ */
+export async function checkPhoto(input: Buffer): Promise<{ width: number; height: number }> {
+	if (input.byteLength === 0) throw new PhotoRejected('The file is empty.');
+	if (input.byteLength > MAX_PHOTO_BYTES)
+		throw new PhotoRejected(
+			`The file is larger than ${MAX_PHOTO_BYTES / 1024 / 1024} MB; export a smaller JPEG.`
+		);
+	const type = await fileTypeFromBuffer(input);
+	if (!type || !(PHOTO_TYPES as readonly string[]).includes(type.mime)) {
+		throw new PhotoRejected(
+			`This is not a photo we take (${type ? `it is ${type.ext.toUpperCase()}` : 'unknown type'}); use ${PHOTO_TYPES_TEXT}.`
+		);
+	}
+	let meta: Metadata;
+	try {
+		meta = await sharp(input, { limitInputPixels: false }).metadata();
+	} catch {
+		throw new PhotoRejected(`The file is not an image we can read (use ${PHOTO_TYPES_TEXT}).`);
+	}
+	if (!meta.width || !meta.height) throw new PhotoRejected('The image has no size.');
+	if (meta.width * meta.height > MAX_PHOTO_PIXELS) {
+		throw new PhotoRejected(
+			`The image claims ${meta.width} × ${meta.height} pixels, more than the ${MAX_PHOTO_PIXELS / 1e6} megapixels we accept.`
+		);
+	}
+	// EXIF orientations 5–8 swap width and height once rotated upright.
+	const swapped = (meta.orientation ?? 1) >= 5;
+	return swapped
+		? { width: meta.height, height: meta.width }
+		: { width: meta.width, height: meta.height };
+}
+
+/**
+ * Stores a photo as WebP variants with a JPEG fallback at PHOTO_WIDTHS (never upscaled), upright
+ * and with no metadata (sharp writes none unless asked, so EXIF and GPS are dropped). Every
+ * variant is made before the first is stored, so a damaged file stores nothing; a failed store
+ * removes what it wrote. Returns the original's upright size.
  */
 export async function storePhoto(
 	key: string,
 	input: Buffer
 ): Promise<{ width: number; height: number }> {
-	let meta: Metadata;
+	const size = await checkPhoto(input);
+	const variants: { key: string; body: Buffer; type: string }[] = [];
 	try {
-		meta = await sharp(input).metadata();
-	} catch {
-		throw new Error('The file is not an image we can read (use JPEG, PNG or WebP).');
-	}
-	if (!meta.width || !meta.height) throw new Error('The image has no size.');
-	// EXIF orientations 5–8 swap width and height once rotated upright.
-	const swapped = (meta.orientation ?? 1) >= 5;
-	const width = swapped ? meta.height : meta.width;
-	const height = swapped ? meta.width : meta.height;
-
-	await Promise.all(
-		PHOTO_WIDTHS.map(async (w) => {
-			const out = await sharp(input)
+		for (const w of PHOTO_WIDTHS) {
+			// failOn 'truncated': a cut-off file is refused instead of stored half grey.
+			const base = sharp(input, { failOn: 'truncated', limitInputPixels: MAX_PHOTO_PIXELS })
 				.rotate()
-				.resize({ width: w, withoutEnlargement: true })
-				.webp({ quality: 80 })
-				.toBuffer();
-			await putObject(photoKey(key, w), out, 'image/webp');
-		})
-	);
-	return { width, height };
+				.resize({ width: w, withoutEnlargement: true });
+			const [webp, jpg] = await Promise.all([
+				base.clone().webp({ quality: 80 }).toBuffer(),
+				base
+					.clone()
+					.flatten({ background: '#ffffff' })
+					.jpeg({ quality: 82, mozjpeg: true })
+					.toBuffer()
+			]);
+			variants.push({ key: photoKey(key, w, 'webp'), body: webp, type: 'image/webp' });
+			variants.push({ key: photoKey(key, w, 'jpg'), body: jpg, type: 'image/jpeg' });
+		}
+	} catch {
+		throw new PhotoRejected('The image is damaged or cut off; export it again and retry.');
+	}
+	try {
+		await Promise.all(variants.map((v) => putObject(v.key, v.body, v.type)));
+	} catch (err) {
+		await deletePrefix(`${key}/`);
+		throw err;
+	}
+	return size;
 }

@@ -83,6 +83,8 @@ export const pieces = mysqlTable('pieces', {
 	/** Default rosette layout for this piece: { diameterMm, count, spacingMm, split }. */
 	pattern: json('pattern').$type<PiecePattern>().notNull(),
 	active: boolean('active').notNull().default(true),
+	/** How to look after the piece, shown on its page (finish, cleaning, food contact). */
+	careNotes: text('care_notes'),
 	createdAt: datetime('created_at').notNull()
 });
 

@@ -42,7 +42,7 @@ const CHIP_FILL = rgb(0.9, 0.88, 0.85);
 const k = PT_PER_MM;
 
 /** The standard fonts speak WinAnsi: swap the few other characters our text uses. */
-function ansi(s: string): string {
+export function ansi(s: string): string {
 	return s
 		.replace(/[≥]/g, '>=')
 		.replace(/[≤]/g, '<=')
@@ -51,7 +51,7 @@ function ansi(s: string): string {
 		.replace(/[^\x20-\x7e\u00a0-\u00ff—–•…×±°]/g, '?');
 }
 
-function wrap(text: string, font: PDFFont, size: number, widthPt: number): string[] {
+export function wrap(text: string, font: PDFFont, size: number, widthPt: number): string[] {
 	const words = ansi(text).split(/\s+/);
 	const lines: string[] = [];
 	let line = '';

@@ -21,6 +21,7 @@ import {
 } from '../../pattern/snapshot';
 import { WOODS, densityAt12 } from '../../woods';
 import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
+import { seedSettings } from './settings';
 import { computePattern } from '../../pattern';
 
 /** The snapshot the shop would have stored for these initials (same fields, same engine). */
@@ -513,6 +514,7 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 			{ key: 'workshop', value: { owner: 'Hollis Marsh', town: 'Linden Ford', country: 'US' } }
 		]);
 
+		await seedSettings(tx);
 		await seedFairs(tx, now, pieceIds, woodIds, userIds);
 		await seedOrders(tx, now, pieceIds, woodIds, userIds);
 		return { pieceIds, woodIds, userIds } satisfies DemoSeedResult;

@@ -2,11 +2,11 @@ import { error } from '@sveltejs/kit';
 import { getObject } from '$lib/server/storage';
 import type { RequestHandler } from './$types';
 
-/** Serves stored photo variants, e.g. /photos/pieces/rosette-plate/a1b2/640.webp. */
+/** Serves stored photo variants, e.g. /photos/pieces/rosette-plate/a1b2/800.webp (or .jpg). */
 export const GET: RequestHandler = async ({ params, request }) => {
 	const key = params.key;
-	// Only the WebP variants storePhoto writes; nothing else in the bucket is public.
-	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.webp$/i.test(key) || key.includes('..'))
+	// Only the variants storePhoto writes; nothing else in the bucket is public.
+	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.(webp|jpg)$/i.test(key) || key.includes('..'))
 		error(404, 'No such photo');
 	const obj = await getObject(key);
 	if (!obj) error(404, 'No such photo');

@@ -1,0 +1,1 @@
+ALTER TABLE `pieces` ADD `care_notes` text;

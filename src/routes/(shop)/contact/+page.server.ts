@@ -1,0 +1,7 @@
+import { addressLines, getShopInfo } from '$lib/server/shop-settings';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async () => {
+	const shop = await getShopInfo();
+	return { name: shop.name, email: shop.email, address: addressLines(shop.address) };
+};

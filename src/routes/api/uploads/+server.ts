@@ -1,0 +1,42 @@
+import { json } from '@sveltejs/kit';
+import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { addPhoto, PhotoNotFound } from '$lib/server/catalogue/photos';
+import { PhotoRejected } from '$lib/server/storage';
+import { uploadFields } from '$lib/schemas/photo';
+import type { RequestHandler } from './$types';
+
+/**
+ * One photo per request (the browser sends several side by side, each with its own progress):
+ * multipart with `pieceId`, `alt` and `file`. Checked by content on the server whatever the
+ * browser said; a refused file stores nothing. 201 with the stored photo.
+ */
+export const POST: RequestHandler = async (event) => {
+	requireRoleApi(event, 'owner');
+	let form: FormData;
+	try {
+		form = await event.request.formData();
+	} catch {
+		return apiError(400, 'Send the photo as a multipart form with a file field.');
+	}
+	const fields = uploadFields.safeParse({ pieceId: form.get('pieceId'), alt: form.get('alt') });
+	if (!fields.success) {
+		const errs: Record<string, string[]> = {};
+		for (const i of fields.error.issues) (errs[String(i.path[0])] ??= []).push(i.message);
+		return apiError(400, fields.error.issues[0].message, errs);
+	}
+	const file = form.get('file');
+	if (!(file instanceof File))
+		return apiError(400, 'Choose a photo to send.', { file: ['Missing'] });
+	try {
+		const photo = await addPhoto(
+			fields.data.pieceId,
+			Buffer.from(await file.arrayBuffer()),
+			fields.data.alt
+		);
+		return json({ photo }, { status: 201 });
+	} catch (err) {
+		if (err instanceof PhotoRejected) return apiError(400, `${file.name}: ${err.message}`);
+		if (err instanceof PhotoNotFound) return apiError(404, err.message);
+		throw err;
+	}
+};
