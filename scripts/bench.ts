@@ -16,7 +16,14 @@ import { pageWeights } from './bench/bundles';
 import { engineTimings } from './bench/engine';
 import { shopP99UnderPatternFlood } from './bench/flood';
 import { labLcp } from './bench/lighthouse';
-import { CONNECTIONS, DURATION_S, formatLoad, measure, startBareServer } from './bench/load';
+import {
+	CONNECTIONS,
+	DURATION_S,
+	formatLoad,
+	measure,
+	startBareServer,
+	type LoadFigure
+} from './bench/load';
 import { DEMO_ACCOUNTS } from '../src/lib/server/seed/demo';
 
 const e = process.env;
@@ -118,7 +125,7 @@ try {
 	say(
 		`\n== HTTP load: autocannon, ${CONNECTIONS} connections, ${DURATION_S} s each, one app process`
 	);
-	const load = [];
+	const load: LoadFigure[] = [];
 	try {
 		load.push(await measure('bare node:http (same bytes as /shop)', bare.url));
 	} finally {

@@ -8,6 +8,9 @@
  */
 export type FloodFigure = { shopP99Ms: number | null; note: string };
 
-export async function shopP99UnderPatternFlood(_baseUrl: string): Promise<FloodFigure> {
-	return { shopP99Ms: null, note: 'measured by the throttling change (not on this branch)' };
+export function shopP99UnderPatternFlood(_baseUrl: string): Promise<FloodFigure> {
+	return Promise.resolve({
+		shopP99Ms: null,
+		note: 'measured by the throttling change (not on this branch)'
+	});
 }

@@ -100,7 +100,8 @@ test.describe('access matrix', () => {
 				const own = e.action ? `${e.route}?/${e.action}` : e.route;
 				const url = typeof x.url === 'function' ? x.url(f) : (x.url ?? own);
 				const actual = outcomeOf(await call(ctx, e, url));
-				if (!matches(x[role], actual)) wrong.push(`${e.key} (${url}): expected ${x[role]}, got ${actual}`);
+				if (!matches(x[role], actual))
+					wrong.push(`${e.key} (${url}): expected ${x[role]}, got ${actual}`);
 			}
 			await ctx.dispose();
 			expect(wrong).toEqual([]);

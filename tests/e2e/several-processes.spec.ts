@@ -81,9 +81,9 @@ test('catalogue changes made elsewhere show on every process within seconds', as
 	const slug = 'rosette-bottle-holder';
 	const before = await (await fetch(`${a.url}/shop/${slug}`)).text();
 	await fetch(`${b.url}/shop/${slug}`);
-	const [[row]] = (await pool.query('select title from pieces where slug = ?', [slug])) as unknown as [
-		{ title: string }[]
-	];
+	const [[row]] = (await pool.query('select title from pieces where slug = ?', [
+		slug
+	])) as unknown as [{ title: string }[]];
 	const changed = `${row.title} (edited)`;
 	await pool.query('update pieces set title = ? where slug = ?', [changed, slug]);
 	try {

@@ -29,7 +29,7 @@ export async function startApp(env: Record<string, string> = {}): Promise<AppPro
 		stdio: ['ignore', 'ignore', 'pipe']
 	});
 	let stderr = '';
-	child.stderr!.on('data', (c: Buffer) => (stderr = (stderr + c.toString()).slice(-4000)));
+	child.stderr.on('data', (c: Buffer) => (stderr = (stderr + c.toString()).slice(-4000)));
 	const stop = async () => {
 		if (child.exitCode !== null || child.signalCode !== null) return;
 		const exited = new Promise<void>((r) => child.once('exit', () => r()));

@@ -49,7 +49,9 @@ export class PrivateMariadb {
 		await this.start();
 		const root = await this.root();
 		try {
-			await root.query(`CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+			await root.query(
+				`CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`
+			);
 			await root.query(`CREATE USER 'chipstall'@'127.0.0.1' IDENTIFIED BY 'chipstall-local'`);
 			await root.query(`GRANT ALL PRIVILEGES ON *.* TO 'chipstall'@'127.0.0.1'`);
 		} finally {

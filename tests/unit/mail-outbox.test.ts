@@ -37,7 +37,11 @@ function smtpOn(p: number) {
 	return new Promise<SMTPServer>((resolve) => server.listen(p, '127.0.0.1', () => resolve(server)));
 }
 
-const outboxRows = () => db.select().from(s.outbox).where(like(s.outbox.recipients, `%${tag}%`));
+const outboxRows = () =>
+	db
+		.select()
+		.from(s.outbox)
+		.where(like(s.outbox.recipients, `%${tag}%`));
 
 beforeAll(async () => {
 	// Nothing listens here yet: the mail server is "down".
@@ -59,7 +63,7 @@ describe('outbox', () => {
 			headers: { 'stripe-signature': signEvent(body, config.stripe.webhookSecret) },
 			body
 		});
-		const res = (await POST({ request } as Parameters<typeof POST>[0])) as Response;
+		const res = await POST({ request } as Parameters<typeof POST>[0]);
 		expect(res.status).toBe(200);
 		const [order] = await db.select().from(s.orders).where(eq(s.orders.id, orderId));
 		expect(order.status).toBe('paid');

@@ -8,13 +8,7 @@
  * A 500 never matches anything.
  */
 export type Outcome =
-	| 'ok'
-	| 'signin'
-	| 'redirect'
-	| 'forbidden'
-	| 'unauthorised'
-	| 'notfound'
-	| 'allowed';
+	'ok' | 'signin' | 'redirect' | 'forbidden' | 'unauthorised' | 'notfound' | 'allowed';
 export type RoleName = 'anonymous' | 'customer' | 'helper' | 'owner';
 export const ROLE_NAMES: RoleName[] = ['anonymous', 'customer', 'helper', 'owner'];
 
@@ -39,7 +33,12 @@ const staffApi = {
 	owner: 'ok'
 } as const;
 /** Pages for signing in: shown to visitors, signed-in people are sent on. */
-const guestPage = { anonymous: 'ok', customer: 'redirect', helper: 'redirect', owner: 'redirect' } as const;
+const guestPage = {
+	anonymous: 'ok',
+	customer: 'redirect',
+	helper: 'redirect',
+	owner: 'redirect'
+} as const;
 
 export const EXPECTATIONS: Record<string, Expectation> = {
 	// Public shop.
@@ -83,7 +82,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'POST /api/cart': every('allowed'),
 	'PATCH /api/cart': every('allowed'),
 	'DELETE /api/cart': every('allowed'),
-	'GET /api/pattern': { ...every('ok'), url: '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HM&wood=cherry' },
+	'GET /api/pattern': {
+		...every('ok'),
+		url: '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HM&wood=cherry'
+	},
 	'POST /api/payments/webhook': every('allowed'),
 	'GET /api/workshop/orders': staffApi,
 
