@@ -13,6 +13,7 @@ import { bringDown, bringUp } from './lib/bootstrap';
 import { BIN, DATA_DIR, ROOT } from './lib/paths';
 import { freePort, portAnswers, run, spawnTracked, stopAll, type Started } from './lib/services';
 import { pageWeights } from './bench/bundles';
+import { signInCookie } from './lib/sign-in';
 import { engineTimings } from './bench/engine';
 import { shopP99UnderPatternFlood } from './bench/flood';
 import { labLcp } from './bench/lighthouse';
@@ -53,23 +54,6 @@ const say = (s = '') => {
 	out.push(s);
 	console.log(s);
 };
-
-async function signInCookie(): Promise<string> {
-	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
-	const res = await fetch(`${base}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			accept: 'text/html',
-			origin: base,
-			'content-type': 'application/x-www-form-urlencoded'
-		},
-		body: new URLSearchParams({ email: owner.email, password: owner.password })
-	});
-	const c = res.headers.getSetCookie().find((x) => x.startsWith('chipstall_session='));
-	if (!c) throw new Error(`sign-in failed (${res.status})`);
-	return c.split(';')[0];
-}
 
 /** Statements MariaDB received per request, averaged over `n` sequential requests. */
 async function queriesPerRequest(url: string, n = 50, headers: Record<string, string> = {}) {
@@ -113,7 +97,8 @@ try {
 		})
 	);
 	for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
-	const cookie = await signInCookie();
+	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
+	const cookie = await signInCookie(base, owner.email, owner.password);
 	const shopRes = await fetch(`${base}/shop`);
 	const shopBody = Buffer.from(await shopRes.arrayBuffer());
 	const bare = await startBareServer(

@@ -52,20 +52,4 @@ export async function startApp(env: Record<string, string> = {}): Promise<AppPro
 	throw new Error(`app did not answer on ${port}:\n${stderr}`);
 }
 
-/** Signs in through the real form on `base`; returns the session cookie ("name=value"). */
-export async function signInCookie(base: string, email: string, password: string) {
-	const res = await fetch(`${base}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			accept: 'text/html',
-			origin: base,
-			'content-type': 'application/x-www-form-urlencoded'
-		},
-		body: new URLSearchParams({ email, password })
-	});
-	if (res.status !== 303) throw new Error(`sign-in answered ${res.status}`);
-	const cookie = res.headers.getSetCookie().find((c) => c.startsWith('chipstall_session='));
-	if (!cookie) throw new Error('no session cookie');
-	return cookie.split(';')[0];
-}
+export { signInCookie } from '../../scripts/lib/sign-in';
