@@ -1,114 +1,205 @@
 /**
- * Speed of the layout engine: median time for pattern + SVG (three rosettes with initials) and
- * for the 1:1 template PDF. Targets: under 2 ms and under 150 ms. Also the packing slip PDF
- * (one order, and a batch of ten). Prints, does not fail.
+ * `npm run bench`: builds and starts the product with its services (own database and ports),
+ * then prints and writes to bench/results.json: the layout engine's timings, HTTP load figures
+ * beside a bare node:http server serving the same bytes as /shop, database queries per request,
+ * the shop's p99 under a pattern flood (slot, see bench/flood.ts), JavaScript and CSS per public
+ * page from the build's manifest, and lab LCP from Lighthouse. Prints; never fails on a target.
  */
-import { performance } from 'node:perf_hooks';
-import { computePattern } from '../src/lib/pattern';
-import { letterFont } from '../src/lib/pattern/letter-font';
-import { templatePdf } from '../src/lib/server/pdf/template';
-import { slipsPdf } from '../src/lib/server/pdf/packing-slip';
-import type { SlipOrder } from '../src/lib/server/pdf/slip-data';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import mysql from 'mysql2/promise';
+import { config } from '../src/lib/server/config';
+import { bringDown, bringUp } from './lib/bootstrap';
+import { BIN, DATA_DIR, ROOT } from './lib/paths';
+import { freePort, portAnswers, run, spawnTracked, stopAll, type Started } from './lib/services';
+import { pageWeights } from './bench/bundles';
+import { signInCookie } from './lib/sign-in';
+import { engineTimings } from './bench/engine';
+import { shopP99UnderPatternFlood } from './bench/flood';
+import { labLcp } from './bench/lighthouse';
+import {
+	CONNECTIONS,
+	DURATION_S,
+	formatLoad,
+	measure,
+	startBareServer,
+	type LoadFigure
+} from './bench/load';
+import { DEMO_ACCOUNTS } from '../src/lib/server/seed/demo';
 
-function median(xs: number[]): number {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.floor(s.length / 2)];
-}
-
-async function timeIt(runs: number, fn: () => unknown): Promise<number> {
-	for (let i = 0; i < Math.min(20, runs); i++) await fn(); // warm up
-	const times: number[] = [];
-	for (let i = 0; i < runs; i++) {
-		const t0 = performance.now();
-		await fn();
-		times.push(performance.now() - t0);
-	}
-	return median(times);
-}
-
-const font = letterFont();
-const input = {
-	diameterMm: 70,
-	count: 3,
-	initials: 'HMW',
-	woodSlug: 'cherry',
-	widthMm: 100,
-	lengthMm: 300
-};
-const heapBefore = process.memoryUsage().heapUsed;
-
-// Vary the initials so the per-text outline cache does not flatter the figure.
-const letters = ['HMW', 'ABC', 'JK', 'Q', 'XYZ', 'LF'];
-let n = 0;
-const patternMs = await timeIt(500, () =>
-	computePattern({ ...input, initials: letters[n++ % letters.length] }, { font })
-);
-const halvedMs = await timeIt(200, () => computePattern({ ...input, split: true }, { font }));
-const result = computePattern(input, { font });
-const pdfMs = await timeIt(30, () =>
-	templatePdf(result, { paper: 'a4', orderRef: 'CS-1042', title: 'Bottle holder' })
-);
-const bigPdfMs = await timeIt(15, () =>
-	templatePdf(
-		computePattern({ ...input, count: 6, lengthMm: 600, border: { edgeMm: 26 } }, { font }),
-		{ paper: 'letter' }
-	)
-);
-// An invented order for the slip: two lines, one personalised, and a gift note.
-const slipShop = {
-	name: 'Chipstall',
-	email: 'hollis@chipstall.test',
-	address: ['Chipstall workshop', '14 Millrace Lane', 'Linden Ford, VT 05099', 'US']
-};
-const slipOrder = (ref: string): SlipOrder => ({
-	ref,
-	buyerName: 'Orla Finch',
-	address: ['Orla Finch', '9 Weir Street', 'Coldbrook, NH 03222', 'US'],
-	giftNote: 'For the new kitchen.',
-	currency: 'USD',
-	subtotalMinor: 9600,
-	shippingMinor: 1195,
-	taxMinor: 0,
-	totalMinor: 10795,
-	placedOn: '2026-03-02',
-	lines: [
-		{
-			title: 'Rosette bottle holder',
-			woodName: 'Cherry',
-			quantity: 1,
-			unitPriceMinor: 5800,
-			lineTotalMinor: 5800,
-			initials: 'OF',
-			style: 'block'
-		},
-		{
-			title: 'Star ornament',
-			woodName: 'Basswood',
-			quantity: 2,
-			unitPriceMinor: 1900,
-			lineTotalMinor: 3800,
-			initials: null,
-			style: null
-		}
-	]
+const e = process.env;
+const work = path.join(DATA_DIR, 'bench');
+mkdirSync(work, { recursive: true });
+const appPort = await freePort(3200);
+const s3Port = await freePort(4769);
+Object.assign(e, {
+	DB_NAME: e.BENCH_DB_NAME || 'chipstall_bench',
+	SMTP_PORT: String(await freePort(2725)),
+	MAIL_INBOX_PORT: String(await freePort(8225)),
+	S3_PORT: String(s3Port),
+	S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
+	S3_DIR: path.join(work, 's3'),
+	STRIPE_API_PORT: String(await freePort(12311)),
+	PORT: String(appPort),
+	ORIGIN: `http://localhost:${appPort}`,
+	CHIPSTALL_BUILD_DIR: path.join(work, 'app'),
+	CHIPSTALL_KIT_DIR: path.join(work, 'kit')
 });
-const slipOpts = { paper: 'a4', kind: 'packing', origin: 'http://localhost:3000' } as const;
-const slipMs = await timeIt(30, () => slipsPdf(slipShop, [slipOrder('CS-7K2M9P')], slipOpts));
-const tenOrders = Array.from({ length: 10 }, (_, i) => slipOrder(`CS-BENCH${i}`));
-const slipBatchMs = await timeIt(10, () => slipsPdf(slipShop, tenOrders, slipOpts));
-const mem = process.memoryUsage();
+const base = e.ORIGIN!;
+const PIECE = '/shop/rosette-bottle-holder';
+const PATTERN = '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HMW&wood=cherry';
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+const out: string[] = [];
+const say = (s = '') => {
+	out.push(s);
+	console.log(s);
+};
 
-const line = (label: string, ms: number, target?: number) =>
-	`${label.padEnd(52)} ${ms.toFixed(3).padStart(9)} ms${target ? `   (target < ${target} ms: ${ms < target ? 'met' : 'MISSED'})` : ''}`;
-process.stdout.write(
-	[
-		line('pattern + SVG, 3 rosettes with initials (median)', patternMs, 2),
-		line('pattern + SVG, 3 rosettes, halved chips (median)', halvedMs),
-		line('template PDF, A4, one tile (median)', pdfMs, 150),
-		line('template PDF, Letter, 600 mm blank + border, tiled', bigPdfMs),
-		line('packing slip PDF, A4, one order with QR (median)', slipMs),
-		line('packing slips PDF, A4, batch of ten orders (median)', slipBatchMs),
-		`heap used ${(mem.heapUsed / 1048576).toFixed(1)} MB (grew ${((mem.heapUsed - heapBefore) / 1048576).toFixed(1)} MB), rss ${(mem.rss / 1048576).toFixed(1)} MB`,
-		''
-	].join('\n')
-);
+/** Statements MariaDB received per request, averaged over `n` sequential requests. */
+async function queriesPerRequest(url: string, n = 50, headers: Record<string, string> = {}) {
+	const conn = await mysql.createConnection(config.db.url);
+	const questions = async () => {
+		const [rows] = (await conn.query("SHOW GLOBAL STATUS LIKE 'Questions'")) as unknown as [
+			{ Value: string }[]
+		];
+		return Number(rows[0].Value);
+	};
+	try {
+		await fetch(url, { headers }); // warm
+		const before = await questions();
+		for (let i = 0; i < n; i++) await (await fetch(url, { headers })).arrayBuffer();
+		// Minus the two SHOW statements of our own.
+		return Math.max(0, (await questions()) - before - 1) / n;
+	} finally {
+		await conn.end();
+	}
+}
+
+const running = await bringUp();
+const app: Started[] = [];
+let exitCode = 0;
+try {
+	say('Building the app for the bench…');
+	if ((await run(BIN('vite'), ['build', '--logLevel', 'warn'], e)) !== 0)
+		throw new Error('build failed');
+
+	say('\n== Layout engine (in this process)');
+	const engine = await engineTimings();
+	engine.lines.forEach((l) => say(l));
+
+	app.push(
+		spawnTracked('bench-app', process.execPath, [e.CHIPSTALL_BUILD_DIR!], {
+			ports: [appPort],
+			quiet: true
+		})
+	);
+	for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
+	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
+	const cookie = await signInCookie(base, owner.email, owner.password);
+	const shopRes = await fetch(`${base}/shop`);
+	const shopBody = Buffer.from(await shopRes.arrayBuffer());
+	const bare = await startBareServer(
+		shopBody,
+		shopRes.headers.get('content-type') ?? 'text/html',
+		work
+	);
+
+	say(
+		`\n== HTTP load: autocannon, ${CONNECTIONS} connections, ${DURATION_S} s each, one app process`
+	);
+	const load: LoadFigure[] = [];
+	try {
+		load.push(await measure('bare node:http (same bytes as /shop)', bare.url));
+	} finally {
+		await bare.stop();
+	}
+	load.push(await measure('/shop', `${base}/shop`));
+	load.push(await measure(`${PIECE}`, `${base}${PIECE}`));
+	load.push(await measure('/api/pattern (3 rosettes, initials)', `${base}${PATTERN}`));
+	load.push(
+		await measure('/api/workshop/orders (signed in)', `${base}/api/workshop/orders`, { cookie })
+	);
+	load.forEach((f) => say(formatLoad(f)));
+	const ratio = (f: { reqPerSec: number }) => f.reqPerSec / load[0].reqPerSec;
+	say(`shop/bare ratio: ${ratio(load[1]).toFixed(2)}`);
+	say(`piece/bare ratio: ${ratio(load[2]).toFixed(2)}`);
+	say('targets: ratio ≥ 0.30, p99 < 50 ms at 50 connections');
+
+	say('\n== Database statements per request (MariaDB Questions counter, 50 sequential requests)');
+	const queries = {
+		shop: await queriesPerRequest(`${base}/shop`),
+		piece: await queriesPerRequest(`${base}${PIECE}`),
+		workshopOrders: await queriesPerRequest(`${base}/api/workshop/orders`, 50, { cookie })
+	};
+	say(
+		`/shop ${queries.shop.toFixed(2)}   ${PIECE} ${queries.piece.toFixed(2)}   /api/workshop/orders ${queries.workshopOrders.toFixed(2)}`
+	);
+
+	say('\n== Shop p99 while /api/pattern is flooded');
+	const flood = await shopP99UnderPatternFlood(base);
+	say(
+		flood.shopP99Ms === null
+			? `not measured: ${flood.note}`
+			: `shop p99 ${flood.shopP99Ms} ms (${flood.note})`
+	);
+
+	say('\n== JavaScript and CSS per public page (gzip, from the build manifest; target JS ≤ 50 KB)');
+	const publicRoutes = [
+		'/(shop)',
+		'/(shop)/shop',
+		'/(shop)/shop/[slug]',
+		'/(shop)/cart',
+		'/(shop)/checkout',
+		'/(shop)/orders/[ref]',
+		'/(auth)/signin'
+	];
+	const weights = pageWeights(
+		e.CHIPSTALL_KIT_DIR!,
+		path.join(e.CHIPSTALL_BUILD_DIR!, 'client'),
+		publicRoutes
+	);
+	for (const w of weights) {
+		say(
+			`${w.route.padEnd(24)} JS ${(w.jsGzip / 1024).toFixed(1).padStart(6)} KB   CSS ${(w.cssGzip / 1024).toFixed(1).padStart(5)} KB${w.jsGzip > 50 * 1024 ? '   (over 50 KB)' : ''}`
+		);
+	}
+
+	say('\n== Lab LCP (Lighthouse 12.2.3, mobile preset, Debian Chromium; target < 1.0 s)');
+	const lcp = { shop: labLcp(`${base}/shop`, work), piece: labLcp(`${base}${PIECE}`, work) };
+	for (const [k, v] of Object.entries(lcp))
+		say(`${k.padEnd(6)} ${v.lcpMs === null ? v.note : `${v.lcpMs} ms`}`);
+
+	say(
+		'\nFigures on a shared 2-core machine vary with whatever else runs; compare runs side by side.'
+	);
+	mkdirSync(path.join(ROOT, 'bench'), { recursive: true });
+	writeFileSync(
+		path.join(ROOT, 'bench', 'results.json'),
+		JSON.stringify(
+			{
+				at: new Date().toISOString(),
+				connections: CONNECTIONS,
+				durationS: DURATION_S,
+				appProcesses: 1,
+				engine: engine.figures,
+				load,
+				shopBareRatio: ratio(load[1]),
+				pieceBareRatio: ratio(load[2]),
+				queriesPerRequest: queries,
+				flood,
+				pageWeights: weights,
+				lcp
+			},
+			null,
+			2
+		) + '\n'
+	);
+	say('Written to bench/results.json');
+} catch (err) {
+	console.error(err);
+	exitCode = 1;
+} finally {
+	await stopAll(app);
+	await bringDown(running);
+}
+process.exit(exitCode);

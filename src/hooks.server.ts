@@ -7,10 +7,14 @@ import {
 	validateToken
 } from '$lib/server/auth/lucia';
 import { toApiErrorResponse } from '$lib/server/api-errors';
-import { startHoldSweeper } from '$lib/server/hold-sweeper';
+import { startHoldSweeper } from '$lib/server/orders/holds';
+import { startOutboxDrainer } from '$lib/server/mail/outbox';
+import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
+import { httpCacheHandle } from '$lib/server/handles/http-cache';
 
 export const init: ServerInit = () => {
 	startHoldSweeper();
+	startOutboxDrainer();
 };
 
 /** Loads the signed-in user from the session cookie; renews or clears the cookie as needed. */
@@ -39,10 +43,12 @@ const apiErrors: Handle = async ({ event, resolve }) => {
 	return toApiErrorResponse(response);
 };
 
-export const handle = sequence(sessionHandle, apiErrors);
+export const handle = sequence(availabilityHandle, httpCacheHandle, sessionHandle, apiErrors);
 
 /** Unexpected errors: logged here in full, shown to the visitor without any detail. */
-export const handleError: HandleServerError = ({ error, status, message }) => {
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	// Database down: the availability handle turns this into a plain 503; no stack in the log.
+	if (noteDatabaseDown(event, error)) return { message: 'Back in a moment.' };
 	if (status === 404) return { message: 'There is nothing at this address.' };
 	if (status < 500) return { message };
 	console.error(error);

@@ -4,28 +4,21 @@
  * `t.payload`, 300 s tolerance — Stripe docs "Check the webhook signatures"), bad or old
  * signatures answered 400, and a repeated event applied once.
  */
-import Stripe from 'stripe';
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
 import { config } from '../../src/lib/server/config';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
+import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';
 
-const sdk = new Stripe('sk_test_unused');
 const secret = config.stripe.webhookSecret;
 const tag = `w${process.pid}${Date.now() % 100000}`;
 let orderId = 0;
 let ref = '';
 
-function sign(payload: string, opts: { secret?: string; timestamp?: number } = {}) {
-	// Reference signer: the SDK's own test-header generator.
-	return sdk.webhooks.generateTestHeaderString({
-		payload,
-		secret: opts.secret ?? secret,
-		timestamp: opts.timestamp
-	});
-}
+const sign = (payload: string, opts: { secret?: string; timestamp?: number } = {}) =>
+	signEvent(payload, opts.secret ?? secret, opts.timestamp);
 
 function call(payload: string, header: string | null) {
 	const request = new Request('http://localhost/api/payments/webhook', {
@@ -37,66 +30,11 @@ function call(payload: string, header: string | null) {
 	return POST({ request } as Parameters<typeof POST>[0]) as Promise<Response>;
 }
 
-function completed(eventId: string) {
-	return JSON.stringify({
-		id: eventId,
-		object: 'event',
-		type: 'checkout.session.completed',
-		created: Math.floor(Date.now() / 1000),
-		data: {
-			object: {
-				id: `cs_${tag}`,
-				object: 'checkout.session',
-				payment_status: 'paid',
-				status: 'complete',
-				payment_intent: `pi_${tag}`,
-				client_reference_id: ref,
-				metadata: { orderRef: ref }
-			}
-		}
-	});
-}
+const completed = (eventId: string) => completedEvent(eventId, ref, tag);
 
 beforeAll(async () => {
 	ref = `CS-${tag.slice(-6).toUpperCase().padStart(6, 'W')}`;
-	const [piece] = await db.select().from(s.pieces).limit(1);
-	const [wood] = await db.select().from(s.woods).limit(1);
-	[{ id: orderId }] = await db
-		.insert(s.orders)
-		.values({
-			ref,
-			email: 'webhook-test@example.test',
-			buyerName: 'Webhook Test',
-			address: { line1: '1 Lane', city: 'Boulder', region: 'CO', postcode: '80302', country: 'US' },
-			currency: 'USD',
-			subtotalMinor: 4800,
-			shippingMinor: 900,
-			taxMinor: 0,
-			totalMinor: 5700,
-			status: 'pending',
-			checkoutSessionId: `cs_${tag}`,
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.orderLines).values({
-		orderId,
-		pieceId: piece.id,
-		woodId: wood.id,
-		title: piece.title,
-		woodName: wood.name,
-		quantity: 1,
-		unitPriceMinor: 4800,
-		lineTotalMinor: 4800,
-		fromStock: false,
-		personalisation: {
-			initials: 'WT',
-			style: 'classic',
-			diameterMm: 60,
-			count: 1,
-			spacingMm: 30,
-			split: false
-		}
-	});
+	orderId = await insertPendingOrder(db, ref, tag, 'webhook-test@example.test');
 });
 
 const status = async () =>

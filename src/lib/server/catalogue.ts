@@ -2,6 +2,7 @@ import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { photos, pieces, pieceWoods, stock, woods, WORKSHOP, type PiecePattern } from './db/schema';
 import { jsonValue } from './json-column';
+import { cachedCatalogue } from './catalogue-cache';
 import type { ShopQuery } from '$lib/schemas/shop';
 
 export type WoodChoice = {
@@ -60,8 +61,16 @@ async function photosFor(pieceIds: number[]) {
 	return map;
 }
 
-/** The shop list: only the fields the list shows, filtered and sorted as the URL asks. */
-export async function listPieces(q: ShopQuery) {
+/**
+ * The shop list: only the fields the list shows, filtered and sorted as the URL asks. Cached
+ * per process until the catalogue changes (see catalogue-cache.ts); callers must not mutate it.
+ */
+export function listPieces(q: ShopQuery) {
+	const key = `list:${q.kind ?? ''}:${q.wood ?? ''}:${q.ready ? 1 : 0}:${q.sort}`;
+	return cachedCatalogue(key, () => readPieceList(q));
+}
+
+async function readPieceList(q: ShopQuery) {
 	const rows = await db
 		.select({
 			id: pieces.id,
@@ -126,7 +135,11 @@ export async function listPieces(q: ShopQuery) {
 }
 
 /** Woods that appear on at least one active piece, for the filter. */
-export async function woodFilterOptions() {
+export function woodFilterOptions() {
+	return cachedCatalogue('wood-filter', () => readWoodFilterOptions());
+}
+
+async function readWoodFilterOptions() {
 	return db
 		.selectDistinct({ slug: woods.slug, name: woods.name })
 		.from(woods)
@@ -135,8 +148,12 @@ export async function woodFilterOptions() {
 		.orderBy(asc(woods.name));
 }
 
-/** One piece with everything its page shows; null when unknown or withdrawn. */
-export async function getPiece(slug: string) {
+/** One piece with everything its page shows; null when unknown or withdrawn. Cached like the list. */
+export function getPiece(slug: string) {
+	return cachedCatalogue(`piece:${slug}`, () => readPiece(slug));
+}
+
+async function readPiece(slug: string) {
 	const [p] = await db
 		.select()
 		.from(pieces)
@@ -180,4 +197,4 @@ export async function getPiece(slug: string) {
 	};
 }
 
-export type PieceDetail = NonNullable<Awaited<ReturnType<typeof getPiece>>>;
+export type PieceDetail = NonNullable<Awaited<ReturnType<typeof readPiece>>>;

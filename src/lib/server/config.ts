@@ -53,6 +53,10 @@ export const config = {
 		get from() {
 			return e.MAIL_FROM || 'Chipstall <shop@chipstall.test>';
 		},
+		/** How often each app process sends mail still waiting in the outbox. */
+		get outboxEveryMs() {
+			return num(e.OUTBOX_EVERY_MS, 15_000);
+		},
 		/** The mail stand-in's inbox page and JSON API (local only). */
 		get inboxPort() {
 			return num(e.MAIL_INBOX_PORT, 8025);

@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { config } from './config';
+import { enqueueMail, sendNow } from './mail/outbox';
 
 export type OutgoingMail = {
 	to: string | string[];
@@ -18,18 +19,35 @@ export function mailTransport(): Transporter {
 		port: config.mail.port,
 		secure: config.mail.secure,
 		// Only authenticate when a user is configured; the local stand-in needs none.
-		auth: config.mail.user ? { user: config.mail.user, pass: config.mail.password } : undefined
+		auth: config.mail.user ? { user: config.mail.user, pass: config.mail.password } : undefined,
+		// Bounded, so an outbox lease (120 s) always outlives one attempt.
+		connectionTimeout: 10_000,
+		greetingTimeout: 10_000,
+		socketTimeout: 30_000
 	});
 	return transport;
 }
 
-/** Sends one message from the shop's address; resolves with the SMTP message id. */
-export async function sendMail(mail: OutgoingMail): Promise<string> {
-	const info = await mailTransport().sendMail({
-		from: config.mail.from,
-		...mail
-	});
+/** Hands one message to the SMTP server; resolves with its message id. */
+export async function deliverMail(mail: OutgoingMail): Promise<string> {
+	const info = await mailTransport().sendMail({ from: config.mail.from, ...mail });
 	return info.messageId;
+}
+
+/**
+ * Sends one message from the shop's address. It is written to the outbox first and sent at
+ * once when the SMTP server answers; when it does not, it stays in the outbox and a drainer
+ * sends it later (null is returned then). Only if the database itself is unreachable is the
+ * message handed straight to SMTP, so a password reset still works without MariaDB.
+ */
+export async function sendMail(mail: OutgoingMail): Promise<string | null> {
+	let id: number;
+	try {
+		id = await enqueueMail(mail);
+	} catch {
+		return deliverMail(mail);
+	}
+	return sendNow(id, deliverMail);
 }
 
 /** Drops the cached transport (tests that change SMTP settings between runs). */

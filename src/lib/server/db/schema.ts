@@ -342,3 +342,29 @@ export const processedEvents = mysqlTable('processed_events', {
 
 export type User = typeof users.$inferSelect;
 export type PublicUser = Omit<User, 'passwordHash'>;
+
+/**
+ * Mail waiting to go out. Every message is written here before it is sent, so an SMTP server
+ * that is down loses nothing; a drainer claims rows (claimedBy/claimedUntil) so two app
+ * processes never send the same row.
+ */
+export const outbox = mysqlTable(
+	'outbox',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		recipients: varchar('recipients', { length: 1000 }).notNull(),
+		subject: varchar('subject', { length: 300 }).notNull(),
+		textBody: text('text_body').notNull(),
+		htmlBody: text('html_body'),
+		replyTo: varchar('reply_to', { length: 255 }),
+		status: mysqlEnum('status', ['pending', 'sent']).notNull().default('pending'),
+		attempts: int('attempts').notNull().default(0),
+		lastError: varchar('last_error', { length: 500 }),
+		claimedBy: varchar('claimed_by', { length: 64 }),
+		claimedUntil: datetime('claimed_until'),
+		messageId: varchar('message_id', { length: 255 }),
+		createdAt: datetime('created_at').notNull(),
+		sentAt: datetime('sent_at')
+	},
+	(t) => [index('outbox_status_idx').on(t.status, t.claimedUntil)]
+);

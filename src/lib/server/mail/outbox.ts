@@ -1,0 +1,134 @@
+import { randomUUID } from 'node:crypto';
+import { and, eq, sql } from 'drizzle-orm';
+import { db } from '../db';
+import { outbox } from '../db/schema';
+import { config } from '../config';
+import type { OutgoingMail } from '../mail';
+
+/**
+ * The outbox: every message is written to MariaDB before the SMTP server is asked to take it,
+ * so mail survives an SMTP outage and an app restart. A row is sent by whoever claims it first
+ * — the request that wrote it, or the drainer of any app process — with an atomic UPDATE that
+ * sets a lease (claimed_by / claimed_until). Two processes can never hold the same lease, so a
+ * row is sent once; a row whose sender died mid-way is retried when its lease runs out.
+ */
+
+/** How long a claim lasts. Longer than the transport's timeouts put together (see mail.ts). */
+const LEASE_SECONDS = 120;
+/** After a failed attempt, wait this long before the row may be claimed again. */
+const RETRY_AFTER_SECONDS = 5;
+const BATCH = 20;
+
+export type Deliver = (mail: OutgoingMail) => Promise<string>;
+
+type Row = typeof outbox.$inferSelect;
+
+const asMail = (r: Row): OutgoingMail => ({
+	to: r.recipients.split(',').map((s) => s.trim()),
+	subject: r.subject,
+	text: r.textBody,
+	html: r.htmlBody ?? undefined,
+	replyTo: r.replyTo ?? undefined
+});
+
+/** Writes one message to the outbox as pending; returns its id. */
+export async function enqueueMail(mail: OutgoingMail): Promise<number> {
+	const [{ id }] = await db
+		.insert(outbox)
+		.values({
+			recipients: (Array.isArray(mail.to) ? mail.to : [mail.to]).join(', '),
+			subject: mail.subject,
+			textBody: mail.text,
+			htmlBody: mail.html ?? null,
+			replyTo: mail.replyTo ?? null,
+			createdAt: new Date()
+		})
+		.$returningId();
+	return id;
+}
+
+const claimable = sql`${outbox.status} = 'pending' and (${outbox.claimedUntil} is null or ${outbox.claimedUntil} < utc_timestamp())`;
+
+/** Claims pending rows (all due ones, or only `id`) for `token`; returns what was claimed. */
+async function claim(token: string, id?: number): Promise<Row[]> {
+	await db.execute(sql`update ${outbox}
+		set ${outbox.claimedBy} = ${token},
+			${outbox.claimedUntil} = utc_timestamp() + interval ${LEASE_SECONDS} second,
+			${outbox.attempts} = ${outbox.attempts} + 1
+		where ${claimable} ${id === undefined ? sql`` : sql`and ${outbox.id} = ${id}`}
+		order by ${outbox.id} limit ${BATCH}`);
+	return db
+		.select()
+		.from(outbox)
+		.where(and(eq(outbox.claimedBy, token), eq(outbox.status, 'pending')));
+}
+
+async function sendClaimed(rows: Row[], token: string, deliver: Deliver) {
+	let sent = 0;
+	for (const row of rows) {
+		try {
+			const messageId = await deliver(asMail(row));
+			await db
+				.update(outbox)
+				.set({ status: 'sent', sentAt: new Date(), messageId, claimedBy: null, claimedUntil: null })
+				.where(and(eq(outbox.id, row.id), eq(outbox.claimedBy, token)));
+			sent++;
+		} catch (err) {
+			await db
+				.update(outbox)
+				.set({
+					lastError: String((err as Error)?.message ?? err).slice(0, 500),
+					claimedBy: null,
+					claimedUntil: sql`utc_timestamp() + interval ${RETRY_AFTER_SECONDS} second`
+				})
+				.where(and(eq(outbox.id, row.id), eq(outbox.claimedBy, token)));
+		}
+	}
+	return sent;
+}
+
+/** Tries to send one row now (right after it was written); false leaves it for the drainer. */
+export async function sendNow(id: number, deliver: Deliver): Promise<string | null> {
+	const token = randomUUID();
+	const rows = await claim(token, id);
+	if (rows.length === 0) return null;
+	await sendClaimed(rows, token, deliver);
+	const [row] = await db
+		.select({ messageId: outbox.messageId })
+		.from(outbox)
+		.where(and(eq(outbox.id, id), eq(outbox.status, 'sent')));
+	return row?.messageId ?? null;
+}
+
+/** Sends every due pending row once; safe to run in several processes at the same time. */
+export async function drainOutbox(deliver: Deliver): Promise<number> {
+	let total = 0;
+	for (;;) {
+		const token = randomUUID();
+		const rows = await claim(token);
+		if (rows.length === 0) return total;
+		const sent = await sendClaimed(rows, token, deliver);
+		total += sent;
+		if (sent < rows.length) return total; // the server is failing: wait for the next round
+	}
+}
+
+/** Pending mail not yet sent (for tests and the workshop). */
+export async function pendingCount(): Promise<number> {
+	const [row] = await db
+		.select({ n: sql<number>`count(*)`.mapWith(Number) })
+		.from(outbox)
+		.where(eq(outbox.status, 'pending'));
+	return row?.n ?? 0;
+}
+
+/** One timer per process; every process may run it (claims keep them apart). */
+export function startOutboxDrainer() {
+	const timer = setInterval(() => {
+		void import('../mail')
+			.then(({ deliverMail }) => drainOutbox(deliverMail))
+			.catch((err) => console.error('Sending queued mail failed', err));
+	}, config.mail.outboxEveryMs);
+	timer.unref();
+	process.once('sveltekit:shutdown', () => clearInterval(timer));
+}
