@@ -119,7 +119,13 @@ export function reconcile(t: TallyInput) {
 		const expectedLeft = l.loadedOut - l.sold;
 		const difference = l.counted === null ? null : l.counted - expectedLeft;
 		const verdict: StockVerdict =
-			difference === null ? 'not counted' : difference === 0 ? 'ok' : difference < 0 ? 'missing' : 'extra';
+			difference === null
+				? 'not counted'
+				: difference === 0
+					? 'ok'
+					: difference < 0
+						? 'missing'
+						: 'extra';
 		return { ...l, expectedLeft, difference, verdict };
 	});
 
@@ -146,7 +152,10 @@ export function reconcile(t: TallyInput) {
 	const cardUnexplained = cardVerdict === 'over' || cardVerdict === 'short' ? cardDifference! : 0;
 
 	const takings = sum((e) => e.kind === 'sale', total);
-	const taxDue = sum((e) => e.kind === 'sale', (e) => e.taxMinor);
+	const taxDue = sum(
+		(e) => e.kind === 'sale',
+		(e) => e.taxMinor
+	);
 	const otherTakings = sum(sale('other'), total);
 	// Deposits belong to their orders, not to the fair's net; cash and card gaps are real money.
 	const net =

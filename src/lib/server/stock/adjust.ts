@@ -35,7 +35,8 @@ export class StockError extends Error {
  * transaction. Returns the new quantity and whether it went below zero.
  */
 export async function adjustStock(tx: Tx, a: Adjustment) {
-	if (!Number.isInteger(a.delta) || a.delta === 0) throw new Error('Stock change must be a whole, non-zero number');
+	if (!Number.isInteger(a.delta) || a.delta === 0)
+		throw new Error('Stock change must be a whole, non-zero number');
 	const where = and(
 		eq(stock.pieceId, a.pieceId),
 		eq(stock.woodId, a.woodId),
@@ -46,7 +47,11 @@ export async function adjustStock(tx: Tx, a: Adjustment) {
 		.insert(stock)
 		.values({ pieceId: a.pieceId, woodId: a.woodId, place: a.place, quantity: 0 })
 		.onDuplicateKeyUpdate({ set: { quantity: sql`${stock.quantity}` } });
-	const [row] = await tx.select({ id: stock.id, quantity: stock.quantity }).from(stock).where(where).for('update');
+	const [row] = await tx
+		.select({ id: stock.id, quantity: stock.quantity })
+		.from(stock)
+		.where(where)
+		.for('update');
 	const next = row.quantity + a.delta;
 	if (next < 0 && !a.allowNegative) {
 		throw new StockError(
