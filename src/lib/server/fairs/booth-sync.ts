@@ -32,7 +32,7 @@ function priceEntry(
 	catalogue: Map<string, FairPiece>,
 	seller: Seller
 ) {
-	const lines = [];
+	const lines: { piece: FairPiece; quantity: number }[] = [];
 	for (const l of sale.lines) {
 		const piece = catalogue.get(`${l.pieceSlug}/${l.woodSlug}`);
 		if (!piece)

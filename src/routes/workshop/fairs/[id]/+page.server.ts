@@ -56,7 +56,7 @@ export const actions: Actions = {
 		const user = requireRole(event, 'owner', 'helper');
 		const id = fairIdParam(event.params.id);
 		const form = await event.request.formData();
-		const lines = [];
+		const lines: { pieceId: number; woodId: number; quantity: number }[] = [];
 		for (const [key, value] of form) {
 			const m = /^take-(\d+)-(\d+)$/.exec(key);
 			if (!m || formText(value).trim() === '' || formText(value).trim() === '0') continue;
