@@ -98,7 +98,7 @@ export const loadOutLineSchema = z.object({
 });
 
 export const BOOTH_MAX_SALES = 1000;
-export const BOOTH_MAX_BYTES = 1_000_000;
+export const BOOTH_MAX_BYTES = 2_000_000;
 /** How many the booth screen sends at once: well under the limits above. */
 export const BOOTH_CHUNK = 50;
 

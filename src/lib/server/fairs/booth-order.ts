@@ -17,6 +17,7 @@ import { personalisedPriceMinor } from '$lib/personalised-price';
 import { priceSale } from '$lib/reconcile';
 import type { BoothOrder } from '$lib/schemas/fairs';
 import { FairError } from './errors';
+import { fairStateShared } from './fairs';
 
 const REF_ALPHABET = '23456789ABCDEFGHJKMNPQRSTVWXYZ';
 const newRef = () =>
@@ -49,8 +50,7 @@ export async function placeBoothOrder(
 	try {
 		return await withRetry(() =>
 			db.transaction(async (tx) => {
-				const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('share');
-				if (!fair) throw new FairError('There is no such fair.', 404);
+				const fair = await fairStateShared(tx, fairId);
 				if (fair.closedAt)
 					throw new FairError(`${fair.name} is closed; it takes no more orders.`, 409);
 				const priced = priceSale(
@@ -108,8 +108,9 @@ export async function placeBoothOrder(
 					title: row.piece.title,
 					woodName: row.wood.name,
 					quantity: 1,
-					unitPriceMinor: unit,
-					lineTotalMinor: unit,
+					// Net of tax, so the order's lines add up to its subtotal as online orders do.
+					unitPriceMinor: priced.taxableMinor,
+					lineTotalMinor: priced.taxableMinor,
 					personalisation: made.snapshot
 				});
 				await tx.update(boothSales).set({ orderId }).where(eq(boothSales.id, o.id));

@@ -5,7 +5,7 @@ import { isDuplicateKey, withRetry } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { boothSaleSchema, type BoothSale } from '$lib/schemas/fairs';
 import { maxDiscount, priceSale } from '$lib/reconcile';
-import { fairPieces, getFair, type Fair, type FairPiece } from './fairs';
+import { fairPieces, fairStateShared, getFair, type Fair, type FairPiece } from './fairs';
 import { FairError } from './errors';
 
 export type SyncAnswer = {
@@ -154,11 +154,7 @@ type Priced = Exclude<ReturnType<typeof priceEntry>, { error: string }>;
 async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Seller) {
 	await db.transaction(async (tx) => {
 		// Shares the fair row with other sales but waits for a close in progress (and vice versa).
-		const [fair] = await tx
-			.select({ closedAt: fairs.closedAt, name: fairs.name })
-			.from(fairs)
-			.where(eq(fairs.id, fairId))
-			.for('share');
+		const fair = await fairStateShared(tx, fairId);
 		if (fair.closedAt) throw new FairError(`${fair.name} is closed; it takes no more sales.`, 409);
 		await tx.insert(boothSales).values({
 			id: sale.id,

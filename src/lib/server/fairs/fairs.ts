@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gte } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import type { FairForm } from '$lib/schemas/fairs';
@@ -102,3 +102,24 @@ export async function fairPieces(fairId: number, conn: Db | Tx = db) {
 	}));
 }
 export type FairPiece = Awaited<ReturnType<typeof fairPieces>>[number];
+
+/**
+ * Reads the fair's open/closed state under a shared lock (MariaDB spells it LOCK IN SHARE MODE):
+ * many sales may hold it at once, while a close (FOR UPDATE) waits for them and they for it.
+ */
+export async function fairStateShared(tx: Tx, fairId: number) {
+	const [rows] = (await tx.execute(
+		sql`select name, closed_at as closedAt, sales_tax_bp as salesTaxBp, prices_include_tax as pricesIncludeTax, currency from fairs where id = ${fairId} lock in share mode`
+	)) as unknown as [
+		{
+			name: string;
+			closedAt: Date | null;
+			salesTaxBp: number;
+			pricesIncludeTax: number;
+			currency: string;
+		}[]
+	];
+	const row = rows[0];
+	if (!row) throw new FairError('There is no such fair.', 404);
+	return { ...row, pricesIncludeTax: Boolean(row.pricesIncludeTax) };
+}
