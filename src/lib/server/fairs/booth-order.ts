@@ -1,16 +1,7 @@
 import { randomInt } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db';
-import {
-	boothSales,
-	fairs,
-	orderLines,
-	orders,
-	pieces,
-	pieceWoods,
-	woods,
-	type Role
-} from '../db/schema';
+import { boothSales, orderLines, orders, pieces, pieceWoods, woods, type Role } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { personalise } from '../personalise';
 import { personalisedPriceMinor } from '$lib/personalised-price';

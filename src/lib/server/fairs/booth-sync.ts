@@ -1,6 +1,6 @@
 import { eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
-import { boothSales, fairs, type Role } from '../db/schema';
+import { boothSales, type Role } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { boothSaleSchema, type BoothSale } from '$lib/schemas/fairs';

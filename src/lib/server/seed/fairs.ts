@@ -9,7 +9,6 @@
  */
 import { and, eq } from 'drizzle-orm';
 import * as schema from '../db/schema';
-import type { Tx as AppTx } from '../db';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { priceSale } from '../../reconcile';
 import type { SeedDb } from './extras';
@@ -137,9 +136,8 @@ const FAIRS: DemoFair[] = [
 ];
 
 export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
-	const t = tx as unknown as AppTx;
 	const owner = ids.userIds['hollis@chipstall.test'] ?? null;
-	const helper = ids.userIds['wren@chipstall.test'] ?? owner;
+	const helper = ids.userIds['wren@chipstall.test'] || owner;
 	for (const d of FAIRS) {
 		const start = new Date(now.getTime() + d.startDay * DAY);
 		const [{ id }] = await tx
@@ -161,20 +159,20 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 			const line = { pieceId: ids.pieceIds[p], woodId: ids.woodIds[w], userId: owner };
 			const gone = (sold.get(key(p, w)) ?? 0) + (d.missing?.[key(p, w)] ?? 0);
 			if (d.closed && gone > 0) {
-				await adjustStock(t, {
+				await adjustStock(tx, {
 					...line,
 					place: 'workshop',
 					delta: gone,
 					reason: `Carved for ${d.fair.name}`
 				});
 			}
-			await adjustStock(t, {
+			await adjustStock(tx, {
 				...line,
 				place: 'workshop',
 				delta: -q,
 				reason: `Loaded out to ${d.fair.name}`
 			});
-			await adjustStock(t, {
+			await adjustStock(tx, {
 				...line,
 				place: fairPlace(id),
 				delta: q,
@@ -230,7 +228,7 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 				recordedBy: helper
 			});
 			for (const l of pieces) {
-				await adjustStock(t, {
+				await adjustStock(tx, {
 					pieceId: l.pieceId,
 					woodId: l.woodId,
 					place: fairPlace(id),
@@ -259,13 +257,13 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 			const back = left - (d.missing?.[key(p, w)] ?? 0);
 			const line = { pieceId: ids.pieceIds[p], woodId: ids.woodIds[w], userId: owner };
 			if (back > 0) {
-				await adjustStock(t, {
+				await adjustStock(tx, {
 					...line,
 					place: fairPlace(id),
 					delta: -back,
 					reason: `Back from ${d.fair.name}`
 				});
-				await adjustStock(t, {
+				await adjustStock(tx, {
 					...line,
 					place: 'workshop',
 					delta: back,
@@ -273,7 +271,7 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 				});
 			}
 			if (left - back > 0) {
-				await adjustStock(t, {
+				await adjustStock(tx, {
 					...line,
 					place: fairPlace(id),
 					delta: -(left - back),
