@@ -174,7 +174,13 @@ test('twenty sales made offline are stored once, however often they are sent', a
 		const five = await Promise.all(Array.from({ length: 5 }, () => send(body)));
 		for (const r of five) expect(((await r.json()) as { accepted: string[] }).accepted).toEqual([]);
 	}
-	await page.reload();
+	await page.goto('/fairs');
+	await expect(
+		page.getByRole('listitem').filter({ hasText: 'Riverbank Winter Market' })
+	).toContainText('Old Granary, Linden Ford');
+	await page.goto('/');
+	await expect(page.getByTestId('next-fair')).toBeVisible();
+	await page.goto(`${fairUrl}/booth`);
 	const cashSales = (await page.getByTestId('day-cash').textContent()) ?? '';
 	expect(cashSales).toContain('20 sales');
 });

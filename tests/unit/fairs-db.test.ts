@@ -14,6 +14,9 @@ import { syncSales } from '../../src/lib/server/fairs/booth-sync';
 import { placeBoothOrder } from '../../src/lib/server/fairs/booth-order';
 import { closeFair, fairTally, saveTally } from '../../src/lib/server/fairs/tally';
 import { fairCsv, fairReport } from '../../src/lib/server/fairs/report';
+import { moneyCsv, moneyReport } from '../../src/lib/server/fairs/money-report';
+import { checklistPdf } from '../../src/lib/server/fairs/checklist-pdf';
+import { PDFDocument } from 'pdf-lib';
 import { FairError } from '../../src/lib/server/fairs/errors';
 import { fairFormSchema, countSchema } from '../../src/lib/schemas/fairs';
 import { POST } from '../../src/routes/api/booth/[fairId]/sales/+server';
@@ -296,5 +299,43 @@ describe('tally, close and report', () => {
 		expect(parsed.data.filter((row) => row.kind === 'sale')).toHaveLength(
 			r.entries.filter((e) => e.kind === 'sale').length
 		);
+	});
+
+	it('writes the money report as a CSV that reads back to its totals', async () => {
+		const r = await moneyReport();
+		const parsed = Papa.parse<Record<string, string>>(moneyCsv(r), {
+			header: true,
+			skipEmptyLines: true
+		});
+		expect(parsed.errors).toEqual([]);
+		const cents = (col: string) =>
+			parsed.data.reduce((a, row) => a + Math.round(Number(row[col]) * 100), 0);
+		// Checked with papaparse (a general-purpose RFC 4180 CSV parser).
+		expect(cents('sales_before_tax')).toBe(r.totals.salesMinor);
+		expect(cents('sales_tax')).toBe(r.totals.taxMinor);
+		expect(cents('refunds')).toBe(r.totals.refundsMinor);
+		expect(parsed.data.some((row) => row.channel === 'fair sales')).toBe(true);
+	});
+});
+
+describe('packing checklist', () => {
+	it('prints on A4 (210 × 297 mm) and US Letter (8.5 × 11 in)', async () => {
+		const fair = { name: 'Test', place: 'Hall', startsOn: '2026-06-01', endsOn: '2026-06-01' };
+		const lines = Array.from({ length: 40 }, (_, i) => ({
+			title: `Piece ${i}`,
+			woodName: 'Basswood',
+			quantity: 2
+		}));
+		// ISO 216 A4 and ANSI Letter, at 72 pt per inch (ISO 32000-1 user space).
+		for (const [paper, w, h] of [
+			['a4', 595.28, 841.89],
+			['letter', 612, 792]
+		] as const) {
+			const doc = await PDFDocument.load(await checklistPdf(fair, lines, paper));
+			expect(doc.getPageCount()).toBeGreaterThan(1);
+			const size = doc.getPage(0).getSize();
+			expect(size.width).toBeCloseTo(w, 1);
+			expect(size.height).toBeCloseTo(h, 1);
+		}
 	});
 });
