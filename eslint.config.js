@@ -30,7 +30,8 @@ export default ts.config(
 			globals: { ...globals.browser, ...globals.node },
 			parserOptions: {
 				// Type-aware rules (floating promises) need the project's types, .svelte files included.
-				projectService: true,
+				// The service worker has its own libs (webworker), so SvelteKit's tsconfig leaves it out.
+				projectService: { allowDefaultProject: ['src/service-worker.ts'] },
 				extraFileExtensions: ['.svelte'],
 				tsconfigRootDir: import.meta.dirname
 			}

@@ -8,25 +8,36 @@ export function isRetryable(err: unknown): boolean {
 	return RETRYABLE.has(e?.errno ?? -1) || RETRYABLE.has(e?.cause?.errno ?? -1);
 }
 
+/** Duplicate key (1062): another request stored the same row first. */
 export function isDuplicateKey(err: unknown): boolean {
-	const e = err as { code?: string; cause?: { code?: string } } | null;
-	return e?.code === 'ER_DUP_ENTRY' || e?.cause?.code === 'ER_DUP_ENTRY';
+	const e = err as { errno?: number; code?: string; cause?: { errno?: number; code?: string } } | null;
+	return (
+		e?.errno === 1062 ||
+		e?.cause?.errno === 1062 ||
+		e?.code === 'ER_DUP_ENTRY' ||
+		e?.cause?.code === 'ER_DUP_ENTRY'
+	);
 }
 
 /**
- * Runs `work` in one transaction, and again (a few times, with a short random pause) when
- * InnoDB picks it as a deadlock victim or a lock wait times out. The whole transaction was
- * rolled back, so running it again is safe.
+ * Runs `run` again (a few times, with a short random pause) when InnoDB picks it as a deadlock
+ * victim or a lock wait times out. `run` must be one whole transaction, which was rolled back,
+ * so running it again is safe.
  */
-export async function transact<T>(work: (tx: Tx) => Promise<T>, attempts = 5): Promise<T> {
+export async function withRetry<T>(run: () => Promise<T>, attempts = 5): Promise<T> {
 	for (let i = 1; ; i++) {
 		try {
-			return await db.transaction(work);
+			return await run();
 		} catch (err) {
 			if (i >= attempts || !isRetryable(err)) throw err;
 			await new Promise((r) => setTimeout(r, 10 + Math.random() * 40 * i));
 		}
 	}
+}
+
+/** One transaction, retried on deadlock or lock-wait timeout. */
+export function transact<T>(work: (tx: Tx) => Promise<T>, attempts = 5): Promise<T> {
+	return withRetry(() => db.transaction(work), attempts);
 }
 
 /** Uses the caller's transaction when there is one, or opens a retried one. */

@@ -195,6 +195,8 @@ export const orders = mysqlTable(
 		status: mysqlEnum('status', orderStatuses).notNull().default('pending'),
 		checkoutSessionId: varchar('checkout_session_id', { length: 255 }),
 		paymentIntentId: varchar('payment_intent_id', { length: 255 }),
+		/** Part paid up front (a booth order's deposit); the rest is due before it ships. */
+		depositMinor: int('deposit_minor'),
 		refundedMinor: int('refunded_minor').notNull().default(0),
 		readyBy: date('ready_by', { mode: 'string' }),
 		holdExpiresAt: datetime('hold_expires_at'),
@@ -260,7 +262,19 @@ export const fairs = mysqlTable('fairs', {
 	/** Sales-tax rate in basis points (7.65 % → 765). */
 	salesTaxBp: int('sales_tax_bp').notNull().default(0),
 	cashFloatMinor: int('cash_float_minor').notNull().default(0),
-	notes: text('notes')
+	notes: text('notes'),
+	/** Costs besides the booth fee (travel, table hire, lunch for the helper), one sum. */
+	otherCostsMinor: int('other_costs_minor').notNull().default(0),
+	/** Whether the price tags already hold the sales tax (tax is then taken out, not added). */
+	pricesIncludeTax: boolean('prices_include_tax').notNull().default(false),
+	/** Card reader's fee on each card sale, basis points (2.6 % → 260). */
+	cardFeeBp: int('card_fee_bp').notNull().default(0),
+	/** Largest discount a helper may give on one sale, basis points of its subtotal. */
+	helperDiscountBp: int('helper_discount_bp').notNull().default(1000),
+	/** Hours the booth was open over the whole fair, in minutes (for net per hour). */
+	openMinutes: int('open_minutes').notNull().default(480),
+	/** Set once when the fair is closed and unsold pieces went back to the workshop. */
+	closedAt: datetime('closed_at')
 });
 
 export const fairStock = mysqlTable(
@@ -277,12 +291,16 @@ export const fairStock = mysqlTable(
 			.notNull()
 			.references(() => woods.id),
 		loadedOut: int('loaded_out').notNull().default(0),
-		countedBack: int('counted_back')
+		countedBack: int('counted_back'),
+		/** Pieces sent back to the workshop when the fair was closed. */
+		returned: int('returned')
 	},
 	(t) => [uniqueIndex('fair_stock_line').on(t.fairId, t.pieceId, t.woodId)]
 );
 
 export const paymentMethods = ['cash', 'card', 'other'] as const;
+export type PaymentMethod = (typeof paymentMethods)[number];
+export const boothEntryKinds = ['sale', 'deposit'] as const;
 
 export const boothSales = mysqlTable('booth_sales', {
 	/** Generated on the phone so a sale synced twice is stored once. */
@@ -300,7 +318,15 @@ export const boothSales = mysqlTable('booth_sales', {
 	soldAt: datetime('sold_at').notNull(),
 	recordedBy: varchar('recorded_by', { length: 36 }).references(() => users.id, {
 		onDelete: 'set null'
-	})
+	}),
+	/** 'deposit': money taken at the booth towards a personalised order (orderId set, no lines). */
+	kind: mysqlEnum('kind', boothEntryKinds).notNull().default('sale'),
+	orderId: int('order_id').references(() => orders.id, { onDelete: 'set null' }),
+	discountMinor: int('discount_minor').notNull().default(0),
+	tenderedMinor: int('tendered_minor'),
+	/** Sold more than the fair's stock showed: stored anyway (the buyer has the piece), checked at the tally. */
+	flagged: boolean('flagged').notNull().default(false),
+	receivedAt: datetime('received_at')
 });
 
 export const tallies = mysqlTable('tallies', {
@@ -311,6 +337,8 @@ export const tallies = mysqlTable('tallies', {
 	day: date('day', { mode: 'string' }).notNull(),
 	cashCountedMinor: int('cash_counted_minor'),
 	cardReportedMinor: int('card_reported_minor'),
+	/** Cash taken out of the box during the fair (change run, lunch), entered at the tally. */
+	cashPaidOutMinor: int('cash_paid_out_minor').notNull().default(0),
 	createdBy: varchar('created_by', { length: 36 }).references(() => users.id, {
 		onDelete: 'set null'
 	}),
@@ -332,6 +360,26 @@ export const orderHistory = mysqlTable(
 		createdAt: datetime('created_at').notNull()
 	},
 	(t) => [index('order_history_order').on(t.orderId, t.id)]
+);
+
+/** Every change of stock, with who and why; `stock.quantity` is the running sum. */
+export const stockAdjustments = mysqlTable(
+	'stock_adjustments',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		pieceId: int('piece_id')
+			.notNull()
+			.references(() => pieces.id, { onDelete: 'cascade' }),
+		woodId: int('wood_id')
+			.notNull()
+			.references(() => woods.id),
+		place: varchar('place', { length: 40 }).notNull(),
+		delta: int('delta').notNull(),
+		reason: varchar('reason', { length: 160 }).notNull(),
+		userId: varchar('user_id', { length: 36 }).references(() => users.id, { onDelete: 'set null' }),
+		createdAt: datetime('created_at').notNull()
+	},
+	(t) => [index('stock_adjustments_piece').on(t.pieceId, t.createdAt)]
 );
 
 export const processedEvents = mysqlTable('processed_events', {

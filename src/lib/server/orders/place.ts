@@ -55,7 +55,8 @@ function addressOf(buyer: CheckoutInput): Address {
 	};
 }
 
-async function uniqueRef(tx: Tx) {
+/** A fresh order reference no order holds yet. */
+export async function uniqueRef(tx: Tx) {
 	let ref = newOrderRef();
 	for (let i = 0; i < 5; i++) {
 		const [clash] = await tx.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref));

@@ -23,6 +23,7 @@ import { WOODS, densityAt12 } from '../../woods';
 import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
 import { seedSettings } from './settings';
 import { computePattern } from '../../pattern';
+import { seedDemoFairs } from './fairs';
 
 /** The snapshot the shop would have stored for these initials (same fields, same engine). */
 function demoSnapshot(
@@ -515,7 +516,7 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 		]);
 
 		await seedSettings(tx);
-		await seedFairs(tx, now, pieceIds, woodIds, userIds);
+		await seedDemoFairs(tx, now, { pieceIds, woodIds, userIds });
 		await seedOrders(tx, now, pieceIds, woodIds, userIds);
 		return { pieceIds, woodIds, userIds } satisfies DemoSeedResult;
 	});
@@ -538,119 +539,6 @@ type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
 function unitPrice(piece: string, wood: string) {
 	const p = DEMO_PIECES.find((x) => x.slug === piece)!;
 	return p.basePriceMinor + (WOOD_ADD_ON[wood] ?? 0);
-}
-
-/** One past fair with sales and an end-of-day tally, one coming with stock planned. */
-async function seedFairs(
-	tx: Tx,
-	now: Date,
-	pieceIds: Record<string, number>,
-	woodIds: Record<string, number>,
-	userIds: Record<string, string>
-) {
-	const pastStart = daysFromNow(-26, now);
-	const salesTaxBp = 725;
-	const cashFloatMinor = 15000;
-	const [{ id: pastId }] = await tx
-		.insert(schema.fairs)
-		.values({
-			name: 'Linden Ford Harvest Fair',
-			place: 'Mill Green, Linden Ford',
-			startsOn: isoDate(pastStart),
-			endsOn: isoDate(pastStart),
-			currency: 'USD',
-			boothFeeMinor: 12000,
-			salesTaxBp,
-			cashFloatMinor,
-			notes: 'Corner pitch by the cider press. Bring the second table cloth.'
-		})
-		.$returningId();
-
-	const loaded: [string, string, number][] = [
-		['rosette-ornament', 'basswood', 10],
-		['rosette-ornament', 'butternut', 4],
-		['trinket-box', 'basswood', 3],
-		['coffee-scoop', 'cherry', 3],
-		['rosette-bottle-holder', 'basswood', 2]
-	];
-	// [piece, wood, quantity, method]: what Wren and Hollis rang up on the day.
-	const sales: [string, string, number, 'cash' | 'card' | 'other'][] = [
-		['rosette-ornament', 'basswood', 2, 'cash'],
-		['rosette-ornament', 'basswood', 1, 'card'],
-		['rosette-ornament', 'butternut', 1, 'cash'],
-		['trinket-box', 'basswood', 1, 'card'],
-		['coffee-scoop', 'cherry', 2, 'cash'],
-		['rosette-bottle-holder', 'basswood', 1, 'card'],
-		['rosette-ornament', 'basswood', 2, 'other']
-	];
-	const sold = (piece: string, wood: string) =>
-		sales.filter((s) => s[0] === piece && s[1] === wood).reduce((a, s) => a + s[2], 0);
-	await tx.insert(schema.fairStock).values(
-		loaded.map(([piece, wood, n]) => ({
-			fairId: pastId,
-			pieceId: pieceIds[piece],
-			woodId: woodIds[wood],
-			loadedOut: n,
-			// One basswood ornament did not come back: the tally shows it as missing.
-			countedBack:
-				n - sold(piece, wood) - (piece === 'rosette-ornament' && wood === 'basswood' ? 1 : 0)
-		}))
-	);
-
-	let cashTakings = 0;
-	let cardTakings = 0;
-	for (const [i, [piece, wood, quantity, method]] of sales.entries()) {
-		const unit = unitPrice(piece, wood);
-		const subtotal = unit * quantity;
-		const tax = Math.round((subtotal * salesTaxBp) / 10_000);
-		if (method === 'cash') cashTakings += subtotal + tax;
-		if (method === 'card') cardTakings += subtotal + tax;
-		await tx.insert(schema.boothSales).values({
-			id: crypto.randomUUID(),
-			fairId: pastId,
-			method,
-			lines: [{ pieceId: pieceIds[piece], woodId: woodIds[wood], quantity, unitPriceMinor: unit }],
-			subtotalMinor: subtotal,
-			taxMinor: tax,
-			totalMinor: subtotal + tax,
-			soldAt: new Date(pastStart.getTime() + (10 + i * 0.75) * 3_600_000),
-			recordedBy: userIds['wren@chipstall.test']
-		});
-	}
-	await tx.insert(schema.tallies).values({
-		fairId: pastId,
-		day: isoDate(pastStart),
-		// Counted 2.00 over: a buyer waved off their change.
-		cashCountedMinor: cashFloatMinor + cashTakings + 200,
-		cardReportedMinor: cardTakings,
-		createdBy: userIds['wren@chipstall.test'],
-		createdAt: new Date(pastStart.getTime() + 18 * 3_600_000)
-	});
-
-	const comingStart = daysFromNow(24, now);
-	const [{ id: comingId }] = await tx
-		.insert(schema.fairs)
-		.values({
-			name: 'Riverbank Winter Market',
-			place: 'Old Granary, Linden Ford',
-			startsOn: isoDate(comingStart),
-			endsOn: isoDate(daysFromNow(25, now)),
-			currency: 'USD',
-			boothFeeMinor: 18000,
-			salesTaxBp,
-			cashFloatMinor: 20000,
-			notes: 'Indoor, two days. Ornaments sell best here.'
-		})
-		.$returningId();
-	await tx.insert(schema.fairStock).values([
-		{
-			fairId: comingId,
-			pieceId: pieceIds['rosette-ornament'],
-			woodId: woodIds.basswood,
-			loadedOut: 8
-		},
-		{ fairId: comingId, pieceId: pieceIds['trinket-box'], woodId: woodIds.walnut, loadedOut: 1 }
-	]);
 }
 
 async function seedOrders(

@@ -1,0 +1,69 @@
+import { and, asc, eq } from 'drizzle-orm';
+import { db } from '../db';
+import { pieces, pieceWoods, woods } from '../db/schema';
+import { personalisedPriceMinor } from '$lib/personalised-price';
+import { fairPieces, getFair } from './fairs';
+import { boothEntries } from './tally';
+
+/**
+ * What the booth screen needs, and no more: the fair's pieces with prices, what can be ordered
+ * personalised, and today's sales by method — counts for everyone, money only for the owner.
+ */
+export async function boothView(
+	fairId: number,
+	owner: boolean,
+	today = new Date().toISOString().slice(0, 10)
+) {
+	const fair = await getFair(fairId);
+	const [stockLines, entries, orderable] = await Promise.all([
+		fairPieces(fairId),
+		boothEntries(fairId),
+		db
+			.select({
+				pieceSlug: pieces.slug,
+				title: pieces.title,
+				woodSlug: woods.slug,
+				woodName: woods.name,
+				base: pieces.basePriceMinor,
+				addOn: woods.priceAddOnMinor
+			})
+			.from(pieces)
+			.innerJoin(pieceWoods, eq(pieceWoods.pieceId, pieces.id))
+			.innerJoin(woods, eq(woods.id, pieceWoods.woodId))
+			.where(and(eq(pieces.personalisable, true), eq(pieces.active, true)))
+			.orderBy(asc(pieces.title), asc(woods.name))
+	]);
+	const todays = entries.filter(
+		(e) => e.kind === 'sale' && e.soldAt.toISOString().slice(0, 10) === today
+	);
+	const day = (['cash', 'card', 'other'] as const).map((method) => {
+		const of = todays.filter((e) => e.method === method);
+		return {
+			method,
+			count: of.length,
+			totalMinor: owner ? of.reduce((a, e) => a + e.totalMinor, 0) : null
+		};
+	});
+	return {
+		fair: {
+			id: fair.id,
+			name: fair.name,
+			currency: fair.currency,
+			salesTaxBp: fair.salesTaxBp,
+			pricesIncludeTax: fair.pricesIncludeTax,
+			helperDiscountBp: fair.helperDiscountBp,
+			closed: Boolean(fair.closedAt)
+		},
+		pieces: stockLines.map((p) => ({
+			pieceSlug: p.pieceSlug,
+			woodSlug: p.woodSlug,
+			title: p.title,
+			woodName: p.woodName,
+			unitMinor: p.unitMinor,
+			onHand: p.onHand
+		})),
+		orderable: orderable.map((o) => ({ ...o, unitMinor: personalisedPriceMinor(o.base, o.addOn) })),
+		day,
+		owner
+	};
+}

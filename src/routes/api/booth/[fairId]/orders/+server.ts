@@ -1,0 +1,26 @@
+import { json } from '@sveltejs/kit';
+import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { placeBoothOrder } from '$lib/server/fairs/booth-order';
+import { readBoothJson } from '$lib/server/fairs/read-json';
+import { FairError } from '$lib/server/fairs/errors';
+import { boothOrderSchema } from '$lib/schemas/fairs';
+import type { RequestHandler } from './$types';
+
+/** A personalised order taken at the booth, with its deposit; resending it stores nothing new. */
+export const POST: RequestHandler = async (event) => {
+	const user = requireRoleApi(event, 'owner', 'helper');
+	const fairId = Number(event.params.fairId);
+	if (!Number.isInteger(fairId) || fairId <= 0) return apiError(404, 'There is no such fair.');
+	try {
+		const parsed = boothOrderSchema.safeParse(await readBoothJson(event.request));
+		if (!parsed.success) {
+			const fields: Record<string, string[]> = {};
+			for (const i of parsed.error.issues) (fields[String(i.path[0])] ??= []).push(i.message);
+			return apiError(400, parsed.error.issues[0].message, fields);
+		}
+		return json(await placeBoothOrder(fairId, parsed.data, user));
+	} catch (err) {
+		if (err instanceof FairError) return apiError(err.status, err.message);
+		throw err;
+	}
+};

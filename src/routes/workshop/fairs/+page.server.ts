@@ -1,0 +1,44 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { requireRole } from '$lib/server/auth/guard';
+import { createFair, listFairs } from '$lib/server/fairs/fairs';
+import { fairTally } from '$lib/server/fairs/tally';
+import { fieldErrors } from '$lib/server/fairs/http';
+import { fairFormSchema } from '$lib/schemas/fairs';
+import { formText } from '$lib/form-text';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, 'owner', 'helper');
+	const owner = user.role === 'owner';
+	const fairs = await listFairs();
+	return {
+		owner,
+		fairs: await Promise.all(
+			fairs.map(async (f) => ({
+				id: f.id,
+				name: f.name,
+				place: f.place,
+				startsOn: f.startsOn,
+				endsOn: f.endsOn,
+				closed: Boolean(f.closedAt),
+				currency: f.currency,
+				// Money stays with the owner (helpers see counts, never the net or the fees).
+				netMinor: owner ? (await fairTally(f.id)).result.net : null
+			}))
+		)
+	};
+};
+
+export const actions: Actions = {
+	create: async (event) => {
+		requireRole(event, 'owner');
+		const form = Object.fromEntries(await event.request.formData());
+		const parsed = fairFormSchema.safeParse(form);
+		if (!parsed.success) {
+			const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, formText(v)]));
+			return fail(400, { errors: fieldErrors(parsed.error), values });
+		}
+		const id = await createFair(parsed.data);
+		redirect(303, `/workshop/fairs/${id}`);
+	}
+};

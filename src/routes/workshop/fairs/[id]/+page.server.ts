@@ -1,0 +1,78 @@
+import { fail } from '@sveltejs/kit';
+import { requireRole } from '$lib/server/auth/guard';
+import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
+import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
+import { fairIdParam, fieldErrors, orFail, orPageError } from '$lib/server/fairs/http';
+import { fairFormSchema, loadOutLineSchema } from '$lib/schemas/fairs';
+import { fairFormValues } from '$lib/fair-form-values';
+import { formText } from '$lib/form-text';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, 'owner', 'helper');
+	const id = fairIdParam(event.params.id);
+	const fair = await orPageError(() => getFair(id));
+	const pieces = await fairPieces(id);
+	return {
+		owner: user.role === 'owner',
+		fair: {
+			id: fair.id,
+			name: fair.name,
+			place: fair.place,
+			startsOn: fair.startsOn,
+			endsOn: fair.endsOn,
+			closed: Boolean(fair.closedAt),
+			notes: fair.notes
+		},
+		formValues: user.role === 'owner' ? fairFormValues(fair) : null,
+		loaded: pieces.map((p) => ({
+			key: p.fairStockId,
+			title: p.title,
+			woodName: p.woodName,
+			loadedOut: p.loadedOut,
+			onHand: p.onHand,
+			returned: p.returned
+		})),
+		shelf: fair.closedAt ? [] : await workshopShelf()
+	};
+};
+
+export const actions: Actions = {
+	save: async (event) => {
+		requireRole(event, 'owner');
+		const id = fairIdParam(event.params.id);
+		const form = Object.fromEntries(await event.request.formData());
+		const parsed = fairFormSchema.safeParse(form);
+		if (!parsed.success) {
+			const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, formText(v)]));
+			return fail(400, { errors: fieldErrors(parsed.error), values });
+		}
+		return orFail(async () => {
+			await updateFair(id, parsed.data);
+			return { saved: true };
+		});
+	},
+	loadOut: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const id = fairIdParam(event.params.id);
+		const form = await event.request.formData();
+		const lines: { pieceId: number; woodId: number; quantity: number }[] = [];
+		for (const [key, value] of form) {
+			const m = /^take-(\d+)-(\d+)$/.exec(key);
+			if (!m || formText(value).trim() === '' || formText(value).trim() === '0') continue;
+			const parsed = loadOutLineSchema.safeParse({
+				pieceId: m[1],
+				woodId: m[2],
+				quantity: formText(value)
+			});
+			if (!parsed.success) {
+				return fail(400, { loadOutError: parsed.error.issues[0].message, key });
+			}
+			lines.push(parsed.data);
+		}
+		return orFail(async () => {
+			await loadOut(id, lines, user.id);
+			return { loaded: lines.reduce((a, l) => a + l.quantity, 0) };
+		});
+	}
+};

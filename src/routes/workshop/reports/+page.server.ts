@@ -1,0 +1,8 @@
+import { requireRole } from '$lib/server/auth/guard';
+import { moneyReport } from '$lib/server/fairs/money-report';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	requireRole(event, 'owner');
+	return { report: await moneyReport() };
+};
