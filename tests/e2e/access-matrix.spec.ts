@@ -28,7 +28,13 @@ async function fixtures(): Promise<Fixtures> {
 		const [[photo]] = (await conn.query(
 			'select storage_key as k from photos order by id limit 1'
 		)) as unknown as [{ k: string }[]];
-		return { lineId: line.id, photoKey: photo.k };
+		const [[fair]] = (await conn.query(
+			'select id from fairs where closed_at is not null order by id limit 1'
+		)) as unknown as [{ id: number }[]];
+		const [[piece]] = (await conn.query(
+			'select id from pieces order by id limit 1'
+		)) as unknown as [{ id: number }[]];
+		return { lineId: line.id, photoKey: photo.k, closedFairId: fair.id, pieceId: piece.id };
 	} finally {
 		await conn.end();
 	}

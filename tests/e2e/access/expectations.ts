@@ -13,7 +13,10 @@ export type RoleName = 'anonymous' | 'customer' | 'helper' | 'owner';
 export const ROLE_NAMES: RoleName[] = ['anonymous', 'customer', 'helper', 'owner'];
 
 /** Values looked up in the seeded demo database before the matrix runs. */
-export type Fixtures = { lineId: number; photoKey: string };
+export type Fixtures = { lineId: number; photoKey: string; closedFairId: number; pieceId: number };
+
+/** Actions on a piece go to an id no piece has, so a matrix run never retires or edits one. */
+const NO_PIECE = 999999;
 
 export type Expectation = Record<RoleName, Outcome> & {
 	/** The concrete address to call; defaults to the route itself. */
@@ -32,6 +35,9 @@ const staffApi = {
 	helper: 'ok',
 	owner: 'ok'
 } as const;
+/** A write through the API with an empty body: refused for outsiders, a 4xx message for staff. */
+const staffApiWrite = { ...staffApi, helper: 'allowed', owner: 'allowed' } as const;
+const ownerApiWrite = { ...staffApiWrite, helper: 'forbidden' } as const;
 /** Pages for signing in: shown to visitors, signed-in people are sent on. */
 const guestPage = {
 	anonymous: 'ok',
@@ -40,6 +46,9 @@ const guestPage = {
 	owner: 'redirect'
 } as const;
 
+/** A page of a fair that has closed, so no matrix call can change an open one. */
+const FAIR = (sub: string) => (f: Fixtures) => `/workshop/fairs/${f.closedFairId}${sub}`;
+
 export const EXPECTATIONS: Record<string, Expectation> = {
 	// Public shop.
 	'GET /': every('ok'),
@@ -47,7 +56,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'GET /shop/[slug]': { ...every('ok'), url: '/shop/rosette-bottle-holder' },
 	'POST /shop/[slug]?/add': { ...every('allowed'), url: '/shop/rosette-bottle-holder?/add' },
 	'GET /safety': every('ok'),
-	'GET /photos/[...key]': { ...every('ok'), url: (f) => `/photos/${f.photoKey}/640.webp` },
+	'GET /contact': every('ok'),
+	'GET /policies': every('ok'),
+	'GET /fairs': every('ok'),
+	'GET /photos/[...key]': { ...every('ok'), url: (f) => `/photos/${f.photoKey}/400.webp` },
 	'GET /cart': every('ok'),
 	'POST /cart?/quantity': every('allowed'),
 	'POST /cart?/remove': every('allowed'),
@@ -88,6 +100,16 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	},
 	'POST /api/payments/webhook': every('allowed'),
 	'GET /api/workshop/orders': staffApi,
+	'POST /api/uploads': ownerApiWrite,
+	// Booth writes go to a closed fair: staff get its plain refusal, nothing is stored.
+	'POST /api/booth/[fairId]/sales': {
+		...staffApiWrite,
+		url: (f) => `/api/booth/${f.closedFairId}/sales`
+	},
+	'POST /api/booth/[fairId]/orders': {
+		...staffApiWrite,
+		url: (f) => `/api/booth/${f.closedFairId}/orders`
+	},
 
 	// Workshop.
 	'GET /workshop': staff,
@@ -97,6 +119,43 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...staff,
 		url: (f) => `/workshop/orders/CS-1001/lines/${f.lineId}/template.pdf`
 	},
+	'GET /workshop/orders/[ref]/packing-slip.pdf': {
+		...staff,
+		url: '/workshop/orders/CS-1001/packing-slip.pdf'
+	},
+	'GET /workshop/orders/[ref]/gift-slip.pdf': {
+		...staff,
+		url: '/workshop/orders/CS-1001/gift-slip.pdf'
+	},
+	'GET /workshop/orders/packing-slips.pdf': {
+		...staff,
+		url: '/workshop/orders/packing-slips.pdf?refs=CS-1001,CS-1002'
+	},
+	'GET /workshop/pieces': ownerOnly,
+	'GET /workshop/pieces/new': ownerOnly,
+	'POST /workshop/pieces/new': ownerAction,
+	'GET /workshop/pieces/[id]': { ...ownerOnly, url: (f) => `/workshop/pieces/${f.pieceId}` },
+	...Object.fromEntries(
+		['alt', 'deletePhoto', 'move', 'restore', 'retire', 'save'].map((a) => [
+			`POST /workshop/pieces/[id]?/${a}`,
+			{ ...ownerAction, url: `/workshop/pieces/${NO_PIECE}?/${a}` }
+		])
+	),
+	// Fairs: staff sell and count; the owner alone creates, edits, closes and sees the money.
+	'GET /workshop/fairs': staff,
+	'POST /workshop/fairs?/create': ownerAction,
+	'GET /workshop/fairs/[id]': { ...staff, url: FAIR('') },
+	'POST /workshop/fairs/[id]?/save': { ...ownerAction, url: FAIR('?/save') },
+	'POST /workshop/fairs/[id]?/loadOut': { ...staffAction, url: FAIR('?/loadOut') },
+	'GET /workshop/fairs/[id]/booth': { ...staff, url: FAIR('/booth') },
+	'GET /workshop/fairs/[id]/checklist.pdf': { ...staff, url: FAIR('/checklist.pdf') },
+	'GET /workshop/fairs/[id]/tally': { ...staff, url: FAIR('/tally') },
+	'POST /workshop/fairs/[id]/tally?/counts': { ...staffAction, url: FAIR('/tally?/counts') },
+	'POST /workshop/fairs/[id]/tally?/close': { ...ownerAction, url: FAIR('/tally?/close') },
+	'GET /workshop/fairs/[id]/report': { ...ownerOnly, url: FAIR('/report') },
+	'GET /workshop/fairs/[id]/report.csv': { ...ownerOnly, url: FAIR('/report.csv') },
+	'GET /workshop/reports': ownerOnly,
+	'GET /workshop/reports/money.csv': ownerOnly,
 	'GET /workshop/layout': ownerOnly,
 	'GET /workshop/layout/template.pdf': ownerAction,
 	'GET /workshop/people': ownerOnly,
@@ -104,5 +163,9 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'POST /workshop/people?/promote': ownerAction,
 	'POST /workshop/people?/remove': ownerAction,
 	'GET /workshop/settings': ownerOnly,
-	'POST /workshop/settings?/tax': ownerAction
+	'POST /workshop/settings?/tax': ownerAction,
+	'POST /workshop/settings?/shop': ownerAction,
+	'POST /workshop/settings?/away': ownerAction,
+	'POST /workshop/settings?/rates': ownerAction,
+	'POST /workshop/settings?/policies': ownerAction
 };
