@@ -6,6 +6,7 @@
  * page from the build's manifest, and lab LCP from Lighthouse. Prints; never fails on a target.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { config } from '../src/lib/server/config';
@@ -47,6 +48,8 @@ Object.assign(e, {
 });
 const base = e.ORIGIN!;
 const PIECE = '/shop/rosette-bottle-holder';
+/** App processes for the second load run: BENCH_PROCESSES, else one per core. */
+const PROCESSES = Math.max(2, Number(e.BENCH_PROCESSES) || availableParallelism());
 const PATTERN = '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HMW&wood=cherry';
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const out: string[] = [];
@@ -87,13 +90,21 @@ try {
 	const engine = await engineTimings();
 	engine.lines.forEach((l) => say(l));
 
-	app.push(
-		spawnTracked('bench-app', process.execPath, [e.CHIPSTALL_BUILD_DIR!], {
-			ports: [appPort],
-			quiet: true
-		})
-	);
-	for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
+	/** Starts the built app with `processes` workers (WEB_CONCURRENCY, see scripts/adapter/cluster.js). */
+	const startApp = async (processes: number) => {
+		await stopAll(app.splice(0));
+		app.push(
+			spawnTracked('bench-app', process.execPath, [e.CHIPSTALL_BUILD_DIR!], {
+				env: { ...e, WEB_CONCURRENCY: String(processes) },
+				ports: [appPort],
+				quiet: true
+			})
+		);
+		for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
+		// Every worker answers before the clock starts (the port opens with the first).
+		for (let i = 0; i < processes * 4; i++) await (await fetch(`${base}/shop`)).arrayBuffer();
+	};
+	await startApp(1);
 	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 	const cookie = await signInCookie(base, owner.email, owner.password);
 	const shopRes = await fetch(`${base}/shop`);
@@ -124,6 +135,19 @@ try {
 	say(`shop/bare ratio: ${ratio(load[1]).toFixed(2)}`);
 	say(`piece/bare ratio: ${ratio(load[2]).toFixed(2)}`);
 	say('targets: ratio ≥ 0.30, p99 < 50 ms at 50 connections');
+
+	say(
+		`\n== The same with ${PROCESSES} app processes (node:cluster, WEB_CONCURRENCY=${PROCESSES}); bare server still one process`
+	);
+	await startApp(PROCESSES);
+	const clustered: LoadFigure[] = [
+		await measure('/shop', `${base}/shop`),
+		await measure(`${PIECE}`, `${base}${PIECE}`)
+	];
+	clustered.forEach((f) => say(formatLoad(f)));
+	say(`shop/bare ratio (${PROCESSES} processes): ${ratio(clustered[0]).toFixed(2)}`);
+	say(`piece/bare ratio (${PROCESSES} processes): ${ratio(clustered[1]).toFixed(2)}`);
+	await startApp(1);
 
 	say('\n== Database statements per request (MariaDB Questions counter, 50 sequential requests)');
 	const queries = {
@@ -181,6 +205,9 @@ try {
 				connections: CONNECTIONS,
 				durationS: DURATION_S,
 				appProcesses: 1,
+				clustered: { processes: PROCESSES, load: clustered },
+				shopBareRatioClustered: ratio(clustered[0]),
+				pieceBareRatioClustered: ratio(clustered[1]),
 				engine: engine.figures,
 				load,
 				shopBareRatio: ratio(load[1]),
