@@ -23,7 +23,7 @@ type Stored = {
 	status: number;
 	headers: [string, string][];
 	etag: string | null;
-	body: Uint8Array | string;
+	body: Uint8Array<ArrayBuffer> | string;
 	/** The CSP nonce in the stored page, replaced by a fresh one on every answer. */
 	nonce: string | null;
 };
