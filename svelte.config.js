@@ -13,9 +13,6 @@ const config = {
 		// `node build` runs WEB_CONCURRENCY processes (scripts/adapter/cluster.js).
 		adapter: clustered(adapter({ out }), out),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
-		// The stylesheet (≈34 KB, ≈7 KB gzip) goes inside each page: one render-blocking request
-		// fewer before the first paint, which on a slow phone link is most of the wait.
-		inlineStyleThreshold: 40_000,
 		csrf: { trustedOrigins: [] },
 		typescript: {
 			// Type-check (and type-aware lint) the scripts, stand-ins and root config files too.

@@ -47,7 +47,10 @@ const apiErrors: Handle = async ({ event, resolve }) => {
 export const handle = sequence(
 	availabilityHandle,
 	pageCacheHandle,
-	httpCacheHandle, sessionHandle, apiErrors);
+	httpCacheHandle,
+	sessionHandle,
+	apiErrors
+);
 
 /** Unexpected errors: logged here in full, shown to the visitor without any detail. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

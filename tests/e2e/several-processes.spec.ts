@@ -153,6 +153,9 @@ test('a price the owner edits on one process reaches the cached public pages of 
 			}
 		}
 	} finally {
-		await pool.query('update pieces set base_price_minor = ? where id = ?', [piece.price, piece.id]);
+		await pool.query('update pieces set base_price_minor = ? where id = ?', [
+			piece.price,
+			piece.id
+		]);
 	}
 });

@@ -39,7 +39,12 @@ export function drawPreview(p: PreviewInput): Preview {
 		.slice(0, 3);
 	const input = snapshotInput(
 		styledLayout(p.pattern, ROSETTE_STYLES[p.style] ? p.style : 'classic', initials),
-		{ widthMm: p.widthMm, lengthMm: p.lengthMm, thicknessMm: p.thicknessMm, curvedTop: p.curvedTop },
+		{
+			widthMm: p.widthMm,
+			lengthMm: p.lengthMm,
+			thicknessMm: p.thicknessMm,
+			curvedTop: p.curvedTop
+		},
 		p.wood
 	);
 	const font = letterFont();
