@@ -1,5 +1,8 @@
 import adapter from '@sveltejs/adapter-node';
 import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
+import { clustered } from './scripts/adapter/cluster.js';
+
+const out = process.env.CHIPSTALL_BUILD_DIR || 'build';
 
 /** @type {import('@sveltejs/kit').Config} */
 const config = {
@@ -7,7 +10,8 @@ const config = {
 	compilerOptions: { runes: true },
 	kit: {
 		// The test command builds into its own folders so it never overwrites `build/` under a running app.
-		adapter: adapter({ out: process.env.CHIPSTALL_BUILD_DIR || 'build' }),
+		// `node build` runs WEB_CONCURRENCY processes (scripts/adapter/cluster.js).
+		adapter: clustered(adapter({ out }), out),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
 		csrf: { trustedOrigins: [] },
 		typescript: {

@@ -6,6 +6,7 @@
  * page from the build's manifest, and lab LCP from Lighthouse. Prints; never fails on a target.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { config } from '../src/lib/server/config';
@@ -47,6 +48,8 @@ Object.assign(e, {
 });
 const base = e.ORIGIN!;
 const PIECE = '/shop/rosette-bottle-holder';
+/** App processes for the second load run: BENCH_PROCESSES, else one per core. */
+const PROCESSES = Math.max(2, Number(e.BENCH_PROCESSES) || availableParallelism());
 const PATTERN = '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HMW&wood=cherry';
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const out: string[] = [];
@@ -87,13 +90,24 @@ try {
 	const engine = await engineTimings();
 	engine.lines.forEach((l) => say(l));
 
-	app.push(
-		spawnTracked('bench-app', process.execPath, [e.CHIPSTALL_BUILD_DIR!], {
-			ports: [appPort],
-			quiet: true
-		})
-	);
-	for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
+	/** Starts the built app with `processes` workers (WEB_CONCURRENCY, see scripts/adapter/cluster.js). */
+	const startApp = async (processes: number) => {
+		// Let requests still running from the last load finish before their process stops.
+		if (app.length) await sleep(1500);
+		await stopAll(app.splice(0));
+		app.push(
+			spawnTracked('bench-app', process.execPath, [e.CHIPSTALL_BUILD_DIR!], {
+				env: { ...e, WEB_CONCURRENCY: String(processes) },
+				ports: [appPort],
+				quiet: true
+			})
+		);
+		for (let i = 0; i < 200 && !(await portAnswers(appPort)); i++) await sleep(100);
+		// Every worker answers before the clock starts (the port opens with the first).
+		for (let i = 0; i < processes * 100; i++)
+			for (const p of ['/shop', PIECE]) await (await fetch(`${base}${p}`)).arrayBuffer();
+	};
+	await startApp(1);
 	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 	const cookie = await signInCookie(base, owner.email, owner.password);
 	const shopRes = await fetch(`${base}/shop`);
@@ -124,6 +138,19 @@ try {
 	say(`shop/bare ratio: ${ratio(load[1]).toFixed(2)}`);
 	say(`piece/bare ratio: ${ratio(load[2]).toFixed(2)}`);
 	say('targets: ratio ≥ 0.30, p99 < 50 ms at 50 connections');
+
+	say(
+		`\n== The same with ${PROCESSES} app processes (node:cluster, WEB_CONCURRENCY=${PROCESSES}); bare server still one process`
+	);
+	await startApp(PROCESSES);
+	const clustered: LoadFigure[] = [
+		await measure('/shop', `${base}/shop`),
+		await measure(`${PIECE}`, `${base}${PIECE}`)
+	];
+	clustered.forEach((f) => say(formatLoad(f)));
+	say(`shop/bare ratio (${PROCESSES} processes): ${ratio(clustered[0]).toFixed(2)}`);
+	say(`piece/bare ratio (${PROCESSES} processes): ${ratio(clustered[1]).toFixed(2)}`);
+	await startApp(1);
 
 	say('\n== Database statements per request (MariaDB Questions counter, 50 sequential requests)');
 	const queries = {
@@ -166,8 +193,11 @@ try {
 
 	say('\n== Lab LCP (Lighthouse 12.2.3, mobile preset, Debian Chromium; target < 1.0 s)');
 	const lcp = { shop: labLcp(`${base}/shop`, work), piece: labLcp(`${base}${PIECE}`, work) };
-	for (const [k, v] of Object.entries(lcp))
+	for (const [k, v] of Object.entries(lcp)) {
 		say(`${k.padEnd(6)} ${v.lcpMs === null ? v.note : `${v.lcpMs} ms`}`);
+		if (v.element) say(`       largest paint: ${v.element}`);
+		if (v.blocking?.length) say(`       render-blocking: ${v.blocking.join(', ')}`);
+	}
 
 	say(
 		'\nFigures on a shared 2-core machine vary with whatever else runs; compare runs side by side.'
@@ -181,6 +211,9 @@ try {
 				connections: CONNECTIONS,
 				durationS: DURATION_S,
 				appProcesses: 1,
+				clustered: { processes: PROCESSES, load: clustered },
+				shopBareRatioClustered: ratio(clustered[0]),
+				pieceBareRatioClustered: ratio(clustered[1]),
 				engine: engine.figures,
 				load,
 				shopBareRatio: ratio(load[1]),

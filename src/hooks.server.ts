@@ -11,6 +11,7 @@ import { startHoldSweeper } from '$lib/server/orders/holds';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
+import { pageCacheHandle } from '$lib/server/handles/page-cache';
 
 export const init: ServerInit = () => {
 	startHoldSweeper();
@@ -43,7 +44,13 @@ const apiErrors: Handle = async ({ event, resolve }) => {
 	return toApiErrorResponse(response);
 };
 
-export const handle = sequence(availabilityHandle, httpCacheHandle, sessionHandle, apiErrors);
+export const handle = sequence(
+	availabilityHandle,
+	pageCacheHandle,
+	httpCacheHandle,
+	sessionHandle,
+	apiErrors
+);
 
 /** Unexpected errors: logged here in full, shown to the visitor without any detail. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

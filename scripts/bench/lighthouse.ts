@@ -18,14 +18,23 @@ const FLAGS = [
 	'--no-first-run'
 ].join(' ');
 
-export function labLcp(url: string, dir: string): { lcpMs: number | null; note?: string } {
+export type LabLcp = { lcpMs: number | null; note?: string; element?: string; blocking?: string[] };
+
+/** The LCP element's snippet from the report ("what was the largest paint"), when Lighthouse named it. */
+function lcpElement(audit: unknown): string | undefined {
+	const items = (audit as { details?: { items?: { items?: { node?: { snippet?: string } }[] }[] } })
+		?.details?.items;
+	return items?.[0]?.items?.[0]?.node?.snippet?.slice(0, 160);
+}
+
+export function labLcp(url: string, dir: string): LabLcp {
 	if (!existsSync(CHROMIUM)) return { lcpMs: null, note: `${CHROMIUM} is not installed` };
 	const out = path.join(dir, `lighthouse-${Date.now()}.json`);
 	const r = spawnSync(
 		BIN('lighthouse'),
 		[
 			url,
-			'--only-audits=largest-contentful-paint',
+			'--only-audits=largest-contentful-paint,largest-contentful-paint-element,render-blocking-resources',
 			'--output=json',
 			`--output-path=${out}`,
 			`--chrome-flags=${FLAGS}`,
@@ -38,12 +47,22 @@ export function labLcp(url: string, dir: string): { lcpMs: number | null; note?:
 		return { lcpMs: null, note: `Lighthouse did not run: ${why.join(' | ')}` };
 	}
 	const report = JSON.parse(readFileSync(out, 'utf8')) as {
-		audits: Record<string, { numericValue?: number }>;
+		audits: Record<
+			string,
+			{ numericValue?: number; details?: { items?: { url?: string; wastedMs?: number }[] } }
+		>;
 		runtimeError?: { message: string };
 	};
 	rmSync(out, { force: true });
 	const v = report.audits['largest-contentful-paint']?.numericValue;
 	if (v === undefined)
 		return { lcpMs: null, note: report.runtimeError?.message ?? 'no LCP in the report' };
-	return { lcpMs: Math.round(v) };
+	const blocking = (report.audits['render-blocking-resources']?.details?.items ?? []).map(
+		(i) => `${i.url?.replace(/^https?:\/\/[^/]+/, '')} (${Math.round(i.wastedMs ?? 0)} ms)`
+	);
+	return {
+		lcpMs: Math.round(v),
+		element: lcpElement(report.audits['largest-contentful-paint-element']),
+		blocking
+	};
 }

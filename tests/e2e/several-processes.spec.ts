@@ -11,13 +11,16 @@ import { startApp, signInCookie, type AppProcess } from '../helpers/app-process'
 import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';
 import { demoAccount } from './helpers/auth';
 
+const SWEEP_MS = 1000;
 let a: AppProcess;
 let b: AppProcess;
 let pool: mysql.Pool;
 
 test.beforeAll(async () => {
 	test.setTimeout(60_000);
-	[a, b] = await Promise.all([startApp(), startApp()]);
+	// A one-second hold sweep, so the test can watch several turns (each process looks every 250 ms).
+	const fast = { HOLD_SWEEP_EVERY_MS: String(SWEEP_MS) };
+	[a, b] = await Promise.all([startApp(fast), startApp(fast)]);
 	pool = mysql.createPool({ uri: process.env.DATABASE_URL!, connectionLimit: 2 });
 });
 
@@ -95,5 +98,64 @@ test('catalogue changes made elsewhere show on every process within seconds', as
 		expect(before).not.toContain(changed);
 	} finally {
 		await pool.query('update pieces set title = ? where slug = ?', [row.title, slug]);
+	}
+});
+
+test('the hold sweeper runs once per interval in total, not once per process', async () => {
+	const [[start]] = (await pool.query('select now(3) as at')) as unknown as [{ at: Date }[]];
+	const windowMs = 6000;
+	await new Promise((r) => setTimeout(r, windowMs + 300));
+	const [runs] = (await pool.query(
+		`select ran_by from job_runs where name = 'hold-sweep'
+		 and ran_at > ? and ran_at <= ? + interval ? microsecond order by ran_at`,
+		[start.at, start.at, windowMs * 1000]
+	)) as unknown as [{ ran_by: string }[]];
+	// Two processes looking four times a second would sweep ~48 times in 6 s without the shared
+	// turn; with it, turns are at least 950 ms apart: at most 7 in the window. On a loaded
+	// machine a turn may come late, so at least 3.
+	expect(runs.length).toBeGreaterThanOrEqual(3);
+	expect(runs.length).toBeLessThanOrEqual(7);
+});
+
+test('a price the owner edits on one process reaches the cached public pages of both', async ({
+	context,
+	page
+}) => {
+	const slug = 'rosette-bottle-holder';
+	const [[piece]] = (await pool.query(
+		'select id, base_price_minor as price from pieces where slug = ?',
+		[slug]
+	)) as unknown as [{ id: number; price: number }[]];
+	const newPrice = piece.price + 1234;
+	const shown = (newPrice / 100).toFixed(2);
+	// Visitors without cookies are answered from each process's page cache.
+	for (const app of [a, b]) {
+		for (const path of ['/shop', `/shop/${slug}`]) {
+			await fetch(`${app.url}${path}`);
+			const again = await fetch(`${app.url}${path}`);
+			expect(again.headers.get('x-page-cache')).toBe('hit');
+			expect(await again.text()).not.toContain(shown);
+		}
+	}
+	const { email, password } = demoAccount('owner');
+	const [name, value] = (await signInCookie(a.url, email, password)).split('=');
+	await context.addCookies([{ name, value, url: a.url }]);
+	try {
+		await page.goto(`${a.url}/workshop/pieces/${piece.id}`);
+		await page.getByLabel('Price (USD)').fill(shown);
+		await page.getByRole('button', { name: 'Save changes' }).click();
+		await expect(page.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+		for (const app of [a, b]) {
+			for (const path of ['/shop', `/shop/${slug}`]) {
+				await expect
+					.poll(async () => (await fetch(`${app.url}${path}`)).text(), { timeout: 5000 })
+					.toContain(shown);
+			}
+		}
+	} finally {
+		await pool.query('update pieces set base_price_minor = ? where id = ?', [
+			piece.price,
+			piece.id
+		]);
 	}
 });

@@ -14,7 +14,9 @@ import { db } from './db';
  *
  * Prices shown here are never trusted: checkout re-reads and re-prices under lock.
  */
-const CATALOGUE_TABLES = ['pieces', 'piece_woods', 'photos', 'stock', 'woods'];
+// `settings` too: the public pages cached whole (handles/page-cache.ts) show the shop's name,
+// address and away notice.
+const CATALOGUE_TABLES = ['pieces', 'piece_woods', 'photos', 'stock', 'woods', 'settings', 'fairs'];
 const CHECK_MS = 1000;
 /** Entries kept per process; the shop's filter combinations are few, but bound it anyway. */
 const MAX_ENTRIES = 500;

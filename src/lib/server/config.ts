@@ -11,6 +11,10 @@ export const config = {
 	get port() {
 		return num(e.PORT, 3000);
 	},
+	/** How often, across all app processes together, expired holds are swept (default a minute). */
+	get holdSweepEveryMs() {
+		return num(e.HOLD_SWEEP_EVERY_MS, 60_000);
+	},
 	get origin() {
 		return e.ORIGIN || `http://localhost:${this.port}`;
 	},

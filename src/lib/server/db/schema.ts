@@ -416,3 +416,21 @@ export const outbox = mysqlTable(
 	},
 	(t) => [index('outbox_status_idx').on(t.status, t.claimedUntil)]
 );
+
+/**
+ * One row per run of a job that must happen once per interval across all app processes (the hold
+ * sweeper): the runner checks here, under a database lock, when the job last ran anywhere.
+ */
+export const jobRuns = mysqlTable(
+	'job_runs',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		name: varchar('name', { length: 64 }).notNull(),
+		ranAt: datetime('ran_at', { fsp: 3 }).notNull(),
+		/** Which process ran it ("host:pid"), for the record. */
+		ranBy: varchar('ran_by', { length: 120 }).notNull(),
+		/** What the run did, e.g. orders released. */
+		count: int('count').notNull().default(0)
+	},
+	(t) => [index('job_runs_name_ran_at').on(t.name, t.ranAt)]
+);

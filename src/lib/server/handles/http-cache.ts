@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
+import { isPublicPage } from './public-pages';
 
 /**
  * ETag and Cache-Control for the public catalogue pages seen by visitors without cookies (the
@@ -7,14 +8,6 @@ import type { Handle } from '@sveltejs/kit';
  * with no body; `no-cache` makes it ask every time, so a price or stock change shows at once.
  * Anything personal — a signed-in visitor, a basket, an order link — is left alone.
  */
-const PUBLIC_PAGES = [/^\/$/, /^\/shop(\/[^/]+)?\/?$/, /^\/safety\/?$/];
-const DATA_SUFFIX = /\/__data\.json$/;
-
-function isPublicPage(pathname: string): boolean {
-	const page = pathname.replace(DATA_SUFFIX, '') || '/';
-	return PUBLIC_PAGES.some((re) => re.test(page));
-}
-
 export const httpCacheHandle: Handle = async ({ event, resolve }) => {
 	const { request, url } = event;
 	const cacheable =

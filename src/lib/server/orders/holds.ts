@@ -8,6 +8,8 @@ import { db, type Tx } from '../db';
 import { transact } from '../db/retry';
 import { orderLines, orders, stock, WORKSHOP } from '../db/schema';
 import { moveOrder } from './status';
+import { config } from '../config';
+import { startOncePerInterval } from '../jobs/once-per-interval';
 
 type Want = { pieceId: number; woodId: number; quantity: number };
 
@@ -150,16 +152,10 @@ export async function releaseExpiredHolds(now = new Date()): Promise<number> {
 	}
 }
 
-const EVERY_MS = 60_000;
-
 /**
- * Sweeps once a minute, in case the payment provider's expiry event never arrives. The timer is
- * unref'd so it never keeps the server alive on shutdown.
+ * Sweeps once a minute (HOLD_SWEEP_EVERY_MS) in total across all app processes, in case the
+ * payment provider's expiry event never arrives; each sweep is recorded in job_runs.
  */
 export function startHoldSweeper() {
-	const timer = setInterval(() => {
-		releaseExpiredHolds().catch((err) => console.error('Releasing expired holds failed', err));
-	}, EVERY_MS);
-	timer.unref();
-	process.once('sveltekit:shutdown', () => clearInterval(timer));
+	startOncePerInterval('hold-sweep', config.holdSweepEveryMs, () => releaseExpiredHolds());
 }

@@ -5,11 +5,38 @@ import { addLineSchema, fieldErrors } from '$lib/schemas/cart';
 import { hardnessWords, weightWords } from '$lib/woods';
 import type { Actions, PageServerLoad } from './$types';
 import { formText } from '$lib/form-text';
+import { drawPreview } from '$lib/pattern/personaliser-draw';
+import type { RosetteStyle } from '$lib/pattern/styles';
+
+/** The personaliser's first picture, for the props the page gives it (its id prefix is "pz"). */
+function previewFor(
+	piece: NonNullable<Awaited<ReturnType<typeof getPiece>>>,
+	chosen: { initials?: string; wood?: string; style?: string } = {}
+) {
+	const wood = piece.woods.some((w) => w.slug === chosen.wood) ? chosen.wood : piece.woods[0]?.slug;
+	const style: RosetteStyle =
+		chosen.style === 'split' || chosen.style === 'classic'
+			? chosen.style
+			: piece.pattern.split
+				? 'split'
+				: 'classic';
+	return drawPreview({
+		pattern: piece.pattern,
+		widthMm: piece.widthMm,
+		lengthMm: piece.lengthMm,
+		thicknessMm: piece.thicknessMm,
+		initials: chosen.initials ?? '',
+		wood,
+		style,
+		idPrefix: 'pz'
+	});
+}
 
 export const load: PageServerLoad = async ({ params }) => {
 	const piece = await getPiece(params.slug);
 	if (!piece) error(404, 'We do not have a piece at this address.');
 	return {
+		preview: previewFor(piece),
 		piece: {
 			...piece,
 			woods: piece.woods.map((w) => ({
@@ -46,7 +73,12 @@ export const actions: Actions = {
 		if (personalised && !values.initials.trim()) {
 			errors.initials = ['Type one to three letters for the rosette.'];
 		}
-		if (!parsed.success || Object.keys(errors).length) return fail(400, { errors, values });
+		if (!parsed.success || Object.keys(errors).length) {
+			// Without JavaScript the page comes back drawn for what was typed, not the blank default.
+			const piece = personalised ? await getPiece(params.slug) : null;
+			const preview = piece ? previewFor(piece, values) : undefined;
+			return fail(400, { errors, values, preview });
+		}
 
 		const input = { ...parsed.data, initials: personalised ? parsed.data.initials : undefined };
 		try {
