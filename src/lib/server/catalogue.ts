@@ -1,3 +1,4 @@
+import { PIECE_SLUG } from '$lib/schemas/plain-text';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { photos, pieces, pieceWoods, stock, woods, type PiecePattern } from './db/schema';
@@ -139,6 +140,9 @@ export async function woodFilterOptions() {
 
 /** One piece with everything its page shows; null when unknown or withdrawn. */
 export async function getPiece(slug: string) {
+	// The column's collation ignores some characters (a trailing NUL matched another piece):
+	// only a well-formed slug is looked up at all.
+	if (!PIECE_SLUG.test(slug)) return null;
 	const [p] = await db
 		.select()
 		.from(pieces)
