@@ -22,8 +22,8 @@ const address = {
 	postcode: '80302',
 	country: 'US'
 };
-const errorsOf = (r: { error?: z.ZodError }) =>
-	r.error ? z.flattenError(r.error).fieldErrors : ({} as Record<string, string[]>);
+const errorsOf = (r: { error?: z.ZodError }): Record<string, string[] | undefined> =>
+	r.error ? z.flattenError(r.error).fieldErrors : {};
 
 describe('hidden characters in free text are refused with a message (ASVS V5.1.4)', () => {
 	const hidden = {
