@@ -65,3 +65,7 @@ process.stdout.write(
 		''
 	].join('\n')
 );
+
+// The shop under a pattern-API flood (starts the app unless BENCH_URL is set).
+const { floodBench } = await import('./bench-flood');
+process.stdout.write((await floodBench()).join('\n') + '\n');
