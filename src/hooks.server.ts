@@ -43,7 +43,8 @@ const sessionHandle: Handle = async ({ event, resolve }) => {
 /** Security headers on every response; `Retry-After` when a throttle said no (RFC 6585 §4). */
 const headers: Handle = async ({ event, resolve }) => {
 	const response = withSecurityHeaders(await resolve(event), event.url.protocol === 'https:');
-	if (event.locals.retryAfterS) response.headers.set('retry-after', String(event.locals.retryAfterS));
+	if (event.locals.retryAfterS)
+		response.headers.set('retry-after', String(event.locals.retryAfterS));
 	return response;
 };
 

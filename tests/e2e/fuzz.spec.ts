@@ -13,17 +13,35 @@ const junk = fc.oneof(
 	fc.double({ noNaN: false }).map(String),
 	fc.constantFrom('', ' ', '0', '-1', '1e309', 'NaN', 'Infinity', '\u0000', '\u202e', '../', '%00')
 );
-const anyJson = fc.oneof(junk, fc.integer(), fc.double(), fc.boolean(), fc.constant(null), fc.array(junk, { maxLength: 3 }));
+const anyJson = fc.oneof(
+	junk,
+	fc.integer(),
+	fc.double(),
+	fc.boolean(),
+	fc.constant(null),
+	fc.array(junk, { maxLength: 3 })
+);
 
 test.describe.configure({ timeout: 120_000 });
 
 test('GET /api/pattern never answers 500', async ({ request }) => {
-	const keys = ['diameter', 'count', 'spacing', 'split', 'initials', 'wood', 'width', 'length', 'zzz'];
+	const keys = [
+		'diameter',
+		'count',
+		'spacing',
+		'split',
+		'initials',
+		'wood',
+		'width',
+		'length',
+		'zzz'
+	];
 	await fc.assert(
 		fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), junk, { maxKeys: 8 }), async (q) => {
 			const res = await request.get(`/api/pattern?${new URLSearchParams(q)}`);
 			expect(res.status(), JSON.stringify(q)).toBeLessThan(500);
-			if (res.status() >= 400) expect(typeof (await res.json()).error).toBe('string');
+			if (res.status() >= 400)
+				expect(typeof ((await res.json()) as { error?: unknown }).error).toBe('string');
 		}),
 		{ numRuns: 120 }
 	);
@@ -55,16 +73,30 @@ test('the checkout form never answers 500', async ({ request, baseURL }) => {
 		data: { slug: 'rosette-bottle-holder', wood: 'basswood', initials: 'FC' }
 	});
 	expect(add.status()).toBeLessThan(500);
-	const keys = ['name', 'email', 'line1', 'line2', 'city', 'region', 'postcode', 'country', 'giftNote', 'seenTotal'];
+	const keys = [
+		'name',
+		'email',
+		'line1',
+		'line2',
+		'city',
+		'region',
+		'postcode',
+		'country',
+		'giftNote',
+		'seenTotal'
+	];
 	await fc.assert(
-		fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), junk, { maxKeys: 10 }), async (form) => {
-			const res = await request.post('/checkout', {
-				form,
-				headers: { origin: baseURL!, accept: 'text/html' },
-				maxRedirects: 0
-			});
-			expect(res.status(), JSON.stringify(form)).toBeLessThan(500);
-		}),
+		fc.asyncProperty(
+			fc.dictionary(fc.constantFrom(...keys), junk, { maxKeys: 10 }),
+			async (form) => {
+				const res = await request.post('/checkout', {
+					form,
+					headers: { origin: baseURL!, accept: 'text/html' },
+					maxRedirects: 0
+				});
+				expect(res.status(), JSON.stringify(form)).toBeLessThan(500);
+			}
+		),
 		{ numRuns: 120 }
 	);
 });

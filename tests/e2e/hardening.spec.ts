@@ -8,7 +8,8 @@ import { spawn } from 'node:child_process';
 import { expect, test, type Page } from '@playwright/test';
 import { signInAs, signInWith } from './helpers/auth';
 
-const unique = (tag: string) => `${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
+const unique = (tag: string) =>
+	`${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
 
 test.describe('redirects stay on the site (OWASP unvalidated redirects; ASVS V5.1.5)', () => {
 	const PROBES = [
@@ -61,7 +62,10 @@ test.describe('security headers on every kind of response (OWASP CSP cheat sheet
 		expect(h['content-security-policy'], what).toContain("frame-ancestors 'none'");
 	};
 
-	test('page, API, PDF, photo-404, error page and 429 all carry them', async ({ request, page }) => {
+	test('page, API, PDF, photo-404, error page and 429 all carry them', async ({
+		request,
+		page
+	}) => {
 		const home = await request.get('/');
 		expectCommon(home.headers(), 'page');
 		const csp = home.headers()['content-security-policy'];
@@ -69,7 +73,10 @@ test.describe('security headers on every kind of response (OWASP CSP cheat sheet
 		expect(csp).not.toMatch(/script-src[^;]*'unsafe-inline'/);
 		expect(home.headers()['strict-transport-security']).toBeUndefined(); // plain http here
 
-		expectCommon((await request.get('/api/pattern?diameter=60&width=100&length=100')).headers(), 'API');
+		expectCommon(
+			(await request.get('/api/pattern?diameter=60&width=100&length=100')).headers(),
+			'API'
+		);
 		expectCommon((await request.get('/api/no-such-thing')).headers(), 'API 404');
 		expectCommon((await request.get('/no-such-page')).headers(), 'error page');
 		expectCommon((await request.get('/photos/pieces/none/640.webp')).headers(), 'photo 404');
@@ -95,7 +102,9 @@ async function watchCsp(page: Page) {
 	await page.addInitScript(() => {
 		(window as unknown as { __csp: string[] }).__csp = [];
 		document.addEventListener('securitypolicyviolation', (e) =>
-			(window as unknown as { __csp: string[] }).__csp.push(`${e.violatedDirective} ${e.blockedURI}`)
+			(window as unknown as { __csp: string[] }).__csp.push(
+				`${e.violatedDirective} ${e.blockedURI}`
+			)
 		);
 	});
 	return () => page.evaluate(() => (window as unknown as { __csp: string[] }).__csp ?? []);
@@ -109,9 +118,9 @@ test.describe('the personaliser, the planner and the payment page work under the
 		await page.goto('/shop/rosette-bottle-holder', { waitUntil: 'networkidle' });
 		const section = page.getByRole('region', { name: 'Carved with your initials' });
 		await section.getByRole('textbox', { name: 'Initials' }).fill('HM');
-		await expect(page.getByTestId('personaliser-preview').locator('svg > title').first()).toContainText(
-			'initials HM'
-		);
+		await expect(
+			page.getByTestId('personaliser-preview').locator('svg > title').first()
+		).toContainText('initials HM');
 		expect(await violations()).toEqual([]);
 	});
 
@@ -178,10 +187,16 @@ test.describe('throttling (ASVS V2.2.1; RFC 6585 §4: 429 with Retry-After)', ()
 		await expect(page.getByRole('alert')).toContainText('Too many tries. Please wait');
 	});
 
-	test('the sixth reset e-mail to one address in the window gets 429', async ({ request, baseURL }) => {
+	test('the sixth reset e-mail to one address in the window gets 429', async ({
+		request,
+		baseURL
+	}) => {
 		const email = unique('resetflood');
 		const post = () =>
-			request.post('/reset', { form: { email }, headers: { origin: baseURL!, accept: 'text/html' } });
+			request.post('/reset', {
+				form: { email },
+				headers: { origin: baseURL!, accept: 'text/html' }
+			});
 		for (let i = 0; i < 5; i++) expect((await post()).status()).toBe(200);
 		const res = await post();
 		expect(res.status()).toBe(429);
@@ -238,7 +253,7 @@ test.describe('production refuses default secrets (ASVS V14.1)', () => {
 		const base = { ...process.env };
 		for (const n of [...SECRET_NAMES, 'DATABASE_URL']) delete base[n];
 		const child = spawn(process.execPath, [buildDir], {
-			env: { ...base, PORT: String(port), ...env } as NodeJS.ProcessEnv,
+			env: { ...base, PORT: String(port), ...env },
 			stdio: ['ignore', 'pipe', 'pipe']
 		});
 		let out = '';

@@ -8,10 +8,17 @@ import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 
 /** The 14 standard fonts' metrics ship inside the package. */
 const standardFontDataUrl =
-	path.join(path.dirname(createRequire(import.meta.url).resolve('pdfjs-dist/package.json')), 'standard_fonts') + '/';
+	path.join(
+		path.dirname(createRequire(import.meta.url).resolve('pdfjs-dist/package.json')),
+		'standard_fonts'
+	) + '/';
 
 export async function pdfText(bytes: Uint8Array): Promise<string> {
-	const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, standardFontDataUrl }).promise;
+	const doc = await getDocument({
+		data: new Uint8Array(bytes),
+		useSystemFonts: false,
+		standardFontDataUrl
+	}).promise;
 	const pages: string[] = [];
 	for (let n = 1; n <= doc.numPages; n++) {
 		const content = await (await doc.getPage(n)).getTextContent();

@@ -43,7 +43,8 @@ async function run(action: (e: never) => unknown, e: unknown) {
 	}
 }
 
-const unique = (tag: string) => `${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
+const unique = (tag: string) =>
+	`${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;
 
 describe('sign-in throttle (ASVS V2.2.1, RFC 6585)', () => {
 	it('the 51st wrong password gets 429 with a wait; the right one works after the window', async () => {
@@ -80,7 +81,11 @@ describe('sign-in throttle (ASVS V2.2.1, RFC 6585)', () => {
 			Array.from({ length: 300 }, () => throttles.signInAddress.take(address))
 		);
 		expect(taken.every((v) => v.ok)).toBe(true);
-		const e = event('http://localhost/signin', { email: unique('spray'), password: 'guess' }, address);
+		const e = event(
+			'http://localhost/signin',
+			{ email: unique('spray'), password: 'guess' },
+			address
+		);
 		const r = await run(actions.default, e.ev);
 		expect(isActionFailure(r) && r.status).toBe(429);
 	});
@@ -133,7 +138,12 @@ describe('reset and sign-up do not tell who has an account (ASVS V2.5.2)', () =>
 		const email = unique('resetspam');
 		const results = [];
 		for (let i = 0; i < 6; i++)
-			results.push(await run(actions.default, event('http://localhost/reset', { email }, `192.0.2.${20 + i}`).ev));
+			results.push(
+				await run(
+					actions.default,
+					event('http://localhost/reset', { email }, `192.0.2.${20 + i}`).ev
+				)
+			);
 		expect(results.slice(0, 5).every((r) => !isActionFailure(r))).toBe(true);
 		expect(isActionFailure(results[5]) && results[5].status).toBe(429);
 	});
@@ -147,8 +157,14 @@ describe('reset and sign-up do not tell who has an account (ASVS V2.5.2)', () =>
 			confirm: 'a long password here'
 		});
 		const fresh = unique('fresh');
-		const a = await run(actions.default, event('http://localhost/signup', form(known), '192.0.2.40').ev);
-		const b = await run(actions.default, event('http://localhost/signup', form(fresh), '192.0.2.41').ev);
+		const a = await run(
+			actions.default,
+			event('http://localhost/signup', form(known), '192.0.2.40').ev
+		);
+		const b = await run(
+			actions.default,
+			event('http://localhost/signup', form(fresh), '192.0.2.41').ev
+		);
 		expect(a).toEqual({ sent: true, email: known });
 		expect(b).toEqual({ sent: true, email: fresh });
 	});

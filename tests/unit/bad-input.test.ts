@@ -29,7 +29,7 @@ describe('hidden characters in free text are refused with a message (ASVS V5.1.4
 	const hidden = {
 		'right-to-left override U+202E': 'Ada \u202Enednil',
 		'left-to-right isolate U+2066': 'Ada \u2066Linden\u2069',
-		'NUL': 'Ada\u0000Linden',
+		NUL: 'Ada\u0000Linden',
 		'escape (C0)': 'Ada\u001b[31mLinden',
 		'C1 control U+0085': 'Ada\u0085Linden',
 		'line break in a one-line field': 'Ada\nBcc: all@example.test'
@@ -52,13 +52,17 @@ describe('hidden characters in free text are refused with a message (ASVS V5.1.4
 	}
 
 	it('a gift note keeps its line breaks but not a bidi override', () => {
-		expect(checkoutSchema.safeParse({ ...address, giftNote: 'Happy birthday,\nlove Fern' }).success).toBe(true);
+		expect(
+			checkoutSchema.safeParse({ ...address, giftNote: 'Happy birthday,\nlove Fern' }).success
+		).toBe(true);
 		const r = checkoutSchema.safeParse({ ...address, giftNote: 'Happy \u202Eyadhtrib' });
 		expect(errorsOf(r).giftNote).toContain(HIDDEN_CHARACTERS_MESSAGE);
 	});
 
 	it('ordinary accented names and addresses still pass', () => {
-		expect(checkoutSchema.safeParse({ ...address, name: 'Zoë Ó Briain-Müller' }).success).toBe(true);
+		expect(checkoutSchema.safeParse({ ...address, name: 'Zoë Ó Briain-Müller' }).success).toBe(
+			true
+		);
 	});
 });
 
@@ -141,7 +145,9 @@ describe('pattern API: bounded work and a cache keyed by the normalised query', 
 						const { status, text } = patternJson(new URLSearchParams(s), null);
 						if (status !== 200) continue;
 						drawn++;
-						expect(patternWork(q(s)), s).toBeGreaterThanOrEqual(JSON.parse(text).chipCount);
+						expect(patternWork(q(s)), s).toBeGreaterThanOrEqual(
+							(JSON.parse(text) as { chipCount: number }).chipCount
+						);
 					}
 		expect(drawn).toBeGreaterThan(30);
 	});
@@ -151,7 +157,7 @@ describe('pattern API: bounded work and a cache keyed by the normalised query', 
 		expect(patternWork(q(heavy))).toBeGreaterThan(MAX_PATTERN_WORK);
 		const { status, text } = patternJson(new URLSearchParams(heavy), null);
 		expect(status).toBe(400);
-		expect(JSON.parse(text).error).toMatch(/too large.*fewer rosettes/);
+		expect((JSON.parse(text) as { error: string }).error).toMatch(/too large.*fewer rosettes/);
 	});
 
 	it('the same layout asked differently is one cache entry', () => {

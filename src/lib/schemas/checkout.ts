@@ -35,10 +35,15 @@ export const checkoutSchema = z
 		line1: text('the street address', 120),
 		line2: plain(z.string().trim().max(120, 'Keep this line under 120 characters.')).optional(),
 		city: text('the town or city', 80),
-		region: plain(z.string().trim().max(80, 'Keep the state or region under 80 characters.')).optional(),
+		region: plain(
+			z.string().trim().max(80, 'Keep the state or region under 80 characters.')
+		).optional(),
 		postcode: z.string().trim().toUpperCase().max(12, 'That postcode is too long.'),
 		country: z.enum(COUNTRIES, { error: 'Choose a country we post to.' }),
-		giftNote: plain(z.string().trim().max(500, 'Keep the gift note under 500 characters.'), true).optional(),
+		giftNote: plain(
+			z.string().trim().max(500, 'Keep the gift note under 500 characters.'),
+			true
+		).optional(),
 		/** What the buyer was shown; used only to tell them when the price has changed. */
 		seenTotal: z.coerce.number().int().nonnegative().optional().catch(undefined)
 	})

@@ -15,8 +15,7 @@ export function declaredTooLarge(request: Request, limit = API_BODY_LIMIT): Resp
 }
 
 export type JsonBody =
-	| { ok: true; value: Record<string, unknown> }
-	| { ok: false; status: 400 | 413; message: string };
+	{ ok: true; value: Record<string, unknown> } | { ok: false; status: 400 | 413; message: string };
 
 /** Reads a JSON object, counting bytes as they arrive. */
 export async function readJsonObject(request: Request, limit = API_BODY_LIMIT): Promise<JsonBody> {

@@ -91,7 +91,11 @@ export function cacheKeyOf(params: URLSearchParams): string | null {
 	const parsed = patternQuerySchema.safeParse(Object.fromEntries(params));
 	if (!parsed.success) return null;
 	const d = parsed.data as Record<string, unknown>;
-	return JSON.stringify(Object.keys(d).sort().map((k) => [k, d[k]]));
+	return JSON.stringify(
+		Object.keys(d)
+			.sort()
+			.map((k) => [k, d[k]])
+	);
 }
 
 export function patternJson(

@@ -15,7 +15,11 @@ const SECRETS: { name: string; local: string[]; what: string }[] = [
 		local: ['whsec_chipstall_local'],
 		what: 'the payment events signing secret'
 	},
-	{ name: 'LINK_SECRET', local: ['chipstall-local-link-secret'], what: "the buyers' order-link secret" },
+	{
+		name: 'LINK_SECRET',
+		local: ['chipstall-local-link-secret'],
+		what: "the buyers' order-link secret"
+	},
 	{ name: 'S3_ACCESS_KEY_ID', local: ['S3RVER'], what: 'the photo storage access key' },
 	{ name: 'S3_SECRET_ACCESS_KEY', local: ['S3RVER'], what: 'the photo storage secret key' }
 ];
@@ -37,7 +41,8 @@ export function secretProblems(env: Env = process.env): string[] {
 	}
 	const dbPassword = env.DATABASE_URL ? passwordIn(env.DATABASE_URL) : env.DB_PASSWORD;
 	const dbName = env.DATABASE_URL ? 'DATABASE_URL' : 'DB_PASSWORD';
-	if (!dbPassword) out.push(`${dbName} has no database password: set one before starting in production.`);
+	if (!dbPassword)
+		out.push(`${dbName} has no database password: set one before starting in production.`);
 	else if (dbPassword === LOCAL_DB_PASSWORD)
 		out.push(`${dbName} uses the local default database password: set the real one.`);
 	return out;
