@@ -4,7 +4,8 @@
  * the OWASP Authentication Cheat Sheet (the same answer whether or not an account exists),
  * V3.4.1 (Secure cookie attribute); RFC 6585 §4 (429 Too Many Requests, Retry-After).
  */
-process.env.THROTTLE_WINDOW_S = '3';
+// A short window, still long enough for 50 password checks on a busy machine.
+process.env.THROTTLE_WINDOW_S = '20';
 
 import { describe, expect, it } from 'vitest';
 import { isActionFailure, isRedirect } from '@sveltejs/kit';
@@ -65,11 +66,11 @@ describe('sign-in throttle (ASVS V2.2.1, RFC 6585)', () => {
 		// The right password is refused too while the window lasts: the throttle comes first.
 		expect(isActionFailure((await tryOnce('the right password')).r)).toBe(true);
 
-		await new Promise((r) => setTimeout(r, 3500));
+		await new Promise((r) => setTimeout(r, (e.locals.retryAfterS as number) * 1000 + 500));
 		const after = await tryOnce('the right password');
 		expect(isRedirect(after.r)).toBe(true);
 		expect(after.e.jar.set.chipstall_session).toBeDefined();
-	});
+	}, 90_000);
 
 	it('counts per client address too', async () => {
 		const { actions } = await import('../../src/routes/(auth)/signin/+page.server');
@@ -109,28 +110,31 @@ describe('session cookie is Secure on an https request (ASVS V3.4.1)', () => {
 describe('reset and sign-up do not tell who has an account (ASVS V2.5.2)', () => {
 	const known = 'juniper@example.test'; // the seeded customer
 
-	/** Median of a few runs, so one slow tick does not decide. */
-	async function medianMs(f: () => Promise<unknown>) {
-		const t: number[] = [];
-		for (let i = 0; i < 5; i++) {
-			const t0 = performance.now();
-			await f();
-			t.push(performance.now() - t0);
-		}
-		return t.sort((a, b) => a - b)[2];
-	}
-
-	it('reset answers the same words, in about the same time, known or not', async () => {
+	it('reset answers the same words for known and unknown, before any look-up or mail', async () => {
 		const { actions } = await import('../../src/routes/(auth)/reset/+page.server');
+		const { db } = await import('$lib/server/db');
+		const { passwordResets, users } = await import('$lib/server/db/schema');
+		const { eq, count } = await import('drizzle-orm');
+		const [juniper] = await db.select({ id: users.id }).from(users).where(eq(users.email, known));
+		const tokens = async () =>
+			(
+				await db
+					.select({ n: count() })
+					.from(passwordResets)
+					.where(eq(passwordResets.userId, juniper.id))
+			)[0].n;
 		const ask = (email: string, ip: string) =>
 			run(actions.default, event('http://localhost/reset', { email }, ip).ev);
+
+		const before = await tokens();
 		const a = (await ask(known, '192.0.2.1')) as { sent: boolean; email: string };
+		// The answer is back, and the account has not even been looked up yet: no token row.
+		// (Timing is then the same for everyone: nothing the answer waits on depends on the address.)
+		expect(await tokens()).toBe(before);
 		const b = (await ask('nobody-here@example.test', '192.0.2.2')) as typeof a;
 		expect({ ...a, email: '' }).toEqual({ ...b, email: '' });
-		const tKnown = await medianMs(() => ask(unique('k').replace(/^k/, 'x'), '192.0.2.3'));
-		const tUnknown = await medianMs(() => ask(known, '192.0.2.4'));
-		// Nothing waits for the database look-up or the mail: both well under a mail round trip.
-		expect(Math.abs(tKnown - tUnknown)).toBeLessThan(25);
+		// The work does happen, after the answer.
+		await expect.poll(tokens, { timeout: 5000 }).toBe(before + 1);
 	});
 
 	it('a sixth reset for one address in the window is 429', async () => {
