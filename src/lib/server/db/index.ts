@@ -4,7 +4,7 @@ import * as schema from './schema';
 import { config } from '../config';
 
 /** One pooled client per process; closed on shutdown so `node build` exits on SIGTERM. */
-export const pool = mysql.createPool({
+const pool = mysql.createPool({
 	uri: config.db.url,
 	connectionLimit: 10,
 	timezone: 'Z',
