@@ -11,9 +11,23 @@
  * Sources: OWASP ASVS 4.0 V2.2.1 (anti-automation on authentication), RFC 6585 §4 (429).
  */
 import { createHash } from 'node:crypto';
+import mysql from 'mysql2';
 import { RateLimiterMemory, RateLimiterMySQL, RateLimiterRes } from 'rate-limiter-flexible';
 import { config } from './config';
-import { pool } from './db';
+
+/**
+ * A small pool of the limiter's own (the store speaks mysql2's callback API). Kept apart from the
+ * shop's pool: a flood on one key queues on that row's lock here, not in front of the shop's
+ * queries. Created on first use; closed on shutdown so `node build` exits.
+ */
+let pool: mysql.Pool | undefined;
+function limiterPool(): mysql.Pool {
+	if (!pool) {
+		pool = mysql.createPool({ uri: config.db.url, connectionLimit: 4 });
+		process.once('sveltekit:shutdown', () => pool?.end());
+	}
+	return pool;
+}
 
 export type Policy = { prefix: string; points: number; durationS: number };
 
@@ -35,8 +49,7 @@ export class Limiter {
 		const common = { keyPrefix: policy.prefix, points: policy.points, duration: policy.durationS };
 		this.store = new RateLimiterMySQL({
 			...common,
-			// mysql2's promise pool wraps a callback pool, which is what the store speaks.
-			storeClient: (pool as unknown as { pool: unknown }).pool,
+			storeClient: limiterPool(),
 			storeType: 'pool',
 			dbName: dbName(),
 			tableName: 'rate_limits',
