@@ -14,6 +14,25 @@ const config = {
 		adapter: clustered(adapter({ out }), out),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
 		csrf: { trustedOrigins: [] },
+		// Content-Security-Policy on every page (OWASP Content Security Policy Cheat Sheet):
+		// SvelteKit puts a nonce (or, on prerendered pages, a hash) on its own inline script, so no
+		// 'unsafe-inline' for scripts. Styles keep it for the style attributes the preview and
+		// planner drawings set. Non-page responses get a deny-all policy in hooks.server.ts.
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:'],
+				'font-src': ['self'],
+				'connect-src': ['self'],
+				'worker-src': ['self', 'blob:'],
+				'object-src': ['none'],
+				'base-uri': ['self'],
+				'frame-ancestors': ['none']
+			}
+		},
 		typescript: {
 			// Type-check (and type-aware lint) the scripts, stand-ins and root config files too.
 			config: (tsconfig) => {

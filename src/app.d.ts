@@ -8,6 +8,8 @@ declare global {
 		interface Locals {
 			user: Pick<PublicUser, 'id' | 'email' | 'name' | 'role'> | null;
 			session: { id: string; expiresAt: Date } | null;
+			/** Set by a throttled action: the hook sends it as `Retry-After` (seconds). */
+			retryAfterS?: number;
 		}
 	}
 }

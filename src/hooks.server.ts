@@ -12,8 +12,15 @@ import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
 import { pageCacheHandle } from '$lib/server/handles/page-cache';
+import { declaredTooLarge } from '$lib/server/body-limit';
+import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
+import { refuseDefaultSecrets } from '$lib/server/secrets-check';
+import { withSecurityHeaders } from '$lib/server/security-headers';
 
 export const init: ServerInit = () => {
+	// Before anything else: a production start with the README's secrets stops here.
+	refuseDefaultSecrets();
+	answerClientErrorsWithJson();
 	startHoldSweeper();
 	startOutboxDrainer();
 };
@@ -25,26 +32,41 @@ const sessionHandle: Handle = async ({ event, resolve }) => {
 	const token = event.cookies.get(sessionCookieName);
 	if (!token) return resolve(event);
 
+	const https = event.url.protocol === 'https:';
 	const { session, user } = await validateToken(token);
 	if (!session) {
-		clearSessionCookie(event.cookies);
+		clearSessionCookie(event.cookies, https);
 		return resolve(event);
 	}
 	// lucia pushed the expiry forward: send the cookie again with the new lifetime.
-	if (session.fresh) setSessionCookie(event.cookies, token);
+	if (session.fresh) setSessionCookie(event.cookies, token, https);
 	event.locals.session = { id: session.id, expiresAt: session.expiresAt };
 	event.locals.user = { id: user.id, email: user.email, name: user.name, role: user.role };
 	return resolve(event);
 };
 
+/** Security headers on every response; `Retry-After` when a throttle said no (RFC 6585 §4). */
+const headers: Handle = async ({ event, resolve }) => {
+	const response = withSecurityHeaders(await resolve(event), event.url.protocol === 'https:');
+	if (event.locals.retryAfterS)
+		response.headers.set('retry-after', String(event.locals.retryAfterS));
+	return response;
+};
+
 /** Every error under /api/ answers JSON `{ error, fields? }`, whatever threw it. */
 const apiErrors: Handle = async ({ event, resolve }) => {
+	if (event.url.pathname.startsWith('/api/')) {
+		const tooLarge = declaredTooLarge(event.request);
+		if (tooLarge) return tooLarge;
+	}
 	const response = await resolve(event);
 	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
 	return toApiErrorResponse(response);
 };
 
+// Headers first, so cached pages, 503s and errors all carry them.
 export const handle = sequence(
+	headers,
 	availabilityHandle,
 	pageCacheHandle,
 	httpCacheHandle,

@@ -1,8 +1,7 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, readFileSync } from 'node:fs';
-import { inflateSync } from 'node:zlib';
+import { readFileSync } from 'node:fs';
 import { expect, test, type Download, type Page } from '@playwright/test';
-import { PDFDocument, PDFName, PDFRawStream, PDFArray } from 'pdf-lib';
+import { PDFDocument } from 'pdf-lib';
+import { pdfText } from '../helpers/pdf-text';
 import { signInAs } from './helpers/auth';
 
 /**
@@ -50,26 +49,6 @@ function expectPageSize(doc: PDFDocument, size: { w: number; h: number }) {
 		expect(width).toBeCloseTo(size.w, 2);
 		expect(height).toBeCloseTo(size.h, 2);
 	}
-}
-
-/**
- * The text a PDF shows. pdftotext (poppler-utils) when the machine has it; otherwise the page
- * content streams inflated with zlib (text drawn with the standard fonts is plain in them).
- */
-function pdfText(path: string, doc: PDFDocument): string {
-	if (existsSync('/usr/bin/pdftotext')) {
-		return execFileSync('/usr/bin/pdftotext', ['-layout', path, '-'], { encoding: 'utf8' });
-	}
-	const out: string[] = [];
-	for (const page of doc.getPages()) {
-		const contents = page.node.get(PDFName.of('Contents'));
-		const refs = contents instanceof PDFArray ? contents.asArray() : [contents];
-		for (const ref of refs) {
-			const stream = doc.context.lookup(ref);
-			if (stream instanceof PDFRawStream) out.push(inflateSync(stream.contents).toString('latin1'));
-		}
-	}
-	return out.join('\n');
 }
 
 /** The chip count in the personaliser's caption ("12 chips …"). */
@@ -216,7 +195,7 @@ test.describe('order line template', () => {
 		]);
 		const a4Pdf = await pdfOf(a4);
 		expectPageSize(a4Pdf.doc, A4); // ISO 216 A4
-		expect(pdfText(a4Pdf.path, a4Pdf.doc)).toContain(`Order ${REF}`);
+		expect(await pdfText(a4Pdf.bytes)).toContain(`Order ${REF}`);
 
 		const [letter] = await Promise.all([
 			page.waitForEvent('download'),
@@ -224,7 +203,7 @@ test.describe('order line template', () => {
 		]);
 		const letterPdf = await pdfOf(letter);
 		expectPageSize(letterPdf.doc, LETTER); // 8.5 × 11 in
-		expect(pdfText(letterPdf.path, letterPdf.doc)).toContain(REF);
+		expect(await pdfText(letterPdf.bytes)).toContain(REF);
 	});
 
 	test('template links refuse what is not there and paper sizes not offered', async ({ page }) => {

@@ -63,15 +63,16 @@ describe('GET /api/pattern handler (route module)', () => {
 	it('answers 200 JSON with letters drawn from the bundled font, and 400 with fields', async () => {
 		const { GET } = await import('../../src/routes/api/pattern/+server');
 		const call = (q: string) =>
-			GET({ url: new URL(`http://x/api/pattern?${q}`) } as unknown as Parameters<
-				typeof GET
-			>[0]) as Response;
-		const ok = call('diameter=70&count=1&initials=ab&width=100&length=100');
+			GET({
+				url: new URL(`http://x/api/pattern?${q}`),
+				getClientAddress: () => '192.0.2.10'
+			} as unknown as Parameters<typeof GET>[0]) as Promise<Response>;
+		const ok = await call('diameter=70&count=1&initials=ab&width=100&length=100');
 		expect(ok.status).toBe(200);
 		const body = (await ok.json()) as { letterCount: number; chips: { kind: string }[] };
 		expect(body.letterCount).toBe(2);
 		expect(body.chips.filter((c: { kind: string }) => c.kind === 'letter')).toHaveLength(2);
-		const bad = call('diameter=70&count=1&width=100&length=100&wood=oak-from-nowhere');
+		const bad = await call('diameter=70&count=1&width=100&length=100&wood=oak-from-nowhere');
 		expect(bad.status).toBe(400);
 		const err = (await bad.json()) as { fields: Record<string, string[]> };
 		expect(err.fields.wood[0]).toMatch(/woods/);

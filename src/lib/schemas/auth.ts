@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plain } from './plain-text';
 
 /** Stored lower-cased and trimmed, so "Juniper@Example.test " finds the same account. */
 const email = z
@@ -16,11 +17,13 @@ const newPassword = z
 
 /** Every account field once; the forms below pick what they need. */
 export const accountFields = z.object({
-	name: z
-		.string({ error: 'Tell us your name.' })
-		.trim()
-		.min(1, 'Tell us your name.')
-		.max(120, 'Keep the name under 120 characters.'),
+	name: plain(
+		z
+			.string({ error: 'Tell us your name.' })
+			.trim()
+			.min(1, 'Tell us your name.')
+			.max(120, 'Keep the name under 120 characters.')
+	),
 	email,
 	password: newPassword,
 	confirm: z.string({ error: 'Type the password again.' }).min(1, 'Type the password again.')
@@ -31,7 +34,10 @@ const mismatch = { message: 'The two passwords are not the same.', path: ['confi
 
 /** Sign-in does not apply the length rule: an older, shorter password still has to work. */
 export const signInSchema = accountFields.pick({ email: true }).extend({
-	password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200)
+	password: z
+		.string({ error: 'Enter your password.' })
+		.min(1, 'Enter your password.')
+		.max(200, 'That is longer than any password here: passwords have at most 200 characters.')
 });
 
 export const signUpSchema = accountFields.refine(passwordsMatch, mismatch);

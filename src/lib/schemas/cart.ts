@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PIECE_SLUG } from './plain-text';
 
 const quantity = z.coerce
 	.number({ error: 'Choose how many.' })
@@ -8,7 +9,12 @@ const quantity = z.coerce
 
 /** Adding a piece; the personalisation fields are checked again by the pattern schema. */
 export const addLineSchema = z.object({
-	slug: z.string().trim().min(1, 'Pick a piece.').max(80),
+	slug: z
+		.string({ error: 'Pick a piece.' })
+		.trim()
+		.min(1, 'Pick a piece.')
+		.max(80, 'Pick a piece from the shop.')
+		.regex(PIECE_SLUG, 'Pick a piece from the shop.'),
 	wood: z
 		.string({ error: 'Choose a wood.' })
 		.trim()

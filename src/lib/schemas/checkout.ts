@@ -1,12 +1,15 @@
 import { z } from 'zod';
 import { COUNTRIES } from '$lib/shipping';
+import { plain } from './plain-text';
 
 const text = (label: string, max: number) =>
-	z
-		.string({ error: `Enter ${label}.` })
-		.trim()
-		.min(1, `Enter ${label}.`)
-		.max(max, `Keep ${label} under ${max} characters.`);
+	plain(
+		z
+			.string({ error: `Enter ${label}.` })
+			.trim()
+			.min(1, `Enter ${label}.`)
+			.max(max, `Keep ${label} under ${max} characters.`)
+	);
 
 /** Postcode shapes for the countries whose formats we know; others get a loose check. */
 const POSTCODE: Record<string, [RegExp, string]> = {
@@ -30,12 +33,17 @@ export const checkoutSchema = z
 			.max(255)
 			.pipe(z.email('That does not look like an e-mail address.')),
 		line1: text('the street address', 120),
-		line2: z.string().trim().max(120, 'Keep this line under 120 characters.').optional(),
+		line2: plain(z.string().trim().max(120, 'Keep this line under 120 characters.')).optional(),
 		city: text('the town or city', 80),
-		region: z.string().trim().max(80, 'Keep the state or region under 80 characters.').optional(),
+		region: plain(
+			z.string().trim().max(80, 'Keep the state or region under 80 characters.')
+		).optional(),
 		postcode: z.string().trim().toUpperCase().max(12, 'That postcode is too long.'),
 		country: z.enum(COUNTRIES, { error: 'Choose a country we post to.' }),
-		giftNote: z.string().trim().max(500, 'Keep the gift note under 500 characters.').optional(),
+		giftNote: plain(
+			z.string().trim().max(500, 'Keep the gift note under 500 characters.'),
+			true
+		).optional(),
 		/** What the buyer was shown; used only to tell them when the price has changed. */
 		seenTotal: z.coerce.number().int().nonnegative().optional().catch(undefined)
 	})

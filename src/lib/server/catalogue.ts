@@ -1,3 +1,4 @@
+import { PIECE_SLUG } from '$lib/schemas/plain-text';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { photos, pieces, pieceWoods, stock, woods, WORKSHOP, type PiecePattern } from './db/schema';
@@ -150,6 +151,9 @@ async function readWoodFilterOptions() {
 
 /** One piece with everything its page shows; null when unknown or withdrawn. Cached like the list. */
 export function getPiece(slug: string) {
+	// The column's collation ignores some characters (a trailing NUL matched another piece):
+	// only a well-formed slug is looked up at all.
+	if (!PIECE_SLUG.test(slug)) return Promise.resolve(null);
 	return cachedCatalogue(`piece:${slug}`, () => readPiece(slug));
 }
 

@@ -110,6 +110,13 @@ export const config = {
 			return v === undefined ? 'http' : (v as 'http' | 'https') || undefined;
 		}
 	},
+	/**
+	 * Length of the sign-in, reset, sign-up and checkout throttle windows, in seconds (default
+	 * 15 minutes). Tests shorten it to see a window end.
+	 */
+	get throttleWindowS() {
+		return num(e.THROTTLE_WINDOW_S, 900);
+	},
 	/** Signs buyers' order links; set a long random value in production. */
 	get linkSecret() {
 		return e.LINK_SECRET || 'chipstall-local-link-secret';

@@ -77,6 +77,9 @@ export async function getObject(key: string): Promise<StoredObject | null> {
 		};
 	} catch (err) {
 		if (err instanceof NoSuchKey || (err as { name?: string }).name === 'NoSuchKey') return null;
+		// A key the store refuses outright (too long, malformed) names no object either.
+		const status = (err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+		if (status !== undefined && status >= 400 && status < 500) return null;
 		throw err;
 	}
 }

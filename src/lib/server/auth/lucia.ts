@@ -12,6 +12,8 @@ export const lucia = new Lucia(adapter, {
 	sessionExpiresIn: new TimeSpan(30, 'd'),
 	sessionCookie: {
 		name: 'chipstall_session',
+		// `secure` is decided per request (below): an https request gets a Secure cookie even
+		// when ORIGIN was not set to https (OWASP ASVS 4.0 V3.4.1).
 		attributes: { sameSite: 'lax', secure: config.origin.startsWith('https:') }
 	},
 	// Only what pages may see: never the password hash.
@@ -50,20 +52,31 @@ export function invalidateUserSessions(userId: string): Promise<void> {
 	return lucia.invalidateUserSessions(userId);
 }
 
-/** The cookie carries the token (lucia serialises whatever value it is given). */
-export function setSessionCookie(cookies: Cookies, token: string): void {
+/**
+ * The cookie carries the token (lucia serialises whatever value it is given). `https` is whether
+ * this request came over https: then the cookie is Secure, whatever ORIGIN says.
+ */
+export function setSessionCookie(cookies: Cookies, token: string, https: boolean): void {
 	const cookie = lucia.createSessionCookie(token);
-	cookies.set(cookie.name, cookie.value, { path: '/', ...cookie.attributes });
+	cookies.set(cookie.name, cookie.value, {
+		path: '/',
+		...cookie.attributes,
+		secure: cookie.attributes.secure || https
+	});
 }
 
-export function clearSessionCookie(cookies: Cookies): void {
+export function clearSessionCookie(cookies: Cookies, https: boolean): void {
 	const cookie = lucia.createBlankSessionCookie();
-	cookies.set(cookie.name, cookie.value, { path: '/', ...cookie.attributes });
+	cookies.set(cookie.name, cookie.value, {
+		path: '/',
+		...cookie.attributes,
+		secure: cookie.attributes.secure || https
+	});
 }
 
 /** Signs a user in on this response: new session, cookie set. */
-export async function signIn(cookies: Cookies, userId: string): Promise<void> {
-	setSessionCookie(cookies, await createSessionFor(userId));
+export async function signIn(cookies: Cookies, userId: string, https: boolean): Promise<void> {
+	setSessionCookie(cookies, await createSessionFor(userId), https);
 }
 
 export const sessionCookieName = lucia.sessionCookieName;

@@ -50,6 +50,14 @@ export async function createAccount(
 	input: NewAccount
 ): Promise<{ ok: true; user: AccountUser } | { ok: false; reason: 'email-taken' }> {
 	if (await findUserByEmail(input.email)) return { ok: false, reason: 'email-taken' };
+	const { password, ...rest } = input;
+	return createAccountWithHash({ ...rest, passwordHash: await hashPassword(password) });
+}
+
+/** As createAccount, with the password already hashed (a sign-up confirmed by e-mail). */
+export async function createAccountWithHash(
+	input: Omit<NewAccount, 'password'> & { passwordHash: string }
+): Promise<{ ok: true; user: AccountUser } | { ok: false; reason: 'email-taken' }> {
 	const user: AccountUser = {
 		id: crypto.randomUUID(),
 		email: input.email,
@@ -59,7 +67,7 @@ export async function createAccount(
 	try {
 		await db.insert(users).values({
 			...user,
-			passwordHash: await hashPassword(input.password),
+			passwordHash: input.passwordHash,
 			createdAt: new Date()
 		});
 	} catch (err) {

@@ -10,7 +10,8 @@ import {
 	mysqlEnum,
 	primaryKey,
 	uniqueIndex,
-	index
+	index,
+	bigint
 } from 'drizzle-orm/mysql-core';
 import { orderStatuses, type OrderStatus } from '../../order-status';
 import type { Personalisation, PiecePattern } from '../../pattern/snapshot';
@@ -44,6 +45,28 @@ export const passwordResets = mysqlTable('password_resets', {
 		.references(() => users.id, { onDelete: 'cascade' }),
 	expiresAt: datetime('expires_at').notNull(),
 	usedAt: datetime('used_at')
+});
+
+/**
+ * A sign-up waiting for its e-mail link. The account is made only when the link is opened, so
+ * the sign-up form answers the same for a new and a known address (the token is stored hashed).
+ */
+export const pendingSignups = mysqlTable('pending_signups', {
+	id: varchar('id', { length: 64 }).primaryKey(),
+	email: varchar('email', { length: 255 }).notNull(),
+	name: varchar('name', { length: 120 }).notNull(),
+	passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+	expiresAt: datetime('expires_at').notNull()
+});
+
+/**
+ * Counters of rate-limiter-flexible's MySQL store (its own column layout), shared by every app
+ * process so a limit holds however many processes serve the shop.
+ */
+export const rateLimits = mysqlTable('rate_limits', {
+	key: varchar('key', { length: 255 }).primaryKey(),
+	points: int('points').notNull().default(0),
+	expire: bigint('expire', { mode: 'number', unsigned: true })
 });
 
 export const woods = mysqlTable('woods', {

@@ -4,10 +4,12 @@ import { signInSchema } from '$lib/schemas/auth';
 import { homeFor, safeNext } from '$lib/safe-redirect';
 import { authenticate } from '$lib/server/auth/users';
 import { invalidateSession, signIn } from '$lib/server/auth/lucia';
+import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
+import { throttles } from '$lib/server/throttles';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
-	const next = safeNext(url.searchParams.get('next'), '');
+	const next = safeNext(url.searchParams.get('next'), '', url.origin);
 	if (locals.user) redirect(303, next || homeFor(locals.user.role));
 	return { next };
 };
@@ -16,12 +18,14 @@ export const load: PageServerLoad = ({ locals, url }) => {
 const NO_MATCH = "That e-mail and password don't match an account.";
 
 export const actions: Actions = {
-	default: async ({ request, cookies, locals, url }) => {
+	default: async (event) => {
+		const { request, cookies, locals, url } = event;
 		const form = Object.fromEntries(await request.formData());
 		const email = typeof form.email === 'string' ? form.email : '';
 		const next = safeNext(
 			typeof form.next === 'string' ? form.next : url.searchParams.get('next'),
-			''
+			'',
+			url.origin
 		);
 		const parsed = signInSchema.safeParse(form);
 		if (!parsed.success) {
@@ -31,11 +35,21 @@ export const actions: Actions = {
 				message: ''
 			});
 		}
+		// Every attempt counts, per account and per client address, before the password is checked.
+		const verdict = await takeAll([
+			[throttles.signInAccount, parsed.data.email],
+			[throttles.signInAddress, event.getClientAddress()]
+		]);
+		if (!verdict.ok) {
+			locals.retryAfterS = verdict.retryAfterS;
+			return fail(429, { errors: {}, values: { email }, message: tryAgainIn(verdict.retryAfterS) });
+		}
 		const user = await authenticate(parsed.data.email, parsed.data.password);
 		if (!user) return fail(400, { errors: {}, values: { email }, message: NO_MATCH });
 
+		await throttles.signInAccount.forget(parsed.data.email);
 		if (locals.session) await invalidateSession(locals.session.id);
-		await signIn(cookies, user.id);
+		await signIn(cookies, user.id, url.protocol === 'https:');
 		redirect(303, next || homeFor(user.role));
 	}
 };

@@ -9,9 +9,9 @@ export const load: PageServerLoad = ({ locals }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ locals, cookies }) => {
+	default: async ({ locals, cookies, url }) => {
 		if (locals.session) await invalidateSession(locals.session.id);
-		clearSessionCookie(cookies);
+		clearSessionCookie(cookies, url.protocol === 'https:');
 		redirect(303, '/');
 	}
 };

@@ -2,39 +2,44 @@ import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { signUpSchema } from '$lib/schemas/auth';
 import { safeNext } from '$lib/safe-redirect';
-import { createAccount } from '$lib/server/auth/users';
-import { invalidateSession, signIn } from '$lib/server/auth/lucia';
+import { afterResponse } from '$lib/server/auth/after-response';
+import { requestSignUp } from '$lib/server/auth/signup';
+import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
+import { throttles } from '$lib/server/throttles';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
-	const next = safeNext(url.searchParams.get('next'), '');
+	const next = safeNext(url.searchParams.get('next'), '', url.origin);
 	if (locals.user) redirect(303, next || '/account');
 	return { next };
 };
 
 const text = (v: FormDataEntryValue | undefined) => (typeof v === 'string' ? v : '');
 
+/**
+ * Sign-up answers "check your e-mail" for every well-formed request, at once: the account is
+ * made from the e-mailed link, and a known address gets a note to its owner instead, so the
+ * form does not reveal who has an account.
+ */
 export const actions: Actions = {
-	default: async ({ request, cookies, locals, url }) => {
-		const form = Object.fromEntries(await request.formData());
+	default: async (event) => {
+		const form = Object.fromEntries(await event.request.formData());
 		const values = { name: text(form.name), email: text(form.email) };
-		const next = safeNext(text(form.next) || url.searchParams.get('next'), '');
 		const parsed = signUpSchema.safeParse(form);
 		if (!parsed.success) {
 			return fail(400, { errors: z.flattenError(parsed.error).fieldErrors, values });
 		}
-		// Sign-up only ever makes customers; staff are added by the owner in the workshop.
-		const created = await createAccount({ ...parsed.data, role: 'customer' });
-		if (!created.ok) {
-			return fail(400, {
-				errors: {
-					email: ['An account with this e-mail already exists. Sign in, or reset its password.']
-				},
-				values
-			});
+		const verdict = await takeAll([
+			[throttles.signUpEmail, parsed.data.email],
+			[throttles.signUpAddress, event.getClientAddress()]
+		]);
+		if (!verdict.ok) {
+			event.locals.retryAfterS = verdict.retryAfterS;
+			return fail(429, { errors: { form: [tryAgainIn(verdict.retryAfterS)] }, values });
 		}
-		if (locals.session) await invalidateSession(locals.session.id);
-		await signIn(cookies, created.user.id);
-		redirect(303, next || '/account');
+		// Sign-up only ever makes customers; staff are added by the owner in the workshop.
+		const { name, email, password } = parsed.data;
+		afterResponse('sign-up mail', () => requestSignUp({ name, email, password }));
+		return { sent: true, email };
 	}
 };

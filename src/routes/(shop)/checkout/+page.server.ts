@@ -6,6 +6,8 @@ import { fieldErrors } from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
 import type { Actions, PageServerLoad } from './$types';
 import { formText } from '$lib/form-text';
+import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
+import { throttles } from '$lib/server/throttles';
 
 export const load: PageServerLoad = async ({ cookies, locals }) => {
 	const summary = await cartSummary(cartIdFrom(cookies));
@@ -18,7 +20,7 @@ export const load: PageServerLoad = async ({ cookies, locals }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ request, cookies, locals, url }) => {
+	default: async ({ request, cookies, locals, url, getClientAddress }) => {
 		const raw = Object.fromEntries(await request.formData());
 		const values = Object.fromEntries(
 			Object.entries(raw)
@@ -30,6 +32,16 @@ export const actions: Actions = {
 
 		const cartId = cartIdFrom(cookies);
 		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });
+
+		// Throttle: pieces held per basket and per client address (see $lib/server/throttles).
+		const held = await takeAll([
+			[throttles.checkoutBasket, cartId],
+			[throttles.checkoutAddress, getClientAddress()]
+		]);
+		if (!held.ok) {
+			locals.retryAfterS = held.retryAfterS;
+			return fail(429, { errors: { form: [tryAgainIn(held.retryAfterS)] }, values });
+		}
 
 		let placed;
 		try {

@@ -18,18 +18,10 @@ import {
 	setQuantitySchema
 } from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
+import { readJsonObject } from '$lib/server/body-limit';
 import type { RequestEvent, RequestHandler } from './$types';
 
 const knownCountry = (c: string) => (COUNTRIES as readonly string[]).includes(c);
-
-async function body(request: Request): Promise<Record<string, unknown> | null> {
-	try {
-		const v: unknown = await request.json();
-		return v && typeof v === 'object' && !Array.isArray(v) ? (v as Record<string, unknown>) : null;
-	} catch {
-		return null;
-	}
-}
 
 /**
  * Parses the request first (so bad input never creates a basket), then runs the change and
@@ -39,10 +31,10 @@ async function change(
 	event: RequestEvent,
 	prepare: (input: Record<string, unknown>) => (cartId: string) => Promise<unknown>
 ) {
-	const input = await body(event.request);
-	if (!input) return apiError(400, 'Send a JSON object.');
+	const input = await readJsonObject(event.request);
+	if (!input.ok) return apiError(input.status, input.message);
 	try {
-		const run = prepare(input);
+		const run = prepare(input.value);
 		const cartId = await ensureCart(
 			event.cookies,
 			event.locals.user?.id ?? null,

@@ -1,13 +1,27 @@
-import { json } from '@sveltejs/kit';
+import { apiError } from '$lib/server/auth/guard';
 import { letterFont } from '$lib/pattern/letter-font';
-import { patternResponse } from '$lib/server/pattern-api';
+import { patternJson } from '$lib/server/pattern-api';
+import { throttles } from '$lib/server/throttles';
 import type { RequestHandler } from './$types';
 
 /** Public: the layout for a set of rosette settings, the same the preview draws. */
-export const GET: RequestHandler = ({ url }) => {
-	const { status, body } = patternResponse(url.searchParams, letterFont());
-	return json(body, {
+export const GET: RequestHandler = async ({ url, getClientAddress }) => {
+	// Per client, so one caller cannot keep the CPU from the shop (RFC 6585 §4: 429).
+	const verdict = await throttles.pattern.take(getClientAddress());
+	if (!verdict.ok) {
+		const res = apiError(
+			429,
+			`Too many pattern requests. Please wait ${verdict.retryAfterS} seconds and try again.`
+		);
+		res.headers.set('retry-after', String(verdict.retryAfterS));
+		return res;
+	}
+	const { status, text } = patternJson(url.searchParams, letterFont());
+	return new Response(text, {
 		status,
-		headers: status === 200 ? { 'cache-control': 'public, max-age=300' } : {}
+		headers: {
+			'content-type': 'application/json',
+			...(status === 200 ? { 'cache-control': 'public, max-age=300' } : {})
+		}
 	});
 };

@@ -2,10 +2,14 @@ import { error } from '@sveltejs/kit';
 import { getObject } from '$lib/server/storage';
 import type { RequestHandler } from './$types';
 
+const MAX_KEY_LENGTH = 300;
+
 /** Serves stored photo variants, e.g. /photos/pieces/rosette-plate/a1b2/800.webp (or .jpg). */
 export const GET: RequestHandler = async ({ params, request }) => {
 	const key = params.key;
-	// Only the variants storePhoto writes; nothing else in the bucket is public.
+	// Only the variants storePhoto writes; nothing else in the bucket is public. Their keys are
+	// short; S3 refuses keys over 1,024 bytes, so a longer one is answered here.
+	if (key.length > MAX_KEY_LENGTH) error(404, 'No such photo');
 	if (!/^[a-z0-9][a-z0-9/_-]*\/\d+\.(webp|jpg)$/i.test(key) || key.includes('..'))
 		error(404, 'No such photo');
 	const obj = await getObject(key);

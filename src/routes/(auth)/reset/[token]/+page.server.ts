@@ -16,7 +16,7 @@ export const load: PageServerLoad = async ({ params, setHeaders }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ params, request, cookies }) => {
+	default: async ({ params, request, cookies, url }) => {
 		const parsed = resetPasswordSchema.safeParse(Object.fromEntries(await request.formData()));
 		if (!parsed.success) {
 			return fail(400, {
@@ -28,7 +28,7 @@ export const actions: Actions = {
 		if (!done.ok) return fail(400, { errors: {}, state: done.state });
 
 		// completeReset ended every older session of the account; this one starts fresh.
-		await signIn(cookies, done.userId);
+		await signIn(cookies, done.userId, url.protocol === 'https:');
 		const user = await findUserById(done.userId);
 		redirect(303, user ? homeFor(user.role) : '/');
 	}
