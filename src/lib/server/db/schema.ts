@@ -12,6 +12,7 @@ import {
 	uniqueIndex,
 	index
 } from 'drizzle-orm/mysql-core';
+import { orderStatuses, type OrderStatus } from '../../order-status';
 
 export const roles = ['owner', 'helper', 'customer'] as const;
 export type Role = (typeof roles)[number];
@@ -172,17 +173,8 @@ export type Personalisation = {
 	estimateMinutes?: number;
 };
 
-export const orderStatuses = [
-	'pending',
-	'paid',
-	'carving',
-	'finishing',
-	'packed',
-	'shipped',
-	'cancelled',
-	'refunded'
-] as const;
-export type OrderStatus = (typeof orderStatuses)[number];
+// The status list and its allowed moves live in one pure module the browser can import too.
+export { orderStatuses, type OrderStatus };
 
 export type Address = {
 	line1: string;
@@ -335,6 +327,23 @@ export const tallies = mysqlTable('tallies', {
 	}),
 	createdAt: datetime('created_at').notNull()
 });
+
+/** Every status change of an order: from, to, who (null for the payment server or a sweep), why. */
+export const orderHistory = mysqlTable(
+	'order_history',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		orderId: int('order_id')
+			.notNull()
+			.references(() => orders.id, { onDelete: 'cascade' }),
+		fromStatus: mysqlEnum('from_status', orderStatuses).notNull(),
+		toStatus: mysqlEnum('to_status', orderStatuses).notNull(),
+		userId: varchar('user_id', { length: 36 }).references(() => users.id, { onDelete: 'set null' }),
+		reason: varchar('reason', { length: 500 }).notNull(),
+		createdAt: datetime('created_at').notNull()
+	},
+	(t) => [index('order_history_order').on(t.orderId, t.id)]
+);
 
 export const processedEvents = mysqlTable('processed_events', {
 	id: varchar('id', { length: 255 }).primaryKey(),

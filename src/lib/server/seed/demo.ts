@@ -397,6 +397,16 @@ export const DEMO_ORDERS: DemoOrder[] = [
 		status: 'refunded',
 		daysAgo: 21,
 		lines: [{ piece: 'rim-rosette-serving-plate', wood: 'maple', quantity: 1, initials: 'FM' }]
+	},
+	{
+		// Paid after the hold lapsed, and the last trinket box had gone to another buyer meanwhile.
+		ref: 'CS-1013',
+		buyer: 'Wendell Ashcombe',
+		email: 'wendell@example.test',
+		address: addr('31 Sawmill Road', 'Birch Crossing', 'VT', '05003'),
+		status: 'piece_gone',
+		daysAgo: 1,
+		lines: [{ piece: 'trinket-box', wood: 'walnut', quantity: 1, fromStock: true }]
 	}
 ];
 

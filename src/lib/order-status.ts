@@ -1,0 +1,75 @@
+/**
+ * The order status flow, in one table. Pure and browser-safe: the schema's enum, the server's
+ * `moveOrder`, and every page that shows or offers a status read it from here.
+ *
+ * pending → paid → carving → finishing → packed → shipped, side exits cancelled and refunded,
+ * and `piece_gone`: the buyer paid, but the finished piece they paid for was sold meanwhile; the
+ * owner resolves it (refund, or carve another and carry on).
+ */
+export const orderStatuses = [
+	'pending',
+	'paid',
+	'carving',
+	'finishing',
+	'packed',
+	'shipped',
+	'cancelled',
+	'refunded',
+	'piece_gone'
+] as const;
+export type OrderStatus = (typeof orderStatuses)[number];
+
+/**
+ * Every allowed move. `carvingOnly` edges are only open to orders with a line to carve; the
+ * `readyMadeOnly` edge lets an order of finished shelf pieces go straight from paid to packed.
+ * Once an order is on the bench (carving, finishing) it carries on whatever its lines are: the
+ * owner may carve a new piece for a `piece_gone` order.
+ */
+type Edge = { to: OrderStatus; carvingOnly?: boolean; readyMadeOnly?: boolean };
+
+export const transitions: Readonly<Record<OrderStatus, readonly Edge[]>> = {
+	// The payment lands, the buyer gives up (or the hold lapses), or the piece sold meanwhile.
+	pending: [{ to: 'paid' }, { to: 'cancelled' }, { to: 'piece_gone' }],
+	// A cancelled (lapsed) checkout can still be paid late: the payment event decides.
+	cancelled: [{ to: 'paid' }, { to: 'piece_gone' }],
+	paid: [
+		{ to: 'carving', carvingOnly: true },
+		{ to: 'packed', readyMadeOnly: true },
+		{ to: 'refunded' }
+	],
+	carving: [{ to: 'finishing' }, { to: 'refunded' }],
+	finishing: [{ to: 'packed' }, { to: 'refunded' }],
+	packed: [{ to: 'shipped' }, { to: 'refunded' }],
+	shipped: [{ to: 'refunded' }],
+	// The owner refunds, or makes another piece and puts the order back on the bench.
+	piece_gone: [{ to: 'refunded' }, { to: 'carving' }],
+	refunded: []
+};
+
+/** The statuses an order may move to next. */
+export function nextStatuses(from: OrderStatus, opts: { needsCarving: boolean }): OrderStatus[] {
+	return (transitions[from] ?? [])
+		.filter((e) => (opts.needsCarving ? !e.readyMadeOnly : !e.carvingOnly))
+		.map((e) => e.to);
+}
+
+export function canMove(from: OrderStatus, to: OrderStatus, opts: { needsCarving: boolean }) {
+	return nextStatuses(from, opts).includes(to);
+}
+
+/** Plain words for each status, for buyers and the workshop alike. */
+export const statusLabels: Readonly<Record<OrderStatus, string>> = {
+	pending: 'Waiting for payment',
+	paid: 'Paid',
+	carving: 'Carving',
+	finishing: 'Finishing',
+	packed: 'Packed',
+	shipped: 'Shipped',
+	cancelled: 'Cancelled',
+	refunded: 'Refunded',
+	piece_gone: 'Paid, piece sold meanwhile'
+};
+
+export function statusLabel(s: OrderStatus): string {
+	return statusLabels[s] ?? s;
+}

@@ -1,0 +1,35 @@
+import { db, type Tx } from './index';
+
+/** InnoDB gives these when two transactions wait on each other; trying again is the cure. */
+const RETRYABLE = new Set([1213, 1205]); // ER_LOCK_DEADLOCK, ER_LOCK_WAIT_TIMEOUT
+
+export function isRetryable(err: unknown): boolean {
+	const e = err as { errno?: number; cause?: { errno?: number } } | null;
+	return RETRYABLE.has(e?.errno ?? -1) || RETRYABLE.has(e?.cause?.errno ?? -1);
+}
+
+export function isDuplicateKey(err: unknown): boolean {
+	const e = err as { code?: string; cause?: { code?: string } } | null;
+	return e?.code === 'ER_DUP_ENTRY' || e?.cause?.code === 'ER_DUP_ENTRY';
+}
+
+/**
+ * Runs `work` in one transaction, and again (a few times, with a short random pause) when
+ * InnoDB picks it as a deadlock victim or a lock wait times out. The whole transaction was
+ * rolled back, so running it again is safe.
+ */
+export async function transact<T>(work: (tx: Tx) => Promise<T>, attempts = 5): Promise<T> {
+	for (let i = 1; ; i++) {
+		try {
+			return await db.transaction(work);
+		} catch (err) {
+			if (i >= attempts || !isRetryable(err)) throw err;
+			await new Promise((r) => setTimeout(r, 10 + Math.random() * 40 * i));
+		}
+	}
+}
+
+/** Uses the caller's transaction when there is one, or opens a retried one. */
+export function inTx<T>(tx: Tx | undefined, work: (tx: Tx) => Promise<T>): Promise<T> {
+	return tx ? work(tx) : transact(work);
+}

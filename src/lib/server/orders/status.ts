@@ -1,0 +1,76 @@
+import { and, eq, sql } from 'drizzle-orm';
+import { db, type Db, type Tx } from '../db';
+import { inTx } from '../db/retry';
+import { orderHistory, orderLines, orders } from '../db/schema';
+import { canMove, statusLabel, type OrderStatus } from '$lib/order-status';
+
+/** A move the status table does not allow; the message is for a person, the status for HTTP. */
+export class StatusMoveError extends Error {
+	readonly status = 409;
+	constructor(message: string) {
+		super(message);
+	}
+}
+
+export type MovedBy = { userId: string | null; why: string };
+
+/** True when the order has a line made to order (not taken finished from the shelf). */
+export async function needsCarving(tx: Tx, orderId: number): Promise<boolean> {
+	const [row] = await tx
+		.select({ n: sql<number>`count(*)`.mapWith(Number) })
+		.from(orderLines)
+		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, false)));
+	return (row?.n ?? 0) > 0;
+}
+
+/**
+ * The one way an order changes status: lock the order row, check the move against the table in
+ * `$lib/order-status`, update it, and write who/when/why to the order's history. Pass `tx` to
+ * make the move part of a larger write (the payment event, a refund); without it the move is
+ * its own transaction, retried on deadlock. `extra` sets other order columns in the same update.
+ */
+export async function moveOrder(
+	orderId: number,
+	to: OrderStatus,
+	by: MovedBy,
+	tx?: Tx,
+	extra: Partial<typeof orders.$inferInsert> = {},
+	now = new Date()
+): Promise<{ from: OrderStatus; to: OrderStatus }> {
+	return inTx(tx, async (t) => {
+		const [order] = await t
+			.select({ id: orders.id, ref: orders.ref, status: orders.status })
+			.from(orders)
+			.where(eq(orders.id, orderId))
+			.for('update');
+		if (!order) throw new StatusMoveError('There is no such order.');
+		const from = order.status;
+		if (!canMove(from, to, { needsCarving: await needsCarving(t, orderId) })) {
+			throw new StatusMoveError(
+				`Order ${order.ref} is “${statusLabel(from)}” and cannot move to “${statusLabel(to)}”.`
+			);
+		}
+		await t
+			.update(orders)
+			.set({ ...extra, status: to })
+			.where(eq(orders.id, orderId));
+		await t.insert(orderHistory).values({
+			orderId,
+			fromStatus: from,
+			toStatus: to,
+			userId: by.userId,
+			reason: by.why.slice(0, 500),
+			createdAt: now
+		});
+		return { from, to };
+	});
+}
+
+/** An order's history, oldest first. */
+export async function orderHistoryOf(orderId: number, conn: Db | Tx = db) {
+	return conn
+		.select()
+		.from(orderHistory)
+		.where(eq(orderHistory.orderId, orderId))
+		.orderBy(orderHistory.id);
+}
