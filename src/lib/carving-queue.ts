@@ -132,6 +132,16 @@ export function addWorkshopDays(
 	return day;
 }
 
+/** The day a piece carved on `carvedOn` can ship: after its finishing and packing days. */
+export function readyAfterCarving(
+	carvedOn: string,
+	s: CarvingSchedule,
+	extraDaysOff: string[] = []
+): string | null {
+	const off = new Set([...s.daysOff, ...extraDaysOff]);
+	return addWorkshopDays(carvedOn, s.finishingDays + s.packingDays, s, off);
+}
+
 /**
  * The day a piece needing `minutes` of carving can ship if it joins the back of the queue now:
  * carved when the queue ahead and its own minutes are spent, then finishing and packing days.
@@ -156,7 +166,7 @@ export function readyByFor(
 		extraDaysOff
 	);
 	if (!me.carvedOn) return null;
-	return addWorkshopDays(me.carvedOn, s.finishingDays + s.packingDays, s, off);
+	return readyAfterCarving(me.carvedOn, s, extraDaysOff);
 }
 
 /** Optional surcharge for a layout that takes longer than the piece's standard one. */

@@ -1,6 +1,27 @@
 import { markExpired, markPaid, orderById } from './orders';
 import { sendConfirmation } from './order-mail';
 import type { Stripe } from './payments';
+import { isDuplicateKey, transact } from './db/retry';
+import { processedEvents } from './db/schema';
+import { handleRefundEvent } from './orders/refunds';
+import { afterOrderPaid } from './orders/paid-alert';
+
+const REFUND_EVENTS = new Set(['charge.refunded', 'refund.updated']);
+
+/** Records the event id and applies a refund event in one transaction; a repeat does nothing. */
+async function applyRefundEvent(event: Stripe.Event) {
+	try {
+		return await transact(async (tx) => {
+			await tx
+				.insert(processedEvents)
+				.values({ id: event.id, type: event.type, processedAt: new Date() });
+			return handleRefundEvent(event, tx);
+		});
+	} catch (err) {
+		if (isDuplicateKey(err)) return false;
+		throw err;
+	}
+}
 
 /**
  * Acts on one verified payment event. Database changes happen in one transaction inside
@@ -8,6 +29,9 @@ import type { Stripe } from './payments';
  * the e-mail goes out only after that commit, and only the first time.
  */
 export async function handlePaymentEvent(event: Stripe.Event, origin: string) {
+	if (REFUND_EVENTS.has(event.type)) {
+		return { handled: true as const, changed: await applyRefundEvent(event) };
+	}
 	if (event.type !== 'checkout.session.completed' && event.type !== 'checkout.session.expired') {
 		return { handled: false as const };
 	}
@@ -37,6 +61,7 @@ export async function handlePaymentEvent(event: Stripe.Event, origin: string) {
 				console.error('confirmation e-mail failed', order.ref, err);
 			}
 		}
+		await afterOrderPaid(orderId, origin);
 	}
 	return { handled: true as const, changed: orderId !== null };
 }
