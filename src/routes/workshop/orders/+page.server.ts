@@ -1,8 +1,33 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { workshopOrders } from '$lib/server/orders';
-import type { PageServerLoad } from './$types';
+import { moveOrders } from '$lib/server/orders/bulk';
+import { orderStatuses } from '$lib/order-status';
+import type { Actions, PageServerLoad } from './$types';
 
+/** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
 export const load: PageServerLoad = async (event) => {
-	requireRole(event, 'owner', 'helper');
-	return { orders: await workshopOrders() };
+	const user = requireRole(event, 'owner', 'helper');
+	return { role: user.role };
+};
+
+const moveSchema = z.object({
+	refs: z.array(z.string().trim().min(1).max(16)).min(1, 'Select at least one order.').max(100),
+	to: z.enum(orderStatuses, { error: 'Choose where to move them.' })
+});
+
+export const actions: Actions = {
+	/** Moves the selected orders on together; each one goes only where its status allows. */
+	move: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const form = await event.request.formData();
+		const parsed = moveSchema.safeParse({ refs: form.getAll('refs'), to: form.get('to') });
+		if (!parsed.success) {
+			return fail(400, { error: parsed.error.issues[0]?.message ?? 'Check the selection.' });
+		}
+		if (parsed.data.to === 'refunded') {
+			return fail(400, { error: 'Refund orders one at a time from their own page.' });
+		}
+		return { moved: await moveOrders(parsed.data.refs, parsed.data.to, user.id) };
+	}
 };
