@@ -132,9 +132,9 @@ describe('demo seed', () => {
 		}
 	});
 
-	it('has a dozen orders across every status, with sums that add up', async () => {
+	it('has thirteen orders across every status, with sums that add up', async () => {
 		const orders = await db.select().from(schema.orders);
-		expect(orders).toHaveLength(12);
+		expect(orders).toHaveLength(13);
 		expect(new Set(orders.map((o) => o.status))).toEqual(new Set(schema.orderStatuses));
 		const lines = await db.select().from(schema.orderLines);
 		const shipments = await db.select().from(schema.shipments);

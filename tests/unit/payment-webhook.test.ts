@@ -118,6 +118,31 @@ describe('POST /api/payments/webhook', () => {
 		expect(await status()).toBe('pending');
 	});
 
+	it('refuses a signature timestamped beyond the tolerance in either direction, with a reason', async () => {
+		const body = completed(`evt_${tag}_skew`);
+		const now = Math.floor(Date.now() / 1000);
+		// 300 s either way: the SDK's default tolerance (Stripe docs "Check the webhook signatures");
+		// the SDK itself only refuses the old side, so the future side is ours.
+		for (const timestamp of [now + 3600, now + 301, now - 301]) {
+			const res = await call(body, sign(body, { timestamp }));
+			expect(res.status, String(timestamp - now)).toBe(400);
+			const { error } = (await res.json()) as { error: string };
+			expect(error).toMatch(timestamp > now ? /future/ : /tolerance/i);
+		}
+		expect(await status()).toBe('pending');
+		// Just inside the window is fine (nothing to do yet: a different event id, same order).
+		const near = await call(
+			completed(`evt_${tag}_near`),
+			sign(completed(`evt_${tag}_near`), { timestamp: now + 60 })
+		);
+		expect(near.status).toBe(200);
+		await db
+			.update(s.orders)
+			.set({ status: 'pending', paidAt: null })
+			.where(eq(s.orders.id, orderId));
+		await db.delete(s.orderHistory).where(eq(s.orderHistory.orderId, orderId));
+	});
+
 	it('applies a signed checkout.session.completed once, however often it arrives', async () => {
 		const body = completed(`evt_${tag}_ok`);
 		const first = await call(body, sign(body));

@@ -14,9 +14,15 @@ import { config } from '../../src/lib/server/config';
 import { stripe } from '../../src/lib/server/payments';
 import { shipOrder } from '../../src/lib/server/orders/ship';
 import { StatusMoveError } from '../../src/lib/server/orders/status';
-import { handleRefundEvent, refundOrder, RefundError } from '../../src/lib/server/orders/refunds';
+import {
+	handleRefundEvent,
+	refundedChargeObject,
+	refundObject,
+	refundOrder,
+	RefundError
+} from '../../src/lib/server/orders/refunds';
 import { shipmentSchema } from '../../src/lib/schemas/shipment';
-import { orderLink } from '../../src/lib/server/order-links';
+import { orderLink } from '../../src/lib/server/orders/links';
 
 const tag = `wo${process.pid}${Date.now() % 100000}`;
 const inbox = `http://127.0.0.1:${config.mail.inboxPort}/api/messages`;
@@ -226,9 +232,7 @@ describe('refunds', () => {
 	it('applies charge.refunded and refund.updated events once, however often they come', async () => {
 		const o = await newOrder('paid', 8000);
 		const pi = (await order(o.id)).paymentIntentId!;
-		const event = (type: string, object: unknown) =>
-			({ id: `evt_${tag}_${type}`, type, data: { object } }) as never;
-		const charge = { object: 'charge', payment_intent: pi, amount_refunded: 8000, metadata: {} };
+		const charge = { payment_intent: pi, amount_refunded: 8000, metadata: {} };
 		const refund = {
 			id: `re_${tag}`,
 			object: 'refund',
@@ -240,8 +244,12 @@ describe('refunds', () => {
 			created: Math.floor(Date.now() / 1000)
 		};
 		for (let i = 0; i < 2; i++) {
-			await db.transaction((tx) => handleRefundEvent(event('refund.updated', refund), tx));
-			await db.transaction((tx) => handleRefundEvent(event('charge.refunded', charge), tx));
+			await db.transaction((tx) =>
+				handleRefundEvent({ type: 'refund.updated', object: refundObject.parse(refund) }, tx)
+			);
+			await db.transaction((tx) =>
+				handleRefundEvent({ type: 'charge.refunded', object: refundedChargeObject.parse(charge) }, tx)
+			);
 		}
 		const after = await order(o.id);
 		expect(after).toMatchObject({ refundedMinor: 8000, status: 'refunded' });

@@ -1,10 +1,8 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
-import { photos, pieces, pieceWoods, stock, woods, type PiecePattern } from './db/schema';
+import { photos, pieces, pieceWoods, stock, woods, WORKSHOP, type PiecePattern } from './db/schema';
 import { jsonValue } from './json-column';
 import type { ShopQuery } from '$lib/schemas/shop';
-
-import { WORKSHOP } from './pricing';
 
 export type WoodChoice = {
 	id: number;

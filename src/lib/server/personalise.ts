@@ -1,7 +1,12 @@
 import { computePattern } from '$lib/pattern';
-import { ROSETTE_STYLES } from '$lib/pattern/styles';
 import { initialsSchema, styleSchema } from '$lib/schemas/pattern';
-import type { Personalisation, PiecePattern } from './db/schema';
+import {
+	snapshotInput,
+	snapshotOf,
+	styledLayout,
+	type Personalisation,
+	type PiecePattern
+} from '$lib/pattern/snapshot';
 import { jsonValue } from './json-column';
 import { letterFont } from '$lib/pattern/letter-font';
 
@@ -25,39 +30,13 @@ export function personalise(
 	const parsedStyle = styleSchema.safeParse(input.style || 'classic');
 	if (!parsedStyle.success)
 		return { ok: false, fields: { style: [parsedStyle.error.issues[0].message] } };
-	const initials = parsedInitials.data;
 	const style = parsedStyle.data;
-	const split = ROSETTE_STYLES[style].split;
-	const layout = jsonValue<PiecePattern>(piece.pattern);
-	const spacingMm = layout.spacingMm || layout.diameterMm / 2;
-	const result = computePattern(
-		{
-			diameterMm: layout.diameterMm,
-			count: layout.count,
-			spacingMm,
-			split,
-			initials,
-			woodSlug: wood.slug,
-			widthMm: piece.widthMm,
-			lengthMm: piece.lengthMm,
-			thicknessMm: piece.thicknessMm
-		},
-		{ svg: false, font: letterFont() }
-	);
-	return {
-		ok: true,
-		snapshot: {
-			initials,
-			style,
-			diameterMm: layout.diameterMm,
-			count: layout.count,
-			spacingMm,
-			split,
-			chipCount: result.chipCount,
-			cutLengthMm: Math.round(result.cutLengthMm),
-			estimateMinutes: Math.round(result.estimateMinutes)
-		}
-	};
+	const layout = styledLayout(jsonValue<PiecePattern>(piece.pattern), style, parsedInitials.data);
+	const result = computePattern(snapshotInput(layout, piece, wood.slug), {
+		svg: false,
+		font: letterFont()
+	});
+	return { ok: true, snapshot: snapshotOf(layout, style, result) };
 }
 
 /** The preview drawing for a stored snapshot, in the chosen wood. */
@@ -67,16 +46,8 @@ export function previewSvg(
 	blank: { widthMm: number; lengthMm: number; thicknessMm: number },
 	idPrefix = 'pv'
 ): string {
-	return computePattern(
-		{
-			diameterMm: snap.diameterMm,
-			count: snap.count,
-			spacingMm: snap.spacingMm,
-			split: snap.split,
-			initials: snap.initials,
-			woodSlug: wood.slug,
-			...blank
-		},
-		{ idPrefix, font: letterFont() }
-	).svg;
+	return computePattern(snapshotInput(snap, blank, wood.slug), {
+		idPrefix,
+		font: letterFont()
+	}).svg;
 }

@@ -13,6 +13,7 @@ import {
 	index
 } from 'drizzle-orm/mysql-core';
 import { orderStatuses, type OrderStatus } from '../../order-status';
+import type { Personalisation, PiecePattern } from '../../pattern/snapshot';
 
 export const roles = ['owner', 'helper', 'customer'] as const;
 export type Role = (typeof roles)[number];
@@ -85,13 +86,6 @@ export const pieces = mysqlTable('pieces', {
 	createdAt: datetime('created_at').notNull()
 });
 
-export type PiecePattern = {
-	diameterMm: number;
-	count: number;
-	spacingMm?: number;
-	split?: boolean;
-};
-
 /** Which woods a piece can be made in. */
 export const pieceWoods = mysqlTable(
 	'piece_woods',
@@ -118,6 +112,9 @@ export const photos = mysqlTable('photos', {
 	width: int('width').notNull(),
 	height: int('height').notNull()
 });
+
+/** The stock place of the workshop shelf; fairs use 'fair:<id>'. */
+export const WORKSHOP = 'workshop';
 
 /** Finished pieces on hand per piece × wood × place ('workshop' or 'fair:<id>'). */
 export const stock = mysqlTable(
@@ -161,20 +158,10 @@ export const cartLines = mysqlTable('cart_lines', {
 	createdAt: datetime('created_at').notNull()
 });
 
-export type Personalisation = {
-	initials: string;
-	style: string;
-	diameterMm: number;
-	count: number;
-	spacingMm: number;
-	split: boolean;
-	chipCount?: number;
-	cutLengthMm?: number;
-	estimateMinutes?: number;
-};
-
 // The status list and its allowed moves live in one pure module the browser can import too.
 export { orderStatuses, type OrderStatus };
+// One personalisation type, beside the engine that reads it.
+export type { Personalisation, PiecePattern };
 
 export type Address = {
 	line1: string;

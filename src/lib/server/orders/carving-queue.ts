@@ -19,7 +19,7 @@ import { letterFont } from '$lib/pattern/letter-font';
 import { db, type Db, type Tx } from '../db';
 import { fairs, orderLines, orders, pieces, settings, woods, type Personalisation } from '../db/schema';
 import { jsonValue } from '../json-column';
-import { snapshotInput } from '../order-detail';
+import { snapshotInput } from '$lib/pattern/snapshot';
 
 const KEY = 'carvingSchedule';
 const minutes = z.number().int().min(0).max(24 * 60);

@@ -13,6 +13,7 @@
  * us something first (or something done outside the app).
  */
 import { and, eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
 import { formatMoney } from '$lib/money';
 import type { RefundInput } from '$lib/schemas/refund';
 import { db, type Tx } from '../db';
@@ -20,7 +21,7 @@ import { transact } from '../db/retry';
 import { orderLines, orderRefunds, orders } from '../db/schema';
 import { sendMail } from '../mail';
 import { stripe, type Stripe } from '../payments';
-import { putBackOnShelf } from './shelf';
+import { putBackStock } from './holds';
 import { mailOrder } from './mail-order';
 import { refundMail } from './shipping-mail';
 import { moveOrder } from './status';
@@ -185,7 +186,10 @@ async function restockOnce(tx: Tx, orderId: number, refundRowId: number) {
 		.select()
 		.from(orderLines)
 		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, true)));
-	for (const l of lines) await putBackOnShelf(tx, l.pieceId, l.woodId, l.quantity);
+	await putBackStock(
+		tx,
+		lines.map((l) => ({ pieceId: l.pieceId, woodId: l.woodId, quantity: l.quantity }))
+	);
 	await tx.update(orderRefunds).set({ restocked: true }).where(eq(orderRefunds.id, refundRowId));
 }
 
@@ -208,34 +212,64 @@ export async function markPiecesReturned(ref: string) {
 const refundStatus = (s: string | null | undefined) =>
 	s === 'succeeded' || s === 'failed' || s === 'canceled' ? s : 'pending';
 
+const intentId = z
+	.union([z.string(), z.object({ id: z.string() })])
+	.nullish()
+	.transform((p) => (typeof p === 'string' ? p : (p?.id ?? null)));
+const meta = z.record(z.string(), z.string()).nullish();
+
+/** The fields of a `charge.refunded` event's object that we act on. */
+export const refundedChargeObject = z.object({
+	payment_intent: intentId,
+	amount_refunded: z.number().int().min(0),
+	metadata: meta
+});
+/** The fields of a `refund.updated` event's object that we act on. */
+export const refundObject = z.object({
+	id: z.string().min(1),
+	amount: z.number().int().min(1),
+	payment_intent: intentId,
+	status: z.string().nullish(),
+	reason: z.string().nullish(),
+	created: z.number().int(),
+	metadata: meta
+});
+export type RefundEventObject =
+	| { type: 'charge.refunded'; object: z.infer<typeof refundedChargeObject> }
+	| { type: 'refund.updated'; object: z.infer<typeof refundObject> };
+
 async function orderForIntent(tx: Tx, paymentIntentId: string | null, ref?: string) {
-	const where = ref ? eq(orders.ref, ref) : paymentIntentId ? eq(orders.paymentIntentId, paymentIntentId) : null;
+	const where = ref
+		? eq(orders.ref, ref)
+		: paymentIntentId
+			? eq(orders.paymentIntentId, paymentIntentId)
+			: null;
 	if (!where) return null;
-	const [o] = await tx.select({ id: orders.id }).from(orders).where(where).for('update');
+	const [o] = await tx
+		.select({ id: orders.id, status: orders.status })
+		.from(orders)
+		.where(where)
+		.for('update');
 	return o ?? null;
 }
 
-const idOf = (x: string | { id: string } | null | undefined) =>
-	typeof x === 'string' ? x : (x?.id ?? null);
+const providerSaid = { userId: null, why: 'The payment server reported a full refund' };
 
 /**
- * Applies a verified `charge.refunded` or `refund.updated` event inside the caller's transaction
- * (the webhook records the event id in the same one). Both are safe to apply twice: totals only
- * grow to what the provider says, and a refund row is keyed by the provider's id.
+ * Applies a verified, field-checked `charge.refunded` or `refund.updated` inside the caller's
+ * transaction (which records the event id too). Both are safe to apply twice: totals only grow
+ * to what the provider says, and a refund row is keyed by the provider's id. An order whose
+ * piece was gone stays for the owner to close.
  */
-export async function handleRefundEvent(event: Stripe.Event, tx: Tx): Promise<boolean> {
-	if (event.type === 'charge.refunded') {
-		const charge = event.data.object as Stripe.Charge;
-		const o = await orderForIntent(tx, idOf(charge.payment_intent), charge.metadata?.orderRef);
-		if (!o) return false;
-		await settleTotals(tx, o.id, charge.amount_refunded ?? 0);
-		await moveIfFull(tx, o.id, { userId: null, why: 'The payment server reported a full refund' });
-		return true;
-	}
-	if (event.type === 'refund.updated') {
-		const refund = event.data.object as Stripe.Refund;
-		const o = await orderForIntent(tx, idOf(refund.payment_intent), refund.metadata?.orderRef);
-		if (!o) return false;
+export async function handleRefundEvent(e: RefundEventObject, tx: Tx): Promise<boolean> {
+	const o = await orderForIntent(
+		tx,
+		e.object.payment_intent,
+		e.object.metadata?.orderRef ?? undefined
+	);
+	if (!o) return false;
+	if (e.type === 'refund.updated') {
+		const refund = e.object;
 		const status = refundStatus(refund.status);
 		const rowId = Number(refund.metadata?.refundRowId);
 		const [mine] = await tx
@@ -256,24 +290,25 @@ export async function handleRefundEvent(event: Stripe.Event, tx: Tx): Promise<bo
 				.set({ providerRefundId: refund.id, status })
 				.where(eq(orderRefunds.id, mine.id));
 		} else {
-			// Made outside the app (the provider's dashboard): record it so the order shows it.
+			// Made outside the app (the provider's dashboard, the piece-gone refund): record it.
 			await tx
 				.insert(orderRefunds)
 				.values({
 					orderId: o.id,
 					providerRefundId: refund.id,
 					amountMinor: refund.amount,
-					reason: refund.reason ?? 'Refunded at the payment server',
+					reason: refund.metadata?.reason ?? refund.reason ?? 'Refunded at the payment server',
 					status,
 					createdAt: new Date(refund.created * 1000)
 				})
 				.onDuplicateKeyUpdate({ set: { status } });
 		}
 		await settleTotals(tx, o.id);
-		await moveIfFull(tx, o.id, { userId: null, why: 'The payment server reported a full refund' });
-		return true;
+	} else {
+		await settleTotals(tx, o.id, e.object.amount_refunded);
 	}
-	return false;
+	if (o.status !== 'piece_gone') await moveIfFull(tx, o.id, providerSaid);
+	return true;
 }
 
 /** The refunds of an order, newest first, for its page. */

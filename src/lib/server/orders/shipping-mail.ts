@@ -6,7 +6,7 @@
 import { formatMoney } from '$lib/money';
 import { trackingLink } from '$lib/carriers';
 import { esc, mailButton, mailPage } from '../mail-html';
-import { orderLink } from '../order-links';
+import { orderLink } from './links';
 
 export type MailOrder = {
 	ref: string;

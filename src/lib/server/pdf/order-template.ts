@@ -5,19 +5,14 @@
 import { computePattern } from '$lib/pattern';
 import type { GlyphSource } from '$lib/pattern/lettering';
 import { letterFont } from '$lib/pattern/letter-font';
+import { snapshotInput, type PieceBlank, type Personalisation } from '$lib/pattern/snapshot';
 import { templatePdf, type Paper } from './template';
 
 export type OrderLineTemplateInput = {
 	/** The personalisation snapshot kept with the order line. */
-	personalisation: {
-		initials: string;
-		diameterMm: number;
-		count: number;
-		spacingMm?: number;
-		split: boolean;
-	};
+	personalisation: Personalisation;
 	/** The piece's blank. */
-	blank: { widthMm: number; lengthMm: number; thicknessMm?: number; curvedTop?: boolean };
+	blank: PieceBlank;
 	woodSlug: string;
 	orderRef: string;
 	lineTitle: string;
@@ -26,22 +21,10 @@ export type OrderLineTemplateInput = {
 };
 
 export async function orderLineTemplatePdf(input: OrderLineTemplateInput): Promise<Uint8Array> {
-	const p = input.personalisation;
-	const result = computePattern(
-		{
-			diameterMm: p.diameterMm,
-			count: p.count,
-			spacingMm: p.spacingMm,
-			split: p.split,
-			initials: p.initials,
-			woodSlug: input.woodSlug,
-			widthMm: input.blank.widthMm,
-			lengthMm: input.blank.lengthMm,
-			thicknessMm: input.blank.thicknessMm,
-			curvedTop: input.blank.curvedTop
-		},
-		{ font: input.font ?? letterFont(), svg: false }
-	);
+	const result = computePattern(snapshotInput(input.personalisation, input.blank, input.woodSlug), {
+		font: input.font ?? letterFont(),
+		svg: false
+	});
 	return templatePdf(result, {
 		paper: input.paper ?? 'a4',
 		orderRef: input.orderRef,

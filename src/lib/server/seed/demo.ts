@@ -11,7 +11,14 @@ import { drizzle } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { hashPassword } from '../auth/password';
 import * as schema from '../db/schema';
-import type { Personalisation, PiecePattern, PieceKind, OrderStatus, Role } from '../db/schema';
+import type { PieceKind, OrderStatus, Role } from '../db/schema';
+import {
+	snapshotInput,
+	snapshotOf,
+	styledLayout,
+	type Personalisation,
+	type PiecePattern
+} from '../../pattern/snapshot';
 import { WOODS, densityAt12 } from '../../woods';
 import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
 import { computePattern } from '../../pattern';
@@ -22,25 +29,16 @@ function demoSnapshot(
 	woodSlug: string,
 	initials: string
 ): Personalisation {
-	const { diameterMm, count } = piece.pattern;
-	const split = piece.pattern.split ?? false;
-	const spacingMm = piece.pattern.spacingMm || diameterMm / 2;
+	const style = piece.pattern.split ? 'split' : 'classic';
+	const layout = styledLayout(piece.pattern, style, initials);
 	const [lengthMm, widthMm, thicknessMm] = piece.size;
 	const result = computePattern(
-		{ diameterMm, count, spacingMm, split, initials, woodSlug, widthMm, lengthMm, thicknessMm },
-		{ svg: false }
+		snapshotInput(layout, { widthMm, lengthMm, thicknessMm }, woodSlug),
+		{
+			svg: false
+		}
 	);
-	return {
-		initials,
-		style: split ? 'split' : 'classic',
-		diameterMm,
-		count,
-		spacingMm,
-		split,
-		chipCount: result.chipCount,
-		cutLengthMm: Math.round(result.cutLengthMm),
-		estimateMinutes: Math.round(result.estimateMinutes)
-	};
+	return snapshotOf(layout, style, result);
 }
 
 /** Demo-only accounts, listed in the README and printed by `npm start`. */

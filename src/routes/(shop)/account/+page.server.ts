@@ -1,5 +1,5 @@
 import { redirect } from '@sveltejs/kit';
-import { ordersForUser } from '$lib/server/orders';
+import { ordersForUser } from '$lib/server/orders/views';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {

@@ -8,7 +8,7 @@ import {
 	setDestination,
 	setQuantity
 } from '$lib/server/cart';
-import { returnUnpaid } from '$lib/server/checkout-return';
+import { returnUnpaid } from '$lib/server/orders/payment';
 import {
 	destinationSchema,
 	fieldErrors,
@@ -20,10 +20,10 @@ import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async ({ cookies, url }) => {
 	const cartId = cartIdFrom(cookies);
-	let returned: { cancelled: boolean; declined: string | null } | null = null;
+	let returned: { cancelled: boolean; declined: string | null; paid: boolean } | null = null;
 	if (url.searchParams.get('cancelled') === '1') {
 		const r = await returnUnpaid(url.searchParams.get('order'), cartId);
-		returned = { cancelled: true, declined: r.declined };
+		returned = { cancelled: true, declined: r.declined, paid: r.paid };
 	}
 	return { summary: await cartSummary(cartId), returned, countries: COUNTRIES };
 };

@@ -1,13 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
-import { createCheckoutSession } from '$lib/server/checkout';
-import {
-	attachCheckoutSession,
-	createPendingOrder,
-	OrderError,
-	releaseExpiredHolds,
-	releaseOrder
-} from '$lib/server/orders';
+import { OrderError, placeOrder } from '$lib/server/orders/place';
 import { checkoutSchema } from '$lib/schemas/checkout';
 import { fieldErrors } from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
@@ -38,39 +31,14 @@ export const actions: Actions = {
 		const cartId = cartIdFrom(cookies);
 		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });
 
-		// Pieces held by checkouts that were never finished go back on the shelf first.
-		await releaseExpiredHolds();
-		let order;
+		let placed;
 		try {
-			order = await createPendingOrder(cartId, parsed.data, locals.user?.id ?? null);
+			placed = await placeOrder(cartId, parsed.data, locals.user?.id ?? null, url.origin);
 		} catch (err) {
 			if (err instanceof OrderError)
 				return fail(err.status, { errors: { form: [err.message] }, values, code: err.code });
 			throw err;
 		}
-
-		let session;
-		try {
-			session = await createCheckoutSession(order, parsed.data.email, url.origin);
-		} catch {
-			await releaseOrder(order.id);
-			return fail(503, {
-				errors: {
-					form: [
-						'The payment service did not answer. Nothing was charged; please try again in a minute.'
-					]
-				},
-				values
-			});
-		}
-		await attachCheckoutSession(order.id, session.id);
-		if (!session.url) {
-			await releaseOrder(order.id);
-			return fail(503, {
-				errors: { form: ['The payment page could not be opened. Nothing was charged.'] },
-				values
-			});
-		}
-		redirect(303, session.url);
+		redirect(303, placed.paymentUrl);
 	}
 };

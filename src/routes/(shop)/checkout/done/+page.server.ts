@@ -1,6 +1,5 @@
 import { cartIdFrom, cartCount } from '$lib/server/cart';
-import { orderBySession } from '$lib/server/orders';
-import { buyerOrderView } from '$lib/server/order-view';
+import { buyerOrderView, orderBySession } from '$lib/server/orders/views';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url, cookies, depends }) => {

@@ -1,7 +1,6 @@
 import { error } from '@sveltejs/kit';
-import { orderByRef } from '$lib/server/orders';
-import { verifyOrderKey } from '$lib/server/order-links';
-import { buyerOrderView } from '$lib/server/order-view';
+import { buyerOrderView, orderByRef } from '$lib/server/orders/views';
+import { verifyOrderKey } from '$lib/server/orders/links';
 import type { PageServerLoad } from './$types';
 
 /** Reachable by the signed link from the e-mail, or by the signed-in account that placed it. */

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { apiError } from '$lib/server/auth/guard';
 import { config } from '$lib/server/config';
 import { verifyWebhook, WebhookSignatureError } from '$lib/server/payments';
-import { handlePaymentEvent } from '$lib/server/payment-events';
+import { handlePaymentEvent, PaymentEventError } from '$lib/server/orders/payment';
 import type { RequestHandler } from './$types';
 
 /** Payment provider events. The raw body is verified with the SDK before anything is read. */
@@ -12,9 +12,15 @@ export const POST: RequestHandler = async ({ request }) => {
 	try {
 		event = verifyWebhook(raw, request.headers.get('stripe-signature'));
 	} catch (err) {
-		if (err instanceof WebhookSignatureError) return apiError(400, 'The signature does not match.');
+		if (err instanceof WebhookSignatureError)
+			return apiError(400, `The signature was not accepted: ${err.message}`);
 		throw err;
 	}
-	const result = await handlePaymentEvent(event, config.origin);
-	return json({ received: true, ...result });
+	try {
+		const result = await handlePaymentEvent(event, config.origin);
+		return json({ received: true, ...result });
+	} catch (err) {
+		if (err instanceof PaymentEventError) return apiError(400, err.message);
+		throw err;
+	}
 };

@@ -1,6 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { workshopOrderDetail } from '$lib/server/order-detail';
+import { workshopOrderDetail } from '$lib/server/orders/views';
 import { nextStatuses, statusLabel } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
 import { moveSchema, noteSchema } from '$lib/schemas/order-actions';

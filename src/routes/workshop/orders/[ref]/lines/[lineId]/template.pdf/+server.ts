@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { apiError, requireRole } from '$lib/server/auth/guard';
 import { letterFont } from '$lib/pattern/letter-font';
-import { orderLineForTemplate } from '$lib/server/order-detail';
+import { orderLineForTemplate } from '$lib/server/orders/views';
 import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';
 import type { RequestHandler } from './$types';
 
@@ -24,15 +24,8 @@ export const GET: RequestHandler = async (event) => {
 	if (!line.personalisation)
 		return apiError(404, 'This line is not personalised, so it has no template.');
 
-	const p = line.personalisation;
 	const bytes = await orderLineTemplatePdf({
-		personalisation: {
-			initials: p.initials,
-			diameterMm: p.diameterMm,
-			count: p.count,
-			spacingMm: p.spacingMm || p.diameterMm / 2,
-			split: !!p.split
-		},
+		personalisation: line.personalisation,
 		blank: { widthMm: line.widthMm, lengthMm: line.lengthMm, thicknessMm: line.thicknessMm },
 		woodSlug: line.woodSlug,
 		orderRef: line.ref,

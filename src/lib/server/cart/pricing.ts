@@ -1,12 +1,18 @@
-import { and, asc, eq } from 'drizzle-orm';
-import { db, type Db, type Tx } from './db';
-import { cartLines, pieces, shippingRates, stock, woods, type Personalisation } from './db/schema';
-import { jsonValue } from './json-column';
-import { getSalesTaxBp } from './settings';
+import { asc, eq } from 'drizzle-orm';
+import { db, type Db, type Tx } from '../db';
+import {
+	cartLines,
+	pieces,
+	shippingRates,
+	stock,
+	woods,
+	WORKSHOP,
+	type Personalisation
+} from '../db/schema';
+import { jsonValue } from '../json-column';
+import { getSalesTaxBp } from '../settings';
 import { lineTax, lineTotal } from '$lib/money';
 import { shippingCharge, zoneFor } from '$lib/shipping';
-
-export const WORKSHOP = 'workshop';
 
 /**
  * Prices a cart from the database alone: unit prices, per-line tax, shipping by destination.
@@ -128,12 +134,4 @@ export type PricedCart = Awaited<ReturnType<typeof priceCart>>;
 /** Made-to-order lead: the longest lead of any personalised line (0 when all are ready now). */
 export function leadDaysFor(lines: { fromStock: boolean; leadDays: number }[]) {
 	return Math.max(0, ...lines.filter((l) => !l.fromStock).map((l) => l.leadDays));
-}
-
-export async function stockOnHand(pieceId: number, woodId: number) {
-	const [row] = await db
-		.select({ quantity: stock.quantity })
-		.from(stock)
-		.where(and(eq(stock.pieceId, pieceId), eq(stock.woodId, woodId), eq(stock.place, WORKSHOP)));
-	return row?.quantity ?? 0;
 }

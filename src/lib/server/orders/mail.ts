@@ -1,8 +1,9 @@
 import { formatMoney } from '$lib/money';
 import { countryName } from '$lib/shipping';
-import { sendMail } from './mail';
-import { orderLink } from './order-links';
-import type { OrderDetail } from './orders';
+import { formatDay } from '$lib/dates';
+import { sendMail } from '../mail';
+import { orderLink } from './links';
+import type { OrderDetail } from './views';
 
 const esc = (s: string) =>
 	s.replace(
@@ -11,14 +12,7 @@ const esc = (s: string) =>
 	);
 
 export function readyByWords(iso: string | null) {
-	if (!iso) return 'soon';
-	return new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-US', {
-		weekday: 'long',
-		month: 'long',
-		day: 'numeric',
-		year: 'numeric',
-		timeZone: 'UTC'
-	});
+	return formatDay(iso, 'weekdayLong', 'soon');
 }
 
 /** The confirmation as plain text and HTML; both carry the same facts. */
@@ -100,4 +94,49 @@ ${order.giftNote ? `<p>Gift note: <em>${esc(order.giftNote)}</em></p>` : ''}
 export async function sendConfirmation(order: OrderDetail, origin?: string) {
 	const mail = confirmationMail(order, origin);
 	await sendMail({ to: order.email, ...mail });
+}
+
+/**
+ * The order was paid, but the finished piece had gone to another buyer in the meantime. Said
+ * plainly: what happened, whether the money is on its way back, and that the workshop will write.
+ */
+export function pieceGoneMail(order: OrderDetail, origin?: string) {
+	const money = formatMoney(order.totalMinor, order.currency);
+	const pieces = order.lines
+		.filter((l) => l.fromStock)
+		.map((l) => `${l.quantity} × ${l.title} in ${l.woodName}`);
+	const refund =
+		order.refundedMinor >= order.totalMinor
+			? `We have refunded the full ${money} to your card. Banks usually show it within 5 to 10 working days.`
+			: `We will refund the full ${money}; Hollis will confirm by e-mail once it is done.`;
+	const text = [
+		`Dear ${order.buyerName},`,
+		'',
+		`Your payment for order ${order.ref} reached us after your hold on the piece had ended, and in the meantime it was sold to someone else:`,
+		...pieces.map((p) => `   ${p}`),
+		'',
+		'We are sorry. Nothing will be posted for this order.',
+		refund,
+		'',
+		'If you would like Hollis to carve another one for you, reply to this e-mail.',
+		'',
+		`Your order: ${orderLink(order.ref, origin)}`
+	].join('\n');
+	const html = `<!doctype html><html><body style="font-family:Nunito,Segoe UI,sans-serif;font-size:17px;line-height:1.5;color:#2e2118">
+<p>Dear ${esc(order.buyerName)},</p>
+<p>Your payment for order <strong>${esc(order.ref)}</strong> reached us after your hold on the piece had ended, and in the meantime it was sold to someone else:</p>
+<ul>${pieces.map((p) => `<li>${esc(p)}</li>`).join('')}</ul>
+<p>We are sorry. Nothing will be posted for this order.</p>
+<p><strong>${esc(refund)}</strong></p>
+<p>If you would like Hollis to carve another one for you, reply to this e-mail.</p>
+</body></html>`;
+	return {
+		subject: `Order ${order.ref}: the piece was sold before your payment arrived`,
+		text,
+		html
+	};
+}
+
+export async function sendPieceGone(order: OrderDetail, origin?: string) {
+	await sendMail({ to: order.email, ...pieceGoneMail(order, origin) });
 }

@@ -1,5 +1,5 @@
 import { createHmac, timingSafeEqual } from 'node:crypto';
-import { config } from './config';
+import { config } from '../config';
 
 /**
  * A buyer's order page is reachable without an account through a link carrying an HMAC of

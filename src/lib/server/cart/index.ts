@@ -1,6 +1,6 @@
 import type { Cookies } from '@sveltejs/kit';
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
-import { db } from './db';
+import { db } from '../db';
 import {
 	cartLines,
 	carts,
@@ -9,9 +9,10 @@ import {
 	pieceWoods,
 	woods,
 	type Personalisation
-} from './db/schema';
-import { priceCart, stockOnHand } from './pricing';
-import { personalise, previewSvg } from './personalise';
+} from '../db/schema';
+import { priceCart } from './pricing';
+import { stockOnHand } from '../orders/holds';
+import { personalise, previewSvg } from '../personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
 
 export const CART_COOKIE = 'cart';

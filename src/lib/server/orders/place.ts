@@ -1,0 +1,220 @@
+/**
+ * Placing an order: the one call the checkout makes. Prices the basket on the server, holds
+ * finished pieces, opens the payment session, and undoes the order if the session cannot open.
+ */
+import { randomInt } from 'node:crypto';
+import { and, eq } from 'drizzle-orm';
+import type { Tx } from '../db';
+import { transact } from '../db/retry';
+import { carts, orderLines, orders, type Address } from '../db/schema';
+import { leadDaysFor, priceCart, type PricedCart } from '../cart/pricing';
+import { addDays } from '$lib/dates';
+import type { CheckoutInput } from '$lib/schemas/checkout';
+import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from './holds';
+import { createCheckoutSession, expireCheckoutSession } from './payment';
+
+/** A checkout that cannot go ahead; the message is for the buyer. */
+export class OrderError extends Error {
+	constructor(
+		message: string,
+		public status = 409,
+		public code: 'empty' | 'stock' | 'price' | 'rates' | 'payment' | 'unknown' = 'unknown'
+	) {
+		super(message);
+	}
+}
+
+/** Stripe lets a Checkout Session live 30 min to 24 h; a little over 30 covers clock drift. */
+export const HOLD_MINUTES = 35;
+
+const REF_ALPHABET = '23456789ABCDEFGHJKMNPQRSTVWXYZ'; // no 0/O, 1/I/L, U: easy to read aloud
+
+export function newOrderRef(): string {
+	let s = '';
+	for (let i = 0; i < 6; i++) s += REF_ALPHABET[randomInt(REF_ALPHABET.length)];
+	return `CS-${s}`;
+}
+
+export type PendingOrder = {
+	id: number;
+	ref: string;
+	holdExpiresAt: Date;
+	priced: PricedCart;
+	/** Payment sessions of orders this one replaced; closed once the new order is committed. */
+	replacedSessions: string[];
+};
+
+function addressOf(buyer: CheckoutInput): Address {
+	return {
+		line1: buyer.line1,
+		...(buyer.line2 ? { line2: buyer.line2 } : {}),
+		city: buyer.city,
+		...(buyer.region ? { region: buyer.region.toUpperCase() } : {}),
+		postcode: buyer.postcode,
+		country: buyer.country
+	};
+}
+
+async function uniqueRef(tx: Tx) {
+	let ref = newOrderRef();
+	for (let i = 0; i < 5; i++) {
+		const [clash] = await tx.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref));
+		if (!clash) break;
+		ref = newOrderRef();
+	}
+	return ref;
+}
+
+/**
+ * Turns the basket into a pending order in one transaction: every price, tax and shipping charge
+ * recomputed from the database, finished pieces held by taking them off the shelf. A basket has
+ * at most one pending order: the cart row is locked, and an earlier pending order of the same
+ * basket (a double click, the back button) is cancelled and its pieces put back first.
+ */
+export async function createPendingOrder(
+	cartId: string,
+	buyer: CheckoutInput,
+	userId: string | null,
+	now = new Date()
+): Promise<PendingOrder> {
+	return transact(async (tx) => {
+		const [cart] = await tx
+			.select({ id: carts.id })
+			.from(carts)
+			.where(eq(carts.id, cartId))
+			.for('update');
+		if (!cart) throw new OrderError('Your basket is empty.', 409, 'empty');
+
+		const earlier = await tx
+			.select({ id: orders.id, sessionId: orders.checkoutSessionId })
+			.from(orders)
+			.where(and(eq(orders.cartId, cartId), eq(orders.status, 'pending')));
+		for (const o of earlier) {
+			await releaseInTx(tx, o.id, 'The same basket was sent to checkout again.');
+		}
+
+		const priced = await priceCart(cartId, buyer.country, tx);
+		if (priced.lines.length === 0) throw new OrderError('Your basket is empty.', 409, 'empty');
+		if (!priced.shippingKnown) throw new OrderError(priced.problems.at(-1)!.message, 409, 'rates');
+		const blocking = priced.problems.filter((p) => p.lineId !== 0);
+		if (blocking.length)
+			throw new OrderError(blocking.map((p) => p.message).join(' '), 409, 'stock');
+		if (buyer.seenTotal !== undefined && buyer.seenTotal !== priced.totalMinor) {
+			throw new OrderError(
+				'The total has changed since you opened this page. Please check the new total and pay again.',
+				409,
+				'price'
+			);
+		}
+
+		const short = await takeStock(
+			tx,
+			priced.lines.filter((l) => l.fromStock)
+		);
+		if (short) {
+			const line = priced.lines.find(
+				(l) => l.pieceId === short.pieceId && l.woodId === short.woodId
+			)!;
+			throw new OrderError(`${line.title} in ${line.woodName} has just sold out.`, 409, 'stock');
+		}
+
+		const ref = await uniqueRef(tx);
+		const holdExpiresAt = new Date(now.getTime() + HOLD_MINUTES * 60_000);
+		const [{ id }] = await tx
+			.insert(orders)
+			.values({
+				ref,
+				userId,
+				cartId,
+				email: buyer.email,
+				buyerName: buyer.name,
+				address: addressOf(buyer),
+				giftNote: buyer.giftNote || null,
+				currency: priced.currency,
+				subtotalMinor: priced.subtotalMinor,
+				shippingMinor: priced.shippingMinor,
+				taxMinor: priced.taxMinor,
+				totalMinor: priced.totalMinor,
+				status: 'pending',
+				readyBy: addDays(now, leadDaysFor(priced.lines)),
+				holdExpiresAt,
+				createdAt: now
+			})
+			.$returningId();
+		await tx.insert(orderLines).values(
+			priced.lines.map((l) => ({
+				orderId: id,
+				pieceId: l.pieceId,
+				woodId: l.woodId,
+				title: l.title,
+				woodName: l.woodName,
+				quantity: l.quantity,
+				unitPriceMinor: l.unitMinor,
+				lineTotalMinor: l.totalMinor,
+				fromStock: l.fromStock,
+				personalisation: l.personalisation
+			}))
+		);
+		const replacedSessions = earlier.flatMap((o) => (o.sessionId ? [o.sessionId] : []));
+		return { id, ref, holdExpiresAt, priced, replacedSessions };
+	});
+}
+
+/** Links the session to the order; false when the order stopped being pending meanwhile. */
+async function attachCheckoutSession(orderId: number, sessionId: string): Promise<boolean> {
+	return transact(async (tx) => {
+		const [res] = await tx
+			.update(orders)
+			.set({ checkoutSessionId: sessionId })
+			.where(and(eq(orders.id, orderId), eq(orders.status, 'pending')));
+		return res.affectedRows === 1;
+	});
+}
+
+const PAYMENT_DOWN =
+	'The payment service did not answer. Nothing was charged; please try again in a minute.';
+
+/**
+ * The checkout: a pending order with its pieces held, and the payment page to send the buyer
+ * to. Throws OrderError (with a message for the buyer) when it cannot go ahead; nothing is left
+ * held when it does.
+ */
+export async function placeOrder(
+	cartId: string,
+	buyer: CheckoutInput,
+	userId: string | null,
+	origin: string,
+	now = new Date()
+): Promise<{ ref: string; paymentUrl: string }> {
+	// Pieces held by checkouts that were never finished go back on the shelf first.
+	await releaseExpiredHolds(now);
+	const order = await createPendingOrder(cartId, buyer, userId, now);
+	for (const s of order.replacedSessions) await expireCheckoutSession(s);
+
+	let session;
+	try {
+		session = await createCheckoutSession(order, buyer.email, origin);
+	} catch {
+		await releaseOrder(order.id, 'The payment page could not be opened.');
+		throw new OrderError(PAYMENT_DOWN, 503, 'payment');
+	}
+	if (!(await attachCheckoutSession(order.id, session.id))) {
+		// The same basket was sent again while this session was being opened: that one wins.
+		await expireCheckoutSession(session.id);
+		throw new OrderError(
+			'This basket was sent to checkout again in another window; please use that one.',
+			409,
+			'unknown'
+		);
+	}
+	if (!session.url) {
+		await releaseOrder(order.id, 'The payment page could not be opened.');
+		await expireCheckoutSession(session.id);
+		throw new OrderError(
+			'The payment page could not be opened. Nothing was charged.',
+			503,
+			'payment'
+		);
+	}
+	return { ref: order.ref, paymentUrl: session.url };
+}
