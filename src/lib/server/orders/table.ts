@@ -9,7 +9,8 @@ import { addIsoDays } from '$lib/carving-queue';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
 
-const lineCounts = db
+/** Per order: personalised pieces, pieces to carve (made to order) and all pieces. */
+export const lineCounts = db
 	.select({
 		orderId: orderLines.orderId,
 		personalised:
