@@ -75,6 +75,7 @@ test('a declined card brings the buyer back to the basket with nothing paid', as
 	await page.goto('/workshop/orders');
 	// The table shows every status unless filtered; search finds the buyer by e-mail.
 	await page.getByRole('searchbox', { name: 'Search' }).fill(email);
+	await expect(page.locator('tr[data-ref]')).toHaveCount(1);
 	const row = page.locator('tr', { hasText: email });
 	await expect(row.getByTestId('order-status')).toHaveAttribute('data-status', 'cancelled');
 	// No confirmation e-mail for an unpaid order.

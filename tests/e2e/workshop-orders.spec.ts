@@ -19,6 +19,9 @@ const A4 = { w: 595.28, h: 841.89 };
 async function openOrder(page: Page, ref: string) {
 	await page.goto('/workshop/orders');
 	await page.getByRole('searchbox', { name: 'Search' }).fill(ref);
+	// The search lands in the URL (the table's state), and the table shows just this order.
+	await expect(page).toHaveURL(new RegExp(`[?&]q=${ref}`));
+	await expect(page.locator('tr[data-ref]')).toHaveCount(1);
 	await page.locator(`tr[data-ref="${ref}"]`).getByRole('link', { name: ref }).click();
 	await expect(page.getByTestId('order-ref')).toHaveText(`Order ${ref}`);
 }

@@ -9,6 +9,13 @@ import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
 import { listWorkshopOrders } from '../../src/lib/server/orders/table';
 import {
+	carvingQueue,
+	queueLines,
+	recomputeReadyBy
+} from '../../src/lib/server/orders/carving-queue';
+import { todaySummary } from '../../src/lib/server/workshop-today';
+import { readyAfterCarving } from '../../src/lib/carving-queue';
+import {
 	orderTableQuery,
 	parseOrderTableQuery,
 	tableStateFromUrl,
@@ -122,6 +129,37 @@ describe('workshop order table', () => {
 		expect(state).toMatchObject({ sort: 'totalMinor', dir: 'asc', status: ['paid', 'packed'], size: 25, q: 'ab' });
 		expect(tableStateToParams(state).toString()).toBe('sort=totalMinor&dir=asc&status=paid%2Cpacked&q=ab');
 		expect(parseOrderTableQuery(new URLSearchParams('sort=password')).success).toBe(false);
+	});
+});
+
+describe('carving queue and Today', () => {
+	it('queues only made-to-order lines; a ready-made order is to pack, never to carve', async () => {
+		const lines = await queueLines();
+		const mine = lines.filter((l) => l.ref.startsWith(`${tag}-`));
+		// Hand count: 2 + 1 + 3 personalised lines, none from order 2; 40 min each (snapshot).
+		expect(mine.map((l) => l.ref).sort()).toEqual([
+			`${tag}-1`,
+			`${tag}-1`,
+			`${tag}-3`,
+			`${tag}-4`,
+			`${tag}-4`,
+			`${tag}-4`
+		]);
+		expect(mine.every((l) => l.minutes === 40)).toBe(true);
+		const today = await todaySummary();
+		const refs = (list: { ref: string }[]) => list.map((o) => o.ref).filter((r) => r.startsWith(`${tag}-`));
+		expect(refs(today.steps.carve).sort()).toEqual([`${tag}-1`, `${tag}-3`, `${tag}-4`]);
+		expect(refs(today.steps.pack)).toEqual([`${tag}-2`]);
+	});
+
+	it('dates each queued order from its place in the queue', async () => {
+		await recomputeReadyBy();
+		const q = await carvingQueue();
+		const [o4] = await db.select().from(s.orders).where(eq(s.orders.ref, `${tag}-4`));
+		const last = q.lines.filter((l) => l.ref === `${tag}-4`).at(-1)!;
+		expect(last.carvedOn).not.toBeNull();
+		expect(o4.readyBy).toBe(readyAfterCarving(last.carvedOn!, q.schedule, q.fairDays));
+		expect(o4.readyBy! > last.carvedOn!).toBe(true);
 	});
 });
 
