@@ -124,7 +124,7 @@ export function addWorkshopDays(
 	off: ReadonlySet<string>
 ): string | null {
 	let day = iso;
-	for (let counted = 0, i = 0; counted < n; ) {
+	for (let counted = 0, i = 0; counted < n;) {
 		day = addIsoDays(day, 1);
 		if (++i > HORIZON_DAYS) return null;
 		if (capacityOn(day, s, off) > 0) counted++;

@@ -56,7 +56,10 @@ test('owner carves, prints, and ships a paid personalised order; the buyer hears
 	expect(sheetPdf.getPage(0).getHeight()).toBeCloseTo(A4.h, 2);
 
 	// The packing slip link; its PDF route lives beside this page once both halves are merged.
-	const slip = page.getByRole('region', { name: 'Slips' }).getByRole('link', { name: 'A4' }).first();
+	const slip = page
+		.getByRole('region', { name: 'Slips' })
+		.getByRole('link', { name: 'A4' })
+		.first();
 	const slipHref = (await slip.getAttribute('href'))!;
 	expect(slipHref).toBe(`/workshop/orders/${ref}/packing-slip.pdf?paper=a4`);
 	const slipRoute = path.resolve('src/routes/workshop/orders/[ref]/packing-slip.pdf/+server.ts');

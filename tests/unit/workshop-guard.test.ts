@@ -68,7 +68,10 @@ describe('workshop authorisation', () => {
 
 	it('owner-only actions ask for the owner alone', () => {
 		// Refunds and the carving week are the owner's; helpers get 403 there.
-		const order = readFileSync(path.join(root, 'workshop', 'orders', '[ref]', '+page.server.ts'), 'utf8');
+		const order = readFileSync(
+			path.join(root, 'workshop', 'orders', '[ref]', '+page.server.ts'),
+			'utf8'
+		);
 		const queue = readFileSync(path.join(root, 'workshop', 'queue', '+page.server.ts'), 'utf8');
 		const body = (src: string, name: string) =>
 			handlers(src).find((h) => h.name === `action ${name}`)?.body ?? '';

@@ -108,9 +108,7 @@ describe('workshop order table', () => {
 		expect(byTotal.rows.map((r) => r.totalMinor)).toEqual([1000, 2000, 5000, 9000]);
 		const byCount = await listWorkshopOrders(q({ sort: 'personalised', dir: 'desc' }));
 		expect(byCount.rows.map((r) => r.personalised)).toEqual([3, 2, 1, 0]);
-		const page2 = await listWorkshopOrders(
-			q({ sort: 'ref', dir: 'asc', size: '10', page: '1' })
-		);
+		const page2 = await listWorkshopOrders(q({ sort: 'ref', dir: 'asc', size: '10', page: '1' }));
 		expect(page2.pages).toBe(1);
 		const dated = await listWorkshopOrders(q({ from: '2026-03-02', to: '2026-03-03' }));
 		expect(dated.rows.map((r) => r.ref).sort()).toEqual([`${tag}-2`, `${tag}-3`]);
@@ -125,9 +123,19 @@ describe('workshop order table', () => {
 	});
 
 	it('keeps the whole state in the URL and falls back field by field on a bad bookmark', () => {
-		const state = tableStateFromUrl(new URLSearchParams('sort=totalMinor&dir=asc&status=paid,packed&size=999&q=ab'));
-		expect(state).toMatchObject({ sort: 'totalMinor', dir: 'asc', status: ['paid', 'packed'], size: 25, q: 'ab' });
-		expect(tableStateToParams(state).toString()).toBe('sort=totalMinor&dir=asc&status=paid%2Cpacked&q=ab');
+		const state = tableStateFromUrl(
+			new URLSearchParams('sort=totalMinor&dir=asc&status=paid,packed&size=999&q=ab')
+		);
+		expect(state).toMatchObject({
+			sort: 'totalMinor',
+			dir: 'asc',
+			status: ['paid', 'packed'],
+			size: 25,
+			q: 'ab'
+		});
+		expect(tableStateToParams(state).toString()).toBe(
+			'sort=totalMinor&dir=asc&status=paid%2Cpacked&q=ab'
+		);
 		expect(parseOrderTableQuery(new URLSearchParams('sort=password')).success).toBe(false);
 	});
 });
@@ -147,7 +155,8 @@ describe('carving queue and Today', () => {
 		]);
 		expect(mine.every((l) => l.minutes === 40)).toBe(true);
 		const today = await todaySummary();
-		const refs = (list: { ref: string }[]) => list.map((o) => o.ref).filter((r) => r.startsWith(`${tag}-`));
+		const refs = (list: { ref: string }[]) =>
+			list.map((o) => o.ref).filter((r) => r.startsWith(`${tag}-`));
 		expect(refs(today.steps.carve).sort()).toEqual([`${tag}-1`, `${tag}-3`, `${tag}-4`]);
 		expect(refs(today.steps.pack)).toEqual([`${tag}-2`]);
 	});
@@ -155,7 +164,10 @@ describe('carving queue and Today', () => {
 	it('dates each queued order from its place in the queue', async () => {
 		await recomputeReadyBy();
 		const q = await carvingQueue();
-		const [o4] = await db.select().from(s.orders).where(eq(s.orders.ref, `${tag}-4`));
+		const [o4] = await db
+			.select()
+			.from(s.orders)
+			.where(eq(s.orders.ref, `${tag}-4`));
 		const last = q.lines.filter((l) => l.ref === `${tag}-4`).at(-1)!;
 		expect(last.carvedOn).not.toBeNull();
 		expect(o4.readyBy).toBe(readyAfterCarving(last.carvedOn!, q.schedule, q.fairDays));
@@ -173,26 +185,34 @@ describe('roles and query validation', () => {
 				locals: { user: role ? user(role) : null },
 				url: new URL(`http://localhost/api/workshop/orders?${qs}`)
 			} as unknown as Ev);
-		const bad = (await call('helper', 'page=0')) as Response;
+		const bad = await call('helper', 'page=0');
 		expect(bad.status).toBe(400);
-		expect((await bad.json()).fields.page).toBeDefined();
+		expect(((await bad.json()) as { fields: Record<string, string[]> }).fields.page).toBeDefined();
 		await expect(call('customer', '')).rejects.toMatchObject({ status: 403 });
 		await expect(call(null, '')).rejects.toMatchObject({ status: 401 });
-		const ok = (await call('helper', `q=${tag}`)) as Response;
-		expect((await ok.json()).total).toBe(4);
+		const ok = await call('helper', `q=${tag}`);
+		expect(((await ok.json()) as { total: number }).total).toBe(4);
 	});
 
 	it('a helper cannot refund: 403 before anything is read or sent', async () => {
-		const [o] = await db.select().from(s.orders).where(eq(s.orders.ref, `${tag}-1`));
+		const [o] = await db
+			.select()
+			.from(s.orders)
+			.where(eq(s.orders.ref, `${tag}-1`));
 		const event = {
 			locals: { user: user('helper') },
 			url: new URL(`http://localhost/workshop/orders/${o.ref}?/refund`),
 			params: { ref: o.ref },
-			request: new Request('http://localhost', { method: 'POST', body: new URLSearchParams({ kind: 'full', reason: 'x y z' }) })
+			request: new Request('http://localhost', {
+				method: 'POST',
+				body: new URLSearchParams({ kind: 'full', reason: 'x y z' })
+			})
 		};
-		await expect(
-			(actions.refund as (e: unknown) => Promise<unknown>)(event)
-		).rejects.toMatchObject({ status: 403 });
-		expect(await db.select().from(s.orderRefunds).where(eq(s.orderRefunds.orderId, o.id))).toEqual([]);
+		await expect((actions.refund as (e: unknown) => Promise<unknown>)(event)).rejects.toMatchObject(
+			{ status: 403 }
+		);
+		expect(await db.select().from(s.orderRefunds).where(eq(s.orderRefunds.orderId, o.id))).toEqual(
+			[]
+		);
 	});
 });

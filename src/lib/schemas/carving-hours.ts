@@ -5,7 +5,11 @@ const hoursField = z.coerce
 	.min(0, 'Hours cannot be negative.')
 	.max(16, 'At most 16 hours in a day.');
 const days = (max: number, what: string) =>
-	z.coerce.number().int(`${what} is a whole number of days.`).min(0).max(max, `${what}: at most ${max} days.`);
+	z.coerce
+		.number()
+		.int(`${what} is a whole number of days.`)
+		.min(0)
+		.max(max, `${what}: at most ${max} days.`);
 
 /**
  * The owner's carving-hours form: hours per weekday (Sunday first, as the week is stored), days
@@ -26,10 +30,20 @@ export const carvingHoursForm = z.object({
 		.default('')
 		.transform((s, ctx) => {
 			const out: string[] = [];
-			for (const raw of s.split('\n').map((l) => l.trim()).filter(Boolean)) {
+			for (const raw of s
+				.split('\n')
+				.map((l) => l.trim())
+				.filter(Boolean)) {
 				const m = /^(\d{4}-\d{2}-\d{2})(?:\s*(?:to|–|-{1,2})\s*(\d{4}-\d{2}-\d{2}))?$/.exec(raw);
-				if (!m || Number.isNaN(Date.parse(m[1])) || (m[2] && (Number.isNaN(Date.parse(m[2])) || m[2] < m[1]))) {
-					ctx.addIssue({ code: 'custom', message: `“${raw}” is not a day like 2026-03-07 or a range like 2026-03-07 to 2026-03-09.` });
+				if (
+					!m ||
+					Number.isNaN(Date.parse(m[1])) ||
+					(m[2] && (Number.isNaN(Date.parse(m[2])) || m[2] < m[1]))
+				) {
+					ctx.addIssue({
+						code: 'custom',
+						message: `“${raw}” is not a day like 2026-03-07 or a range like 2026-03-07 to 2026-03-09.`
+					});
 					return z.NEVER;
 				}
 				out.push(m[2] ? `${m[1]}..${m[2]}` : m[1]);

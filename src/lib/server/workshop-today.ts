@@ -67,7 +67,13 @@ export async function todaySummary(now = new Date()) {
 			)
 			.orderBy(asc(stock.quantity), asc(pieces.title)),
 		db
-			.select({ id: fairs.id, name: fairs.name, place: fairs.place, startsOn: fairs.startsOn, endsOn: fairs.endsOn })
+			.select({
+				id: fairs.id,
+				name: fairs.name,
+				place: fairs.place,
+				startsOn: fairs.startsOn,
+				endsOn: fairs.endsOn
+			})
 			.from(fairs)
 			.where(gte(fairs.endsOn, today))
 			.orderBy(asc(fairs.startsOn))

@@ -45,7 +45,6 @@ export async function payWith(page: Page, card: string) {
 	await page.getByRole('button', { name: /^Pay / }).click();
 }
 
-
 /** Personalises, checks out and pays; returns the order reference and the total shown. */
 export async function buyPersonalised(page: Page, initials: string, email: string) {
 	await personaliseAndAdd(page, initials);

@@ -41,7 +41,9 @@ export async function waitForMail(to: string, subject?: RegExp): Promise<CaughtM
  */
 export async function parsedMail(mail: CaughtMail) {
 	const { simpleParser } = await import('mailparser');
-	const res = await fetch(mailInboxUrl().replace(/\/api\/messages$/, `/api/messages/${mail.id}/raw`));
+	const res = await fetch(
+		mailInboxUrl().replace(/\/api\/messages$/, `/api/messages/${mail.id}/raw`)
+	);
 	expect(res.status).toBe(200);
 	return simpleParser(Buffer.from(await res.arrayBuffer()));
 }

@@ -17,12 +17,24 @@ import {
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { db, type Db, type Tx } from '../db';
-import { fairs, orderLines, orders, pieces, settings, woods, type Personalisation } from '../db/schema';
+import {
+	fairs,
+	orderLines,
+	orders,
+	pieces,
+	settings,
+	woods,
+	type Personalisation
+} from '../db/schema';
 import { jsonValue } from '../json-column';
 import { snapshotInput } from '$lib/pattern/snapshot';
 
 const KEY = 'carvingSchedule';
-const minutes = z.number().int().min(0).max(24 * 60);
+const minutes = z
+	.number()
+	.int()
+	.min(0)
+	.max(24 * 60);
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-07.');
 
 export const carvingScheduleSchema = z.object({
@@ -64,7 +76,10 @@ function lineMinutes(
 ): number {
 	if (!snap) return 0;
 	if (Number.isFinite(snap.estimateMinutes)) return Math.max(0, snap.estimateMinutes!);
-	const r = computePattern(snapshotInput(snap, blank, woodSlug), { svg: false, font: letterFont() });
+	const r = computePattern(snapshotInput(snap, blank, woodSlug), {
+		svg: false,
+		font: letterFont()
+	});
 	return Math.round(r.estimateMinutes);
 }
 

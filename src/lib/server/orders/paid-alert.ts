@@ -26,10 +26,7 @@ export async function setAlertOptIn(userId: string, on: boolean) {
 		if (on) now.add(userId);
 		else now.delete(userId);
 		const value = [...now];
-		await tx
-			.insert(settings)
-			.values({ key: KEY, value })
-			.onDuplicateKeyUpdate({ set: { value } });
+		await tx.insert(settings).values({ key: KEY, value }).onDuplicateKeyUpdate({ set: { value } });
 	});
 }
 

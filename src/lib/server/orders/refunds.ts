@@ -44,9 +44,10 @@ async function refundedSoFar(tx: Tx, orderId: number) {
 			done: sql<number>`coalesce(sum(case when ${orderRefunds.status} = 'succeeded' then ${orderRefunds.amountMinor} end), 0)`.mapWith(
 				Number
 			),
-			asked: sql<number>`coalesce(sum(case when ${orderRefunds.status} = 'pending' then ${orderRefunds.amountMinor} end), 0)`.mapWith(
-				Number
-			)
+			asked:
+				sql<number>`coalesce(sum(case when ${orderRefunds.status} = 'pending' then ${orderRefunds.amountMinor} end), 0)`.mapWith(
+					Number
+				)
 		})
 		.from(orderRefunds)
 		.where(eq(orderRefunds.orderId, orderId));
@@ -149,7 +150,10 @@ export async function refundOrder(
 			.set({ providerRefundId: refund.id, status })
 			.where(eq(orderRefunds.id, r.rowId));
 		const o = await settleTotals(tx, r.orderId);
-		await moveIfFull(tx, r.orderId, { userId: by.userId, why: `Refunded in full: ${input.reason}` });
+		await moveIfFull(tx, r.orderId, {
+			userId: by.userId,
+			why: `Refunded in full: ${input.reason}`
+		});
 		if (input.restock) await restockOnce(tx, r.orderId, r.rowId);
 		return o;
 	});
@@ -196,7 +200,11 @@ async function restockOnce(tx: Tx, orderId: number, refundRowId: number) {
 /** The owner says the piece came back after an earlier refund. */
 export async function markPiecesReturned(ref: string) {
 	return transact(async (tx) => {
-		const [o] = await tx.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref)).for('update');
+		const [o] = await tx
+			.select({ id: orders.id })
+			.from(orders)
+			.where(eq(orders.ref, ref))
+			.for('update');
 		if (!o) throw new RefundError(`There is no order ${ref}.`, 404);
 		const [last] = await tx
 			.select({ id: orderRefunds.id })
@@ -204,7 +212,8 @@ export async function markPiecesReturned(ref: string) {
 			.where(and(eq(orderRefunds.orderId, o.id), eq(orderRefunds.status, 'succeeded')))
 			.orderBy(sql`${orderRefunds.id} desc`)
 			.limit(1);
-		if (!last) throw new RefundError('Refund the order first; then the piece can go back on the shelf.');
+		if (!last)
+			throw new RefundError('Refund the order first; then the piece can go back on the shelf.');
 		await restockOnce(tx, o.id, last.id);
 	});
 }

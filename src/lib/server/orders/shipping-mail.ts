@@ -72,7 +72,8 @@ export function refundMail(
 		'',
 		`Your order: ${link}`
 	].join('\n');
-	const html = mailPage(`<h1 style="font-size:24px;margin:0 0 8px">A refund on order ${esc(order.ref)}</h1>
+	const html =
+		mailPage(`<h1 style="font-size:24px;margin:0 0 8px">A refund on order ${esc(order.ref)}</h1>
 <p>Hello ${esc(order.buyerName)}, we have refunded <strong>${esc(money(refund.amountMinor))}</strong>.</p>
 <p>Reason: ${esc(refund.reason)}</p>
 <p>${full ? `That is the whole ${esc(money(order.totalMinor))} you paid.` : `Refunded so far: ${esc(money(refund.refundedTotalMinor))} of ${esc(money(order.totalMinor))}.`}</p>
@@ -93,7 +94,8 @@ export function newOrderAlertMail(order: MailOrder, origin: string, readyBy: str
 		`Ready by: ${readyBy ?? 'not dated yet'}`,
 		`Open it: ${href}`
 	].join('\n');
-	const html = mailPage(`<h1 style="font-size:22px;margin:0 0 8px">New paid order ${esc(order.ref)}</h1>
+	const html =
+		mailPage(`<h1 style="font-size:22px;margin:0 0 8px">New paid order ${esc(order.ref)}</h1>
 <p>${esc(order.buyerName)} paid <strong>${esc(money)}</strong>.</p>
 <ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
 <p>Ready by: ${esc(readyBy ?? 'not dated yet')}</p>

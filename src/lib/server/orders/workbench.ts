@@ -22,7 +22,12 @@ export async function orderWorkbench(orderId: number) {
 			.where(eq(orderHistory.orderId, orderId))
 			.orderBy(orderHistory.id),
 		db
-			.select({ id: orderNotes.id, body: orderNotes.body, at: orderNotes.createdAt, by: users.name })
+			.select({
+				id: orderNotes.id,
+				body: orderNotes.body,
+				at: orderNotes.createdAt,
+				by: users.name
+			})
 			.from(orderNotes)
 			.leftJoin(users, eq(users.id, orderNotes.userId))
 			.where(eq(orderNotes.orderId, orderId))

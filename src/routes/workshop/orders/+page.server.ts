@@ -6,7 +6,7 @@ import { orderStatuses } from '$lib/order-status';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
-export const load: PageServerLoad = async (event) => {
+export const load: PageServerLoad = (event) => {
 	const user = requireRole(event, 'owner', 'helper');
 	return { role: user.role };
 };

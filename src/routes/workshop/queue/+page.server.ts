@@ -1,6 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { daysBetween } from '$lib/carving-queue';
 import { requireRole } from '$lib/server/auth/guard';
+import { formTexts } from '$lib/form-text';
 import { carvingQueue, setCarvingSchedule } from '$lib/server/orders/carving-queue';
 import { alertHelperIds, setAlertOptIn } from '$lib/server/orders/paid-alert';
 import { carvingHoursForm } from '$lib/schemas/carving-hours';
@@ -17,23 +18,30 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-const formOf = async (request: Request) =>
-	Object.fromEntries([...(await request.formData()).entries()].map(([k, v]) => [k, String(v)]));
-
 export const actions: Actions = {
 	/** The owner's carving week: changing it re-dates every queued order. */
 	hours: async (event) => {
 		requireRole(event, 'owner');
-		const values = await formOf(event.request);
+		const values = await formTexts(event.request);
 		const parsed = carvingHoursForm.safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		const v = parsed.data;
 		const mins = (h: number) => Math.round(h * 60);
 		await setCarvingSchedule({
-			minutesByWeekday: [mins(v.h0), mins(v.h1), mins(v.h2), mins(v.h3), mins(v.h4), mins(v.h5), mins(v.h6)],
+			minutesByWeekday: [
+				mins(v.h0),
+				mins(v.h1),
+				mins(v.h2),
+				mins(v.h3),
+				mins(v.h4),
+				mins(v.h5),
+				mins(v.h6)
+			],
 			daysOff: [
 				...new Set(
-					v.daysOff.flatMap((d) => (d.includes('..') ? daysBetween(...(d.split('..') as [string, string])) : [d]))
+					v.daysOff.flatMap((d) =>
+						d.includes('..') ? daysBetween(...(d.split('..') as [string, string])) : [d]
+					)
 				)
 			].sort(),
 			finishingDays: v.finishingDays,

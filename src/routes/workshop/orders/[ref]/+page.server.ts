@@ -1,5 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
+import { formTexts } from '$lib/form-text';
 import { workshopOrderDetail } from '$lib/server/orders/views';
 import { nextStatuses, statusLabel } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
@@ -27,9 +28,6 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-const formOf = async (request: Request) =>
-	Object.fromEntries([...(await request.formData()).entries()].map(([k, v]) => [k, String(v)]));
-
 /** Domain refusals become a form message; anything else is a real fault. */
 function refused(err: unknown, form: string) {
 	if (err instanceof StatusMoveError || err instanceof RefundError)
@@ -41,7 +39,7 @@ function refused(err: unknown, form: string) {
 export const actions: Actions = {
 	move: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const parsed = moveSchema.safeParse(await formOf(event.request));
+		const parsed = moveSchema.safeParse(await formTexts(event.request));
 		if (!parsed.success) return fail(400, { form: 'move', error: parsed.error.issues[0].message });
 		const { to, why } = parsed.data;
 		if (to === 'shipped' || to === 'refunded') {
@@ -59,13 +57,18 @@ export const actions: Actions = {
 
 	ship: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const values = await formOf(event.request);
+		const values = await formTexts(event.request);
 		const parsed = shipmentSchema.safeParse(values);
 		if (!parsed.success) {
 			return fail(400, { form: 'ship', errors: fieldErrors(parsed.error), values });
 		}
 		try {
-			const s = await shipOrder(event.params.ref, parsed.data, { userId: user.id }, event.url.origin);
+			const s = await shipOrder(
+				event.params.ref,
+				parsed.data,
+				{ userId: user.id },
+				event.url.origin
+			);
 			return {
 				form: 'ship',
 				done: s.mailed
@@ -81,13 +84,18 @@ export const actions: Actions = {
 		const user = requireRole(event, 'owner');
 		const order = await workshopOrderDetail(event.params.ref);
 		if (!order) return fail(404, { form: 'refund', error: 'There is no such order.' });
-		const values = await formOf(event.request);
+		const values = await formTexts(event.request);
 		const parsed = refundFormSchema(order.currency).safeParse(values);
 		if (!parsed.success) {
 			return fail(400, { form: 'refund', errors: fieldErrors(parsed.error), values });
 		}
 		try {
-			const r = await refundOrder(event.params.ref, parsed.data, { userId: user.id }, event.url.origin);
+			const r = await refundOrder(
+				event.params.ref,
+				parsed.data,
+				{ userId: user.id },
+				event.url.origin
+			);
 			const money = (m: number) => formatMoney(m, order.currency);
 			return {
 				form: 'refund',
@@ -110,9 +118,10 @@ export const actions: Actions = {
 
 	note: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const values = await formOf(event.request);
+		const values = await formTexts(event.request);
 		const parsed = noteSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { form: 'note', errors: fieldErrors(parsed.error), values });
+		if (!parsed.success)
+			return fail(400, { form: 'note', errors: fieldErrors(parsed.error), values });
 		try {
 			await addOrderNote(event.params.ref, parsed.data.body, user.id);
 			return { form: 'note', done: 'Note added.' };
