@@ -97,6 +97,19 @@ export async function workshopOrders(limit = 200) {
 		.limit(limit);
 }
 
+/** What both the buyer and the workshop see of an order: its note and its money. */
+function orderFigures(order: typeof orders.$inferSelect) {
+	return {
+		giftNote: order.giftNote,
+		currency: order.currency,
+		subtotalMinor: order.subtotalMinor,
+		shippingMinor: order.shippingMinor,
+		taxMinor: order.taxMinor,
+		totalMinor: order.totalMinor,
+		refundedMinor: order.refundedMinor
+	};
+}
+
 /** What a buyer's order page shows: no payment ids, no internal fields. */
 export async function buyerOrderView(order: OrderDetail) {
 	const pieceRows = await db
@@ -124,13 +137,7 @@ export async function buyerOrderView(order: OrderDetail) {
 		buyerName: order.buyerName,
 		email: order.email,
 		address: order.address,
-		giftNote: order.giftNote,
-		currency: order.currency,
-		subtotalMinor: order.subtotalMinor,
-		shippingMinor: order.shippingMinor,
-		taxMinor: order.taxMinor,
-		totalMinor: order.totalMinor,
-		refundedMinor: order.refundedMinor,
+		...orderFigures(order),
 		readyBy: order.readyBy,
 		createdAt: order.createdAt,
 		paidAt: order.paidAt,
@@ -200,13 +207,7 @@ export async function workshopOrderDetail(ref: string) {
 		buyerName: order.buyerName,
 		email: order.email,
 		address: jsonValue<Address>(order.address),
-		giftNote: order.giftNote,
-		currency: order.currency,
-		subtotalMinor: order.subtotalMinor,
-		shippingMinor: order.shippingMinor,
-		taxMinor: order.taxMinor,
-		totalMinor: order.totalMinor,
-		refundedMinor: order.refundedMinor,
+		...orderFigures(order),
 		checkoutSessionId: order.checkoutSessionId,
 		paymentIntentId: order.paymentIntentId,
 		readyBy: order.readyBy,
