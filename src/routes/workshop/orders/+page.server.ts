@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { moveOrders } from '$lib/server/orders/bulk';
 import { orderStatuses } from '$lib/order-status';
+import { isBenchMove } from '$lib/bench-moves';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
@@ -25,8 +26,8 @@ export const actions: Actions = {
 		if (!parsed.success) {
 			return fail(400, { error: parsed.error.issues[0]?.message ?? 'Check the selection.' });
 		}
-		if (parsed.data.to === 'refunded') {
-			return fail(400, { error: 'Refund orders one at a time from their own page.' });
+		if (!isBenchMove(parsed.data.to)) {
+			return fail(400, { error: 'Orders move on together only to carving, finishing or packed.' });
 		}
 		return { moved: await moveOrders(parsed.data.refs, parsed.data.to, user.id) };
 	}

@@ -4,6 +4,7 @@ import { formTexts } from '$lib/form-text';
 import { workshopOrderDetail } from '$lib/server/orders/views';
 import { nextStatuses, statusLabel } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
+import { isBenchMove } from '$lib/bench-moves';
 import { moveSchema, noteSchema } from '$lib/schemas/order-actions';
 import { shipmentSchema } from '$lib/schemas/shipment';
 import { refundFormSchema } from '$lib/schemas/refund';
@@ -42,8 +43,11 @@ export const actions: Actions = {
 		const parsed = moveSchema.safeParse(await formTexts(event.request));
 		if (!parsed.success) return fail(400, { form: 'move', error: parsed.error.issues[0].message });
 		const { to, why } = parsed.data;
-		if (to === 'shipped' || to === 'refunded') {
-			return fail(400, { form: 'move', error: 'Use the shipping or refund form for that.' });
+		if (!isBenchMove(to)) {
+			return fail(400, {
+				form: 'move',
+				error: 'That change has its own way: the shipping or refund form, or the payment itself.'
+			});
 		}
 		try {
 			const id = await orderIdOf(event.params.ref);
