@@ -132,7 +132,8 @@ export async function refundOrder(
 				reason: 'requested_by_customer',
 				metadata: { orderRef: ref, refundRowId: String(r.rowId) }
 			},
-			{ idempotencyKey: `chipstall-refund-${r.rowId}` }
+			// Keyed by order and reservation, so a retried request never refunds twice.
+			{ idempotencyKey: `refund-${ref}-${r.rowId}` }
 		);
 	} catch (err) {
 		await db.delete(orderRefunds).where(eq(orderRefunds.id, r.rowId));

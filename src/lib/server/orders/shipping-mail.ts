@@ -4,7 +4,7 @@
  * the same facts.
  */
 import { formatMoney } from '$lib/money';
-import { trackingLink } from '$lib/carriers';
+import { trackingLink } from './tracking';
 import { esc, mailButton, mailPage } from '../mail-html';
 import { orderLink } from './links';
 
