@@ -96,10 +96,13 @@ async function settleTotals(tx: Tx, orderId: number, providerTotal = 0) {
 		.update(orders)
 		.set({ refundedMinor: sql`greatest(${orders.refundedMinor}, ${done}, ${providerTotal})` })
 		.where(eq(orders.id, orderId));
+	// A locking read: a plain one would answer from this transaction's snapshot, which misses
+	// what a refund event committed meanwhile when our update changed nothing.
 	const [o] = await tx
 		.select({ total: orders.totalMinor, refunded: orders.refundedMinor, status: orders.status })
 		.from(orders)
-		.where(eq(orders.id, orderId));
+		.where(eq(orders.id, orderId))
+		.for('update');
 	return o;
 }
 
@@ -145,6 +148,8 @@ export async function refundOrder(
 	}
 
 	const totals = await transact(async (tx) => {
+		// The order row first, as the refund events do: one lock order, no deadlock between them.
+		await tx.select({ id: orders.id }).from(orders).where(eq(orders.id, r.orderId)).for('update');
 		const status = refund.status === 'succeeded' ? 'succeeded' : 'pending';
 		await tx
 			.update(orderRefunds)
