@@ -66,7 +66,15 @@ function pdfText(path: string, doc: PDFDocument): string {
 		const refs = contents instanceof PDFArray ? contents.asArray() : [contents];
 		for (const ref of refs) {
 			const stream = doc.context.lookup(ref);
-			if (stream instanceof PDFRawStream) out.push(inflateSync(stream.contents).toString('latin1'));
+			if (stream instanceof PDFRawStream) {
+				// pdf-lib writes standard-font text as hex strings (`<4F72…> Tj`): decode them.
+				const ops = inflateSync(stream.contents).toString('latin1');
+				out.push(
+					ops.replace(/<([0-9A-Fa-f]+)>\s*Tj/g, (_, hex: string) =>
+						Buffer.from(hex, 'hex').toString('latin1')
+					)
+				);
+			}
 		}
 	}
 	return out.join('\n');
