@@ -34,14 +34,21 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 		// Accept any credentials: the stand-in must not reject a configured SMTP user.
 		onAuth: (_auth, _session, cb) => cb(null, { user: 'local' }),
 		onData(stream, session, cb) {
-			simpleParser(stream)
-				.then((parsed) => {
-					const to = session.envelope.rcptTo.map((r) => r.address);
-					const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';
-					store.add(parsed, to, from);
-					cb();
-				})
-				.catch((err: Error) => cb(err));
+			// Keep the bytes as sent too, so a test can parse the message itself.
+			const chunks: Buffer[] = [];
+			stream.on('data', (c: Buffer) => chunks.push(c));
+			stream.on('error', (err) => cb(err));
+			stream.on('end', () => {
+				const raw = Buffer.concat(chunks);
+				simpleParser(raw)
+					.then((parsed) => {
+						const to = session.envelope.rcptTo.map((r) => r.address);
+						const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';
+						store.add(parsed, to, from, raw);
+						cb();
+					})
+					.catch((err: Error) => cb(err));
+			});
 		}
 	});
 
@@ -57,6 +64,13 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 		};
 		const path = url.pathname;
 		const one = path.match(/^\/(api\/)?messages\/([^/]+)$/);
+		const raw = path.match(/^\/api\/messages\/([^/]+)\/raw$/);
+		if (req.method === 'GET' && raw) {
+			const bytes = store.raw(raw[1]);
+			if (!bytes) return json(404, { error: 'No message with that id' });
+			res.writeHead(200, { 'content-type': 'message/rfc822' });
+			return res.end(bytes);
+		}
 
 		if (req.method === 'GET' && path === '/api/messages')
 			return json(200, store.list(url.searchParams.get('to')));

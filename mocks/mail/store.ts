@@ -20,8 +20,9 @@ function addresses(field: AddressObject | AddressObject[] | undefined): string[]
 export class MailStore {
 	private messages: StoredMessage[] = [];
 	private seq = 0;
+	private sources = new Map<string, Buffer>();
 
-	add(parsed: ParsedMail, envelopeTo: string[], envelopeFrom: string): StoredMessage {
+	add(parsed: ParsedMail, envelopeTo: string[], envelopeFrom: string, raw?: Buffer): StoredMessage {
 		const to = addresses(parsed.to);
 		const msg: StoredMessage = {
 			id: String(++this.seq),
@@ -34,6 +35,7 @@ export class MailStore {
 			date: (parsed.date ?? new Date()).toISOString()
 		};
 		this.messages.unshift(msg);
+		if (raw) this.sources.set(msg.id, raw);
 		return msg;
 	}
 
@@ -47,7 +49,13 @@ export class MailStore {
 		return this.messages.find((m) => m.id === id);
 	}
 
+	/** The message exactly as it came over SMTP. */
+	raw(id: string): Buffer | undefined {
+		return this.sources.get(id);
+	}
+
 	clear() {
 		this.messages = [];
+		this.sources.clear();
 	}
 }

@@ -1,7 +1,7 @@
 import { ApiError, invalid, noSuch } from './errors';
 import type { Form } from './form';
 import * as p from './params';
-import { createRefund, getRefund } from './refunds';
+import { chargeAfterRefund, createRefund, getRefund } from './refunds';
 import { createSession, expireSession, getSession } from './sessions';
 import type { Session, State } from './state';
 import type { Webhooks } from './webhooks';
@@ -90,7 +90,18 @@ export const routes: [string, RegExp, Handler][] = [
 		/^\/v1\/payment_intents\/([^/]+)$/,
 		(ctx, _f, m) => found(ctx.state.paymentIntents.get(m[1]), 'payment_intent', m[1])
 	],
-	['POST', /^\/v1\/refunds$/, (ctx, form) => createRefund(ctx.state, form)],
+	[
+		'POST',
+		/^\/v1\/refunds$/,
+		(ctx, form) => {
+			const refund = createRefund(ctx.state, form);
+			// As the real service does once a card refund settles: the charge with its new refunded
+			// total, then the refund itself with its final status. Both signed, both retried.
+			ctx.webhooks.send('charge.refunded', chargeAfterRefund(ctx.state, refund));
+			ctx.webhooks.send('refund.updated', refund);
+			return refund;
+		}
+	],
 	['GET', /^\/v1\/refunds\/([^/]+)$/, (ctx, _f, m) => getRefund(ctx.state, m[1])],
 	[
 		'GET',

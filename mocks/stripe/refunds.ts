@@ -68,6 +68,33 @@ export function createRefund(state: State, form: Form): Refund {
 	return refund;
 }
 
+/**
+ * The charge as a `charge.refunded` event carries it: the total refunded so far and whether
+ * nothing is left. The charge id is the intent's latest charge; metadata is the intent's, as
+ * the real service copies it from the intent to the charge.
+ */
+export function chargeAfterRefund(state: State, refund: Refund) {
+	const pi = state.paymentIntents.get(refund.payment_intent)!;
+	const refunded = state.refundedOn(pi.id);
+	return {
+		id: refund.charge,
+		object: 'charge' as const,
+		amount: pi.amount_received,
+		amount_captured: pi.amount_received,
+		amount_refunded: refunded,
+		captured: true,
+		created: pi.created,
+		currency: pi.currency,
+		livemode: false,
+		metadata: pi.metadata,
+		paid: true,
+		payment_intent: pi.id,
+		receipt_email: pi.receipt_email,
+		refunded: refunded >= pi.amount_received,
+		status: 'succeeded' as const
+	};
+}
+
 export function getRefund(state: State, id: string) {
 	const r = state.refunds.get(id);
 	if (!r) throw noSuch('refund', id);

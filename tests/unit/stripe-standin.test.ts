@@ -296,6 +296,39 @@ describe('Stripe stand-in with the official SDK', () => {
 		expect(unpaid.payment_intent).toBeNull();
 	});
 
+	it('sends charge.refunded and refund.updated for each refund, signed like the real service', async () => {
+		const s = await newSession();
+		await pay(s.url!, goodCard);
+		const piId = (await sdk.checkout.sessions.retrieve(s.id)).payment_intent as string;
+		await waitFor(() => received.find((r) => r.body.includes('checkout.session.completed')));
+		received = [];
+
+		const part = await sdk.refunds.create({ payment_intent: piId, amount: 2500 });
+		await waitFor(() => (received.length >= 2 ? received : undefined));
+		// The SDK's own verifier is the outside reference for the signature scheme.
+		const events = received.map((r) =>
+			sdk.webhooks.constructEvent(r.body, r.signature, WEBHOOK_SECRET)
+		);
+		const charge = events.find((e) => e.type === 'charge.refunded')!.data.object;
+		expect(charge).toMatchObject({
+			object: 'charge',
+			payment_intent: piId,
+			amount: 10250,
+			amount_refunded: 2500,
+			refunded: false
+		});
+		const updated = events.find((e) => e.type === 'refund.updated')!.data.object;
+		expect(updated).toMatchObject({ id: part.id, amount: 2500, status: 'succeeded' });
+
+		received = [];
+		await sdk.refunds.create({ payment_intent: piId });
+		await waitFor(() => (received.length >= 2 ? received : undefined));
+		const full = received
+			.map((r) => sdk.webhooks.constructEvent(r.body, r.signature, WEBHOOK_SECRET))
+			.find((e) => e.type === 'charge.refunded')!.data.object;
+		expect(full).toMatchObject({ amount_refunded: 10250, refunded: true });
+	});
+
 	it('expires a session via the API and when its expires_at passes, sending checkout.session.expired', async () => {
 		const a = await newSession();
 		const expired = await sdk.checkout.sessions.expire(a.id);

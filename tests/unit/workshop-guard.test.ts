@@ -53,6 +53,33 @@ describe('workshop authorisation', () => {
 		expect(files.some((f) => f.endsWith(path.join('workshop', '+page.server.ts')))).toBe(true);
 	});
 
+	it('walks the order back office routes too (so a moved file cannot slip out of the check)', () => {
+		const names = files.map(rel);
+		for (const route of [
+			path.join('workshop', 'orders', '+page.server.ts'),
+			path.join('workshop', 'orders', '[ref]', '+page.server.ts'),
+			path.join('workshop', 'queue', '+page.server.ts'),
+			path.join('api', 'workshop', 'orders', '+server.ts'),
+			path.join('api', 'workshop', 'orders', '[ref]', 'shipments', '+server.ts')
+		]) {
+			expect(names).toContain(route);
+		}
+	});
+
+	it('owner-only actions ask for the owner alone', () => {
+		// Refunds and the carving week are the owner's; helpers get 403 there.
+		const order = readFileSync(
+			path.join(root, 'workshop', 'orders', '[ref]', '+page.server.ts'),
+			'utf8'
+		);
+		const queue = readFileSync(path.join(root, 'workshop', 'queue', '+page.server.ts'), 'utf8');
+		const body = (src: string, name: string) =>
+			handlers(src).find((h) => h.name === `action ${name}`)?.body ?? '';
+		expect(body(order, 'refund')).toMatch(/requireRole\(event, 'owner'\)/);
+		expect(body(order, 'returned')).toMatch(/requireRole\(event, 'owner'\)/);
+		expect(body(queue, 'hours')).toMatch(/requireRole\(event, 'owner'\)/);
+	});
+
 	it('every server file under /workshop and /api/workshop calls requireRole', () => {
 		const missing = files
 			.filter(isServerFile)

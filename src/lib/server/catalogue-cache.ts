@@ -15,8 +15,18 @@ import { db } from './db';
  * Prices shown here are never trusted: checkout re-reads and re-prices under lock.
  */
 // `settings` too: the public pages cached whole (handles/page-cache.ts) show the shop's name,
-// address and away notice.
-const CATALOGUE_TABLES = ['pieces', 'piece_woods', 'photos', 'stock', 'woods', 'settings', 'fairs'];
+// address and away notice; `fairs` for the home page's next fair; `order_history` because every
+// status move changes the carving queue, and piece pages date a new piece from that queue.
+const CATALOGUE_TABLES = [
+	'pieces',
+	'piece_woods',
+	'photos',
+	'stock',
+	'woods',
+	'settings',
+	'fairs',
+	'order_history'
+];
 const CHECK_MS = 1000;
 /** Entries kept per process; the shop's filter combinations are few, but bound it anyway. */
 const MAX_ENTRIES = 500;

@@ -1,30 +1,93 @@
-import { asc, count, gte, inArray } from 'drizzle-orm';
+/**
+ * "Today" in the workshop: what needs carving, finishing, packing and posting, by ready-by date;
+ * what is late; low stock; the next fair; and the carving queue with the day each line is due.
+ * Ready-made orders are packed, never carved: they never count as "to carve".
+ */
+import { and, asc, eq, gte, inArray, lte, sql } from 'drizzle-orm';
+import { isoDay } from '$lib/carving-queue';
+import type { OrderStatus } from '$lib/order-status';
 import { db } from './db';
-import { fairs, orders, type OrderStatus } from './db/schema';
+import { fairs, orders, pieces, stock, woods } from './db/schema';
+import { lineCounts } from './orders/table';
+import { carvingQueue } from './orders/carving-queue';
 
-/** The orders still on the bench, by the step they are at. */
-const benchSteps = ['paid', 'carving', 'finishing', 'packed'] as const satisfies OrderStatus[];
+/** Finished pieces at or under this count on the workshop shelf are "running low". */
+export const LOW_STOCK = 1;
 
-export type TodaySummary = {
-	byStep: Record<(typeof benchSteps)[number], number>;
-	nextFair: { id: number; name: string; place: string; startsOn: string } | null;
+const BENCH: OrderStatus[] = ['paid', 'carving', 'finishing', 'packed', 'piece_gone'];
+
+export type BenchOrder = {
+	ref: string;
+	buyerName: string;
+	status: OrderStatus;
+	readyBy: string | null;
+	toCarve: number;
+	late: boolean;
 };
 
-/** A short "what needs doing" for the workshop's first page. */
-export async function todaySummary(today = new Date()): Promise<TodaySummary> {
+export async function todaySummary(now = new Date()) {
+	const today = isoDay(now);
 	const rows = await db
-		.select({ status: orders.status, n: count() })
+		.select({
+			ref: orders.ref,
+			buyerName: orders.buyerName,
+			status: orders.status,
+			readyBy: orders.readyBy,
+			toCarve: sql<number>`coalesce(${lineCounts.toCarve}, 0)`.mapWith(Number)
+		})
 		.from(orders)
-		.where(inArray(orders.status, [...benchSteps]))
-		.groupBy(orders.status);
-	const byStep = { paid: 0, carving: 0, finishing: 0, packed: 0 };
-	for (const r of rows) byStep[r.status as keyof typeof byStep] = Number(r.n);
+		.leftJoin(lineCounts, eq(lineCounts.orderId, orders.id))
+		.where(inArray(orders.status, BENCH))
+		.orderBy(sql`${orders.readyBy} is null`, asc(orders.readyBy), asc(orders.id));
+	const bench: BenchOrder[] = rows.map((r) => ({
+		...r,
+		late: !!r.readyBy && r.readyBy < today && r.status !== 'piece_gone'
+	}));
+	const steps = {
+		carve: bench.filter((o) => (o.status === 'paid' && o.toCarve > 0) || o.status === 'carving'),
+		finish: bench.filter((o) => o.status === 'finishing'),
+		pack: bench.filter((o) => o.status === 'paid' && o.toCarve === 0),
+		post: bench.filter((o) => o.status === 'packed'),
+		resolve: bench.filter((o) => o.status === 'piece_gone')
+	};
 
-	const [nextFair] = await db
-		.select({ id: fairs.id, name: fairs.name, place: fairs.place, startsOn: fairs.startsOn })
-		.from(fairs)
-		.where(gte(fairs.endsOn, today.toISOString().slice(0, 10)))
-		.orderBy(asc(fairs.startsOn))
-		.limit(1);
-	return { byStep, nextFair: nextFair ?? null };
+	const [lowStock, [nextFair], queue] = await Promise.all([
+		db
+			.select({
+				piece: pieces.title,
+				slug: pieces.slug,
+				wood: woods.name,
+				quantity: stock.quantity
+			})
+			.from(stock)
+			.innerJoin(pieces, eq(pieces.id, stock.pieceId))
+			.innerJoin(woods, eq(woods.id, stock.woodId))
+			.where(
+				and(eq(stock.place, 'workshop'), lte(stock.quantity, LOW_STOCK), eq(pieces.active, true))
+			)
+			.orderBy(asc(stock.quantity), asc(pieces.title)),
+		db
+			.select({
+				id: fairs.id,
+				name: fairs.name,
+				place: fairs.place,
+				startsOn: fairs.startsOn,
+				endsOn: fairs.endsOn
+			})
+			.from(fairs)
+			.where(gte(fairs.endsOn, today))
+			.orderBy(asc(fairs.startsOn))
+			.limit(1),
+		carvingQueue(now)
+	]);
+
+	return {
+		today,
+		steps,
+		late: bench.filter((o) => o.late),
+		lowStock,
+		nextFair: nextFair ?? null,
+		queue
+	};
 }
+export type TodaySummary = Awaited<ReturnType<typeof todaySummary>>;

@@ -86,6 +86,8 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'POST /reset': every('allowed'),
 	'GET /reset/[token]': { ...every('ok'), url: '/reset/not-a-real-token' },
 	'POST /reset/[token]': { ...every('allowed'), url: '/reset/not-a-real-token' },
+	'GET /signup/[token]': { ...every('ok'), url: '/signup/not-a-real-token' },
+	'POST /signup/[token]': { ...every('allowed'), url: '/signup/not-a-real-token' },
 	'GET /signout': every('allowed'),
 	'POST /signout': every('allowed'),
 
@@ -100,6 +102,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	},
 	'POST /api/payments/webhook': every('allowed'),
 	'GET /api/workshop/orders': staffApi,
+	'POST /api/workshop/orders/[ref]/shipments': {
+		...staffApiWrite,
+		url: '/api/workshop/orders/CS-1001/shipments'
+	},
 	'POST /api/uploads': ownerApiWrite,
 	// Booth writes go to a closed fair: staff get its plain refusal, nothing is stored.
 	'POST /api/booth/[fairId]/sales': {
@@ -115,6 +121,22 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'GET /workshop': staff,
 	'GET /workshop/orders': staff,
 	'GET /workshop/orders/[ref]': { ...staff, url: '/workshop/orders/CS-1001' },
+	'POST /workshop/orders?/move': staffAction,
+	// An empty form to each order action: staff get a message, refunds and restock are the owner's.
+	'POST /workshop/orders/[ref]?/move': { ...staffAction, url: '/workshop/orders/CS-1001?/move' },
+	'POST /workshop/orders/[ref]?/ship': { ...staffAction, url: '/workshop/orders/CS-1001?/ship' },
+	'POST /workshop/orders/[ref]?/note': { ...staffAction, url: '/workshop/orders/CS-1001?/note' },
+	'POST /workshop/orders/[ref]?/refund': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/refund'
+	},
+	'POST /workshop/orders/[ref]?/returned': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/returned'
+	},
+	'GET /workshop/queue': staff,
+	'POST /workshop/queue?/hours': ownerAction,
+	'POST /workshop/queue?/alerts': staffAction,
 	'GET /workshop/orders/[ref]/lines/[lineId]/template.pdf': {
 		...staff,
 		url: (f) => `/workshop/orders/CS-1001/lines/${f.lineId}/template.pdf`

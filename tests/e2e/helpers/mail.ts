@@ -1,6 +1,7 @@
 import { expect } from '@playwright/test';
 
 export type CaughtMail = {
+	id: string;
 	to: string[];
 	subject: string;
 	text: string;
@@ -32,4 +33,17 @@ export async function waitForMail(to: string, subject?: RegExp): Promise<CaughtM
 		)
 		.toBe(true);
 	return found!;
+}
+
+/**
+ * The message exactly as it crossed SMTP, parsed with mailparser (a general-purpose reference
+ * parser), so a test reads what a mail program would, not the stand-in's own summary.
+ */
+export async function parsedMail(mail: CaughtMail) {
+	const { simpleParser } = await import('mailparser');
+	const res = await fetch(
+		mailInboxUrl().replace(/\/api\/messages$/, `/api/messages/${mail.id}/raw`)
+	);
+	expect(res.status).toBe(200);
+	return simpleParser(Buffer.from(await res.arrayBuffer()));
 }

@@ -11,6 +11,10 @@ import {
 } from '../db/schema';
 import { jsonValue } from '../json-column';
 import { getSalesTaxBp } from '../settings';
+import { getCarvingSchedule } from '../orders/carving-queue';
+import { surchargeMinor } from '$lib/carving-queue';
+import { standardMinutes } from '$lib/layout-minutes';
+import type { PiecePattern } from '$lib/pattern/snapshot';
 import { lineTax, lineTotal } from '$lib/money';
 import { shippingCharge, zoneFor } from '$lib/shipping';
 
@@ -35,6 +39,7 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 			basePriceMinor: pieces.basePriceMinor,
 			currency: pieces.currency,
 			leadDays: pieces.leadDays,
+			pattern: pieces.pattern,
 			active: pieces.active,
 			woodId: woods.id,
 			woodSlug: woods.slug,
@@ -58,6 +63,7 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 		stockRows.find((s) => s.pieceId === pieceId && s.woodId === woodId)?.quantity ?? 0;
 
 	const rateBp = await getSalesTaxBp(conn);
+	const schedule = await getCarvingSchedule(conn);
 	const currency = rows[0]?.currency ?? 'USD';
 	const problems: { lineId: number; message: string }[] = [];
 
@@ -65,7 +71,16 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 		const personalisation = r.personalisation
 			? jsonValue<Personalisation>(r.personalisation)
 			: null;
-		const unitMinor = r.basePriceMinor + r.priceAddOnMinor;
+		// The owner's optional charge for carving beyond the piece's standard layout (0 when off).
+		const extraMinor =
+			personalisation && schedule.surchargePerMinuteMinor > 0
+				? surchargeMinor(
+						personalisation.estimateMinutes ?? 0,
+						standardMinutes(jsonValue<PiecePattern>(r.pattern), r, r.woodSlug),
+						schedule
+					)
+				: 0;
+		const unitMinor = r.basePriceMinor + r.priceAddOnMinor + extraMinor;
 		const totalMinor = lineTotal(unitMinor, r.quantity);
 		// Personalised pieces are carved to order; plain ones come from finished stock.
 		const fromStock = !personalisation;

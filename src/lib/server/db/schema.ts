@@ -457,3 +457,49 @@ export const jobRuns = mysqlTable(
 	},
 	(t) => [index('job_runs_name_ran_at').on(t.name, t.ranAt)]
 );
+
+export const refundStatuses = ['pending', 'succeeded', 'failed', 'canceled'] as const;
+
+/**
+ * Money given back on an order. A row is written `pending` before the payment server is asked
+ * (so two refunds at once cannot together pass what was paid), then carries the provider's id
+ * and status; `refund.updated` events keep the status current.
+ */
+export const orderRefunds = mysqlTable(
+	'order_refunds',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		orderId: int('order_id')
+			.notNull()
+			.references(() => orders.id, { onDelete: 'cascade' }),
+		providerRefundId: varchar('provider_refund_id', { length: 255 }),
+		amountMinor: int('amount_minor').notNull(),
+		reason: varchar('reason', { length: 500 }).notNull(),
+		status: mysqlEnum('status', refundStatuses).notNull().default('pending'),
+		/** The owner said the piece came back, so it went back on the workshop shelf. */
+		restocked: boolean('restocked').notNull().default(false),
+		createdBy: varchar('created_by', { length: 36 }).references(() => users.id, {
+			onDelete: 'set null'
+		}),
+		createdAt: datetime('created_at').notNull()
+	},
+	(t) => [
+		uniqueIndex('order_refunds_provider').on(t.providerRefundId),
+		index('order_refunds_order').on(t.orderId)
+	]
+);
+
+/** The workshop's own notes on an order; never shown to the buyer. */
+export const orderNotes = mysqlTable(
+	'order_notes',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		orderId: int('order_id')
+			.notNull()
+			.references(() => orders.id, { onDelete: 'cascade' }),
+		userId: varchar('user_id', { length: 36 }).references(() => users.id, { onDelete: 'set null' }),
+		body: varchar('body', { length: 2000 }).notNull(),
+		createdAt: datetime('created_at').notNull()
+	},
+	(t) => [index('order_notes_order').on(t.orderId, t.id)]
+);

@@ -20,6 +20,13 @@ import { heldLines, releaseInTx, releaseOrder, takeStock } from './holds';
 import { moveOrder } from './status';
 import { sendConfirmation, sendPieceGone } from './mail';
 import { orderById, orderByRef } from './views';
+import { afterOrderPaid } from './paid-alert';
+import {
+	handleRefundEvent,
+	refundedChargeObject,
+	refundObject,
+	type RefundEventObject
+} from './refunds';
 
 // ---------------------------------------------------------------- the hosted payment session
 
@@ -297,6 +304,7 @@ async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<
 			console.error('Confirmation e-mail failed', order.ref, err);
 		}
 	}
+	await afterOrderPaid(outcome.orderId, origin);
 	return { handled: true, changed: true, outcome: 'paid' };
 }
 
@@ -312,13 +320,28 @@ async function onSessionExpired(event: Stripe.Event): Promise<EventResult> {
 	return { handled: true, changed };
 }
 
+/** A refund settled or changed at the provider: keep the order's refunded figures in step. */
+async function onRefundEvent(event: Stripe.Event): Promise<EventResult> {
+	const e: RefundEventObject =
+		event.type === 'charge.refunded'
+			? { type: 'charge.refunded', object: parseObject(refundedChargeObject, event) }
+			: { type: 'refund.updated', object: parseObject(refundObject, event) };
+	const changed = await transact(async (tx) => {
+		if (!(await firstTime(tx, event))) return false;
+		return handleRefundEvent(e, tx);
+	});
+	return { handled: true, changed };
+}
+
 type Handler = (event: Stripe.Event, origin: string) => Promise<EventResult>;
 
 /** Event type → handler. Add a type here (refunds, disputes) and the webhook route handles it. */
 export const eventHandlers: Partial<Record<Stripe.Event['type'], Handler>> = {
 	'checkout.session.completed': onSessionCompleted,
 	'checkout.session.async_payment_succeeded': onSessionCompleted,
-	'checkout.session.expired': onSessionExpired
+	'checkout.session.expired': onSessionExpired,
+	'charge.refunded': onRefundEvent,
+	'refund.updated': onRefundEvent
 };
 
 /**

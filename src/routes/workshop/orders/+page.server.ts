@@ -1,8 +1,34 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { workshopOrders } from '$lib/server/orders/views';
-import type { PageServerLoad } from './$types';
+import { moveOrders } from '$lib/server/orders/bulk';
+import { orderStatuses } from '$lib/order-status';
+import { isBenchMove } from '$lib/bench-moves';
+import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async (event) => {
-	requireRole(event, 'owner', 'helper');
-	return { orders: await workshopOrders() };
+/** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
+export const load: PageServerLoad = (event) => {
+	const user = requireRole(event, 'owner', 'helper');
+	return { role: user.role };
+};
+
+const moveSchema = z.object({
+	refs: z.array(z.string().trim().min(1).max(16)).min(1, 'Select at least one order.').max(100),
+	to: z.enum(orderStatuses, { error: 'Choose where to move them.' })
+});
+
+export const actions: Actions = {
+	/** Moves the selected orders on together; each one goes only where its status allows. */
+	move: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const form = await event.request.formData();
+		const parsed = moveSchema.safeParse({ refs: form.getAll('refs'), to: form.get('to') });
+		if (!parsed.success) {
+			return fail(400, { error: parsed.error.issues[0]?.message ?? 'Check the selection.' });
+		}
+		if (!isBenchMove(parsed.data.to)) {
+			return fail(400, { error: 'Orders move on together only to carving, finishing or packed.' });
+		}
+		return { moved: await moveOrders(parsed.data.refs, parsed.data.to, user.id) };
+	}
 };

@@ -1,4 +1,7 @@
 import { error, fail } from '@sveltejs/kit';
+import { readyByFor } from '$lib/carving-queue';
+import { standardMinutes } from '$lib/layout-minutes';
+import { queueOutlook } from '$lib/server/orders/carving-queue';
 import { getPiece } from '$lib/server/catalogue';
 import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
 import { addLineSchema, fieldErrors } from '$lib/schemas/cart';
@@ -35,8 +38,23 @@ function previewFor(
 export const load: PageServerLoad = async ({ params }) => {
 	const piece = await getPiece(params.slug);
 	if (!piece) error(404, 'We do not have a piece at this address.');
+	const queue = await queueOutlook();
+	const firstWood = piece.woods[0]?.slug;
+	// The date shown before the buyer types anything: the standard layout joining the queue now.
+	const queueReadyBy =
+		piece.personalisable && firstWood
+			? readyByFor(
+					queue.minutesAhead,
+					standardMinutes(piece.pattern, piece, firstWood),
+					queue.schedule,
+					queue.today,
+					queue.extraDaysOff
+				)
+			: null;
 	return {
 		preview: previewFor(piece),
+		queue,
+		queueReadyBy,
 		piece: {
 			...piece,
 			woods: piece.woods.map((w) => ({

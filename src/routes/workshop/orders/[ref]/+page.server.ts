@@ -1,11 +1,136 @@
-import { error } from '@sveltejs/kit';
+import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
+import { formTexts } from '$lib/form-text';
 import { workshopOrderDetail } from '$lib/server/orders/views';
-import type { PageServerLoad } from './$types';
+import { nextStatuses, statusLabel } from '$lib/order-status';
+import { formatMoney } from '$lib/money';
+import { isBenchMove } from '$lib/bench-moves';
+import { moveSchema, noteSchema } from '$lib/schemas/order-actions';
+import { shipmentSchema } from '$lib/schemas/shipment';
+import { refundFormSchema } from '$lib/schemas/refund';
+import { fieldErrors } from '$lib/schemas/cart';
+import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
+import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
+import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
+import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
+import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/orders/workbench';
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	requireRole(event, 'owner', 'helper');
+	const user = requireRole(event, 'owner', 'helper');
 	const order = await workshopOrderDetail(event.params.ref);
 	if (!order) error(404, `There is no order ${event.params.ref}.`);
-	return { order };
+	const needsCarving = order.lines.some((l) => !l.fromStock);
+	return {
+		order,
+		role: user.role,
+		next: nextStatuses(order.status, { needsCarving }),
+		...(await orderWorkbench(await orderIdOf(order.ref)))
+	};
+};
+
+/** Domain refusals become a form message; anything else is a real fault. */
+function refused(err: unknown, form: string) {
+	if (err instanceof StatusMoveError || err instanceof RefundError)
+		return fail(err.status, { form, error: err.message });
+	if (err instanceof OrderNotFoundError) return fail(404, { form, error: err.message });
+	throw err;
+}
+
+export const actions: Actions = {
+	move: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const parsed = moveSchema.safeParse(await formTexts(event.request));
+		if (!parsed.success) return fail(400, { form: 'move', error: parsed.error.issues[0].message });
+		const { to, why } = parsed.data;
+		if (!isBenchMove(to)) {
+			return fail(400, {
+				form: 'move',
+				error: 'That change has its own way: the shipping or refund form, or the payment itself.'
+			});
+		}
+		try {
+			const id = await orderIdOf(event.params.ref);
+			await moveOrder(id, to, { userId: user.id, why: why || `Moved to ${statusLabel(to)}` });
+			await recomputeReadyBy();
+			return { form: 'move', done: `Moved to ${statusLabel(to)}.` };
+		} catch (err) {
+			return refused(err, 'move');
+		}
+	},
+
+	ship: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const values = await formTexts(event.request);
+		const parsed = shipmentSchema.safeParse(values);
+		if (!parsed.success) {
+			return fail(400, { form: 'ship', errors: fieldErrors(parsed.error), values });
+		}
+		try {
+			const s = await shipOrder(
+				event.params.ref,
+				parsed.data,
+				{ userId: user.id },
+				event.url.origin
+			);
+			return {
+				form: 'ship',
+				done: s.mailed
+					? `Shipped. The buyer has an e-mail with tracking number ${s.trackingNumber}.`
+					: 'Shipped, but the e-mail to the buyer could not be sent.'
+			};
+		} catch (err) {
+			return refused(err, 'ship');
+		}
+	},
+
+	refund: async (event) => {
+		const user = requireRole(event, 'owner');
+		const order = await workshopOrderDetail(event.params.ref);
+		if (!order) return fail(404, { form: 'refund', error: 'There is no such order.' });
+		const values = await formTexts(event.request);
+		const parsed = refundFormSchema(order.currency).safeParse(values);
+		if (!parsed.success) {
+			return fail(400, { form: 'refund', errors: fieldErrors(parsed.error), values });
+		}
+		try {
+			const r = await refundOrder(
+				event.params.ref,
+				parsed.data,
+				{ userId: user.id },
+				event.url.origin
+			);
+			const money = (m: number) => formatMoney(m, order.currency);
+			return {
+				form: 'refund',
+				done: `Refunded ${money(r.amountMinor)}; ${money(r.refundedMinor)} of ${money(r.totalMinor)} refunded in all. The buyer has an e-mail.`
+			};
+		} catch (err) {
+			return refused(err, 'refund');
+		}
+	},
+
+	returned: async (event) => {
+		requireRole(event, 'owner');
+		try {
+			await markPiecesReturned(event.params.ref);
+			return { form: 'returned', done: 'The ready-made pieces are back on the workshop shelf.' };
+		} catch (err) {
+			return refused(err, 'returned');
+		}
+	},
+
+	note: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const values = await formTexts(event.request);
+		const parsed = noteSchema.safeParse(values);
+		if (!parsed.success)
+			return fail(400, { form: 'note', errors: fieldErrors(parsed.error), values });
+		try {
+			await addOrderNote(event.params.ref, parsed.data.body, user.id);
+			return { form: 'note', done: 'Note added.' };
+		} catch (err) {
+			return refused(err, 'note');
+		}
+	}
 };

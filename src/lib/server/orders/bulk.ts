@@ -1,0 +1,30 @@
+import { eq } from 'drizzle-orm';
+import { statusLabel, type OrderStatus } from '$lib/order-status';
+import { db } from '../db';
+import { orders } from '../db/schema';
+import { recomputeReadyBy } from './carving-queue';
+import { moveOrder, StatusMoveError } from './status';
+
+/**
+ * Moves several orders to one status, each in its own transaction through the status table, so
+ * one order that may not move does not hold back the rest. Says what happened to each.
+ */
+export async function moveOrders(refs: string[], to: OrderStatus, userId: string) {
+	const out: { ref: string; ok: boolean; message: string }[] = [];
+	for (const ref of [...new Set(refs)]) {
+		const [o] = await db.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref));
+		if (!o) {
+			out.push({ ref, ok: false, message: 'No such order.' });
+			continue;
+		}
+		try {
+			await moveOrder(o.id, to, { userId, why: `Moved with others to ${statusLabel(to)}` });
+			out.push({ ref, ok: true, message: `Now ${statusLabel(to)}.` });
+		} catch (err) {
+			if (!(err instanceof StatusMoveError)) throw err;
+			out.push({ ref, ok: false, message: err.message });
+		}
+	}
+	if (out.some((r) => r.ok)) await recomputeReadyBy();
+	return out;
+}

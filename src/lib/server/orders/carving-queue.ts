@@ -1,0 +1,186 @@
+/**
+ * The carving queue read from the database: paid made-to-order lines not yet carved, in the
+ * order the carver takes them (orders already on the bench first, then by payment time), with
+ * their estimated minutes; the owner's carving week from settings; fair days as days off.
+ * Scheduling itself is the pure `$lib/carving-queue`.
+ */
+import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import {
+	daysBetween,
+	DEFAULT_SCHEDULE,
+	isoDay,
+	readyAfterCarving,
+	scheduleQueue,
+	type CarvingSchedule
+} from '$lib/carving-queue';
+import { computePattern } from '$lib/pattern';
+import { letterFont } from '$lib/pattern/letter-font';
+import { db, type Db, type Tx } from '../db';
+import {
+	fairs,
+	orderLines,
+	orders,
+	pieces,
+	settings,
+	woods,
+	type Personalisation
+} from '../db/schema';
+import { jsonValue } from '../json-column';
+import { snapshotInput } from '$lib/pattern/snapshot';
+
+const KEY = 'carvingSchedule';
+const minutes = z
+	.number()
+	.int()
+	.min(0)
+	.max(24 * 60);
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-07.');
+
+export const carvingScheduleSchema = z.object({
+	minutesByWeekday: z.tuple([minutes, minutes, minutes, minutes, minutes, minutes, minutes]),
+	daysOff: z.array(isoDate).max(366),
+	finishingDays: z.number().int().min(0).max(60),
+	packingDays: z.number().int().min(0).max(30),
+	surchargePerMinuteMinor: z.number().int().min(0).max(10_000)
+});
+
+export async function getCarvingSchedule(conn: Db | Tx = db): Promise<CarvingSchedule> {
+	const [row] = await conn.select().from(settings).where(eq(settings.key, KEY)).limit(1);
+	const parsed = row ? carvingScheduleSchema.safeParse(jsonValue(row.value)) : null;
+	return parsed?.success ? parsed.data : DEFAULT_SCHEDULE;
+}
+
+export async function setCarvingSchedule(s: CarvingSchedule) {
+	await db
+		.insert(settings)
+		.values({ key: KEY, value: s })
+		.onDuplicateKeyUpdate({ set: { value: s } });
+	await recomputeReadyBy();
+}
+
+/** Every day of every fair still to come: the carver is at the booth, not the bench. */
+export async function fairDays(today: string, conn: Db | Tx = db): Promise<string[]> {
+	const rows = await conn
+		.select({ from: fairs.startsOn, to: fairs.endsOn })
+		.from(fairs)
+		.where(gte(fairs.endsOn, today));
+	return rows.flatMap((f) => daysBetween(f.from < today ? today : f.from, f.to));
+}
+
+/** Minutes for one stored personalisation: the snapshot's estimate, or the engine's again. */
+function lineMinutes(
+	snap: Personalisation | null,
+	blank: { widthMm: number; lengthMm: number; thicknessMm: number },
+	woodSlug: string
+): number {
+	if (!snap) return 0;
+	if (Number.isFinite(snap.estimateMinutes)) return Math.max(0, snap.estimateMinutes!);
+	const r = computePattern(snapshotInput(snap, blank, woodSlug), {
+		svg: false,
+		font: letterFont()
+	});
+	return Math.round(r.estimateMinutes);
+}
+
+export async function queueLines(conn: Db | Tx = db) {
+	const rows = await conn
+		.select({
+			lineId: orderLines.id,
+			orderId: orders.id,
+			ref: orders.ref,
+			status: orders.status,
+			buyerName: orders.buyerName,
+			title: orderLines.title,
+			woodName: orderLines.woodName,
+			quantity: orderLines.quantity,
+			personalisation: orderLines.personalisation,
+			widthMm: pieces.widthMm,
+			lengthMm: pieces.lengthMm,
+			thicknessMm: pieces.thicknessMm,
+			woodSlug: woods.slug,
+			paidAt: orders.paidAt
+		})
+		.from(orderLines)
+		.innerJoin(orders, eq(orders.id, orderLines.orderId))
+		.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
+		.innerJoin(woods, eq(woods.id, orderLines.woodId))
+		// Ready-made lines are packed, not carved: they never join the queue. A gone piece joins
+		// only once the owner puts the order back on the bench (status carving).
+		.where(and(eq(orderLines.fromStock, false), inArray(orders.status, ['carving', 'paid'])))
+		.orderBy(
+			sql`case when ${orders.status} = 'carving' then 0 else 1 end`,
+			asc(orders.paidAt),
+			asc(orders.id),
+			asc(orderLines.id)
+		);
+	return rows.map((r) => {
+		const snap = r.personalisation ? jsonValue<Personalisation>(r.personalisation) : null;
+		const each = lineMinutes(snap, r, r.woodSlug);
+		return {
+			lineId: r.lineId,
+			orderId: r.orderId,
+			ref: r.ref,
+			status: r.status,
+			buyerName: r.buyerName,
+			title: r.title,
+			woodName: r.woodName,
+			quantity: r.quantity,
+			initials: snap?.initials ?? null,
+			minutes: each * r.quantity
+		};
+	});
+}
+
+export type QueueView = Awaited<ReturnType<typeof carvingQueue>>;
+
+/** The queue with the day each line should be carved, for the "Today" page. */
+export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
+	const today = isoDay(now);
+	const [lines, schedule, fairOff] = await Promise.all([
+		queueLines(conn),
+		getCarvingSchedule(conn),
+		fairDays(today, conn)
+	]);
+	const planned = scheduleQueue(
+		lines.map((l) => ({ key: l, minutes: l.minutes })),
+		schedule,
+		today,
+		fairOff
+	);
+	return {
+		today,
+		schedule,
+		fairDays: fairOff,
+		totalMinutes: lines.reduce((s, l) => s + l.minutes, 0),
+		lines: planned.map((p) => ({ ...p.key, carvedOn: p.carvedOn }))
+	};
+}
+
+/**
+ * Gives every order in the queue its ready-by date from its place in it: the day its last line
+ * is carved, plus finishing and packing. Run when the queue changes (a payment, a move off the
+ * bench, new carving hours). Orders of ready-made pieces are left as they are.
+ */
+export async function recomputeReadyBy(now = new Date()) {
+	const q = await carvingQueue(now);
+	const lastDay = new Map<number, string | null>();
+	for (const l of q.lines) lastDay.set(l.orderId, l.carvedOn);
+	for (const [orderId, carvedOn] of lastDay) {
+		const readyBy = carvedOn ? readyAfterCarving(carvedOn, q.schedule, q.fairDays) : null;
+		await db.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
+	}
+	return lastDay.size;
+}
+
+/** What the personaliser needs to date a new piece in the browser with the same rules. */
+export async function queueOutlook(now = new Date()) {
+	const q = await carvingQueue(now);
+	return {
+		today: q.today,
+		minutesAhead: q.totalMinutes,
+		schedule: q.schedule,
+		extraDaysOff: q.fairDays
+	};
+}
+export type QueueOutlook = Awaited<ReturnType<typeof queueOutlook>>;

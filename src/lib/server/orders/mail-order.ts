@@ -1,0 +1,35 @@
+import { eq } from 'drizzle-orm';
+import { db, type Db, type Tx } from '../db';
+import { orderLines, orders, type Personalisation } from '../db/schema';
+import { jsonValue } from '../json-column';
+import type { MailOrder } from './shipping-mail';
+
+/** Just what the workshop's e-mails say about an order. */
+export async function mailOrder(
+	orderId: number,
+	conn: Db | Tx = db
+): Promise<MailOrder & { email: string; readyBy: string | null }> {
+	const [o] = await conn.select().from(orders).where(eq(orders.id, orderId));
+	if (!o) throw new Error(`order ${orderId} not found`);
+	const lines = await conn
+		.select()
+		.from(orderLines)
+		.where(eq(orderLines.orderId, orderId))
+		.orderBy(orderLines.id);
+	return {
+		ref: o.ref,
+		buyerName: o.buyerName,
+		email: o.email,
+		currency: o.currency,
+		totalMinor: o.totalMinor,
+		readyBy: o.readyBy,
+		lines: lines.map((l) => ({
+			quantity: l.quantity,
+			title: l.title,
+			woodName: l.woodName,
+			initials: l.personalisation
+				? jsonValue<Personalisation>(l.personalisation).initials || null
+				: null
+		}))
+	};
+}

@@ -1,0 +1,343 @@
+/**
+ * Refunds, owner only. The money moves at the payment server; this module keeps the order's
+ * figures in step with it:
+ *   1. one transaction locks the order, checks what is left to refund (counting refunds still
+ *      being asked for, so two at once cannot pass what was paid) and writes a `pending` row;
+ *   2. the payment server is asked through the SDK (idempotency key = that row), and a refusal
+ *      deletes the row, so nothing is half-written;
+ *   3. one transaction records the provider's refund, the order's refunded total, the move to
+ *      `refunded` when nothing is left, and the pieces back on the shelf when the owner says
+ *      they came back;
+ *   4. the buyer gets an e-mail.
+ * `charge.refunded` and `refund.updated` events keep the figures right when the provider tells
+ * us something first (or something done outside the app).
+ */
+import { and, eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import { formatMoney } from '$lib/money';
+import type { RefundInput } from '$lib/schemas/refund';
+import { db, type Tx } from '../db';
+import { transact } from '../db/retry';
+import { orderLines, orderRefunds, orders } from '../db/schema';
+import { sendMail } from '../mail';
+import { stripe, type Stripe } from '../payments';
+import { putBackStock } from './holds';
+import { mailOrder } from './mail-order';
+import { refundMail } from './shipping-mail';
+import { moveOrder } from './status';
+
+export class RefundError extends Error {
+	constructor(
+		message: string,
+		public status = 409
+	) {
+		super(message);
+	}
+}
+
+/** Statuses in which money has been taken and may be given back. */
+const REFUNDABLE = ['paid', 'carving', 'finishing', 'packed', 'shipped', 'piece_gone'] as const;
+
+async function refundedSoFar(tx: Tx, orderId: number) {
+	const [row] = await tx
+		.select({
+			done: sql<number>`coalesce(sum(case when ${orderRefunds.status} = 'succeeded' then ${orderRefunds.amountMinor} end), 0)`.mapWith(
+				Number
+			),
+			asked:
+				sql<number>`coalesce(sum(case when ${orderRefunds.status} = 'pending' then ${orderRefunds.amountMinor} end), 0)`.mapWith(
+					Number
+				)
+		})
+		.from(orderRefunds)
+		.where(eq(orderRefunds.orderId, orderId));
+	return row ?? { done: 0, asked: 0 };
+}
+
+/** Step 1: check and reserve. */
+async function reserve(ref: string, input: RefundInput, userId: string, now: Date) {
+	return transact(async (tx) => {
+		const [o] = await tx.select().from(orders).where(eq(orders.ref, ref)).for('update');
+		if (!o) throw new RefundError(`There is no order ${ref}.`, 404);
+		if (!(REFUNDABLE as readonly string[]).includes(o.status) || !o.paymentIntentId) {
+			throw new RefundError(`Order ${ref} has not been paid, so there is nothing to refund.`);
+		}
+		const { done, asked } = await refundedSoFar(tx, o.id);
+		const refunded = Math.max(done, o.refundedMinor);
+		const left = o.totalMinor - refunded - asked;
+		const money = (m: number) => formatMoney(m, o.currency);
+		if (left <= 0) throw new RefundError(`Order ${ref} has already been refunded in full.`);
+		const amount = input.amountMinor ?? left;
+		if (amount > left) {
+			throw new RefundError(
+				`You can refund at most ${money(left)} on order ${ref}: ${money(o.totalMinor)} was paid and ${money(refunded + asked)} is already refunded.`,
+				400
+			);
+		}
+		const [{ id }] = await tx
+			.insert(orderRefunds)
+			.values({
+				orderId: o.id,
+				amountMinor: amount,
+				reason: input.reason,
+				status: 'pending',
+				createdBy: userId,
+				createdAt: now
+			})
+			.$returningId();
+		return { rowId: id, orderId: o.id, paymentIntentId: o.paymentIntentId, amount };
+	});
+}
+
+/** Sets the order's refunded total from its settled refunds (never below what the provider said). */
+async function settleTotals(tx: Tx, orderId: number, providerTotal = 0) {
+	const { done } = await refundedSoFar(tx, orderId);
+	await tx
+		.update(orders)
+		.set({ refundedMinor: sql`greatest(${orders.refundedMinor}, ${done}, ${providerTotal})` })
+		.where(eq(orders.id, orderId));
+	// A locking read: a plain one would answer from this transaction's snapshot, which misses
+	// what a refund event committed meanwhile when our update changed nothing.
+	const [o] = await tx
+		.select({ total: orders.totalMinor, refunded: orders.refundedMinor, status: orders.status })
+		.from(orders)
+		.where(eq(orders.id, orderId))
+		.for('update');
+	return o;
+}
+
+async function moveIfFull(tx: Tx, orderId: number, by: { userId: string | null; why: string }) {
+	const [o] = await tx
+		.select({ total: orders.totalMinor, refunded: orders.refundedMinor, status: orders.status })
+		.from(orders)
+		.where(eq(orders.id, orderId))
+		.for('update');
+	if (o && o.refunded >= o.total && o.status !== 'refunded') {
+		await moveOrder(orderId, 'refunded', by, tx);
+	}
+}
+
+/** Owner refunds part or all of a paid order. Returns what was refunded and the new totals. */
+export async function refundOrder(
+	ref: string,
+	input: RefundInput,
+	by: { userId: string },
+	origin?: string,
+	now = new Date()
+) {
+	const r = await reserve(ref, input, by.userId, now);
+	let refund: Stripe.Refund;
+	try {
+		refund = await stripe().refunds.create(
+			{
+				payment_intent: r.paymentIntentId,
+				amount: r.amount,
+				reason: 'requested_by_customer',
+				metadata: { orderRef: ref, refundRowId: String(r.rowId) }
+			},
+			// Keyed by order and reservation, so a retried request never refunds twice.
+			{ idempotencyKey: `refund-${ref}-${r.rowId}` }
+		);
+	} catch (err) {
+		await db.delete(orderRefunds).where(eq(orderRefunds.id, r.rowId));
+		const e = err as { type?: string; message?: string };
+		if (e.type === 'StripeInvalidRequestError' || e.type === 'StripeCardError') {
+			throw new RefundError(`The payment server refused the refund: ${e.message}`);
+		}
+		throw new RefundError('The payment server could not be reached; nothing was refunded.', 503);
+	}
+
+	const totals = await transact(async (tx) => {
+		// The order row first, as the refund events do: one lock order, no deadlock between them.
+		await tx.select({ id: orders.id }).from(orders).where(eq(orders.id, r.orderId)).for('update');
+		const status = refund.status === 'succeeded' ? 'succeeded' : 'pending';
+		await tx
+			.update(orderRefunds)
+			.set({ providerRefundId: refund.id, status })
+			.where(eq(orderRefunds.id, r.rowId));
+		const o = await settleTotals(tx, r.orderId);
+		await moveIfFull(tx, r.orderId, {
+			userId: by.userId,
+			why: `Refunded in full: ${input.reason}`
+		});
+		if (input.restock) await restockOnce(tx, r.orderId, r.rowId);
+		return o;
+	});
+
+	try {
+		const order = await mailOrder(r.orderId);
+		await sendMail({
+			to: order.email,
+			...refundMail(
+				order,
+				{ amountMinor: r.amount, reason: input.reason, refundedTotalMinor: totals.refunded },
+				origin
+			)
+		});
+	} catch (err) {
+		console.error('refund e-mail failed', ref, err);
+	}
+	return {
+		refundId: refund.id,
+		amountMinor: r.amount,
+		refundedMinor: totals.refunded,
+		totalMinor: totals.total
+	};
+}
+
+/** The ready-made pieces of the order back on the workshop shelf, once per order. */
+async function restockOnce(tx: Tx, orderId: number, refundRowId: number) {
+	const [already] = await tx
+		.select({ id: orderRefunds.id })
+		.from(orderRefunds)
+		.where(and(eq(orderRefunds.orderId, orderId), eq(orderRefunds.restocked, true)));
+	if (already) return;
+	const lines = await tx
+		.select()
+		.from(orderLines)
+		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, true)));
+	await putBackStock(
+		tx,
+		lines.map((l) => ({ pieceId: l.pieceId, woodId: l.woodId, quantity: l.quantity }))
+	);
+	await tx.update(orderRefunds).set({ restocked: true }).where(eq(orderRefunds.id, refundRowId));
+}
+
+/** The owner says the piece came back after an earlier refund. */
+export async function markPiecesReturned(ref: string) {
+	return transact(async (tx) => {
+		const [o] = await tx
+			.select({ id: orders.id })
+			.from(orders)
+			.where(eq(orders.ref, ref))
+			.for('update');
+		if (!o) throw new RefundError(`There is no order ${ref}.`, 404);
+		const [last] = await tx
+			.select({ id: orderRefunds.id })
+			.from(orderRefunds)
+			.where(and(eq(orderRefunds.orderId, o.id), eq(orderRefunds.status, 'succeeded')))
+			.orderBy(sql`${orderRefunds.id} desc`)
+			.limit(1);
+		if (!last)
+			throw new RefundError('Refund the order first; then the piece can go back on the shelf.');
+		await restockOnce(tx, o.id, last.id);
+	});
+}
+
+const refundStatus = (s: string | null | undefined) =>
+	s === 'succeeded' || s === 'failed' || s === 'canceled' ? s : 'pending';
+
+const intentId = z
+	.union([z.string(), z.object({ id: z.string() })])
+	.nullish()
+	.transform((p) => (typeof p === 'string' ? p : (p?.id ?? null)));
+const meta = z.record(z.string(), z.string()).nullish();
+
+/** The fields of a `charge.refunded` event's object that we act on. */
+export const refundedChargeObject = z.object({
+	payment_intent: intentId,
+	amount_refunded: z.number().int().min(0),
+	metadata: meta
+});
+/** The fields of a `refund.updated` event's object that we act on. */
+export const refundObject = z.object({
+	id: z.string().min(1),
+	amount: z.number().int().min(1),
+	payment_intent: intentId,
+	status: z.string().nullish(),
+	reason: z.string().nullish(),
+	created: z.number().int(),
+	metadata: meta
+});
+export type RefundEventObject =
+	| { type: 'charge.refunded'; object: z.infer<typeof refundedChargeObject> }
+	| { type: 'refund.updated'; object: z.infer<typeof refundObject> };
+
+async function orderForIntent(tx: Tx, paymentIntentId: string | null, ref?: string) {
+	const where = ref
+		? eq(orders.ref, ref)
+		: paymentIntentId
+			? eq(orders.paymentIntentId, paymentIntentId)
+			: null;
+	if (!where) return null;
+	const [o] = await tx
+		.select({ id: orders.id, status: orders.status })
+		.from(orders)
+		.where(where)
+		.for('update');
+	return o ?? null;
+}
+
+const providerSaid = { userId: null, why: 'The payment server reported a full refund' };
+
+/**
+ * Applies a verified, field-checked `charge.refunded` or `refund.updated` inside the caller's
+ * transaction (which records the event id too). Both are safe to apply twice: totals only grow
+ * to what the provider says, and a refund row is keyed by the provider's id. An order whose
+ * piece was gone stays for the owner to close.
+ */
+export async function handleRefundEvent(e: RefundEventObject, tx: Tx): Promise<boolean> {
+	const o = await orderForIntent(
+		tx,
+		e.object.payment_intent,
+		e.object.metadata?.orderRef ?? undefined
+	);
+	if (!o) return false;
+	if (e.type === 'refund.updated') {
+		const refund = e.object;
+		const status = refundStatus(refund.status);
+		const rowId = Number(refund.metadata?.refundRowId);
+		const [mine] = await tx
+			.select({ id: orderRefunds.id })
+			.from(orderRefunds)
+			.where(
+				and(
+					eq(orderRefunds.orderId, o.id),
+					Number.isInteger(rowId) && rowId > 0
+						? eq(orderRefunds.id, rowId)
+						: eq(orderRefunds.providerRefundId, refund.id)
+				)
+			)
+			.for('update');
+		if (mine) {
+			await tx
+				.update(orderRefunds)
+				.set({ providerRefundId: refund.id, status })
+				.where(eq(orderRefunds.id, mine.id));
+		} else {
+			// Made outside the app (the provider's dashboard, the piece-gone refund): record it.
+			await tx
+				.insert(orderRefunds)
+				.values({
+					orderId: o.id,
+					providerRefundId: refund.id,
+					amountMinor: refund.amount,
+					reason: refund.metadata?.reason ?? refund.reason ?? 'Refunded at the payment server',
+					status,
+					createdAt: new Date(refund.created * 1000)
+				})
+				.onDuplicateKeyUpdate({ set: { status } });
+		}
+		await settleTotals(tx, o.id);
+	} else {
+		await settleTotals(tx, o.id, e.object.amount_refunded);
+	}
+	if (o.status !== 'piece_gone') await moveIfFull(tx, o.id, providerSaid);
+	return true;
+}
+
+/** The refunds of an order, newest first, for its page. */
+export async function refundsOf(orderId: number) {
+	return db
+		.select({
+			id: orderRefunds.id,
+			amountMinor: orderRefunds.amountMinor,
+			reason: orderRefunds.reason,
+			status: orderRefunds.status,
+			restocked: orderRefunds.restocked,
+			createdAt: orderRefunds.createdAt
+		})
+		.from(orderRefunds)
+		.where(eq(orderRefunds.orderId, orderId))
+		.orderBy(sql`${orderRefunds.id} desc`);
+}

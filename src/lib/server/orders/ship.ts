@@ -1,0 +1,71 @@
+import { eq } from 'drizzle-orm';
+import { transact } from '../db/retry';
+import { orders, shipments } from '../db/schema';
+import { sendMail } from '../mail';
+import type { ShipmentInput } from '$lib/schemas/shipment';
+import { moveOrder, StatusMoveError } from './status';
+import { mailOrder } from './mail-order';
+import { shippingMail } from './shipping-mail';
+
+export class OrderNotFoundError extends Error {
+	readonly status = 404;
+	constructor(ref: string) {
+		super(`There is no order ${ref}.`);
+	}
+}
+
+/**
+ * The parcel has gone: in one transaction move the order to `shipped` through the status table
+ * (which refuses an unpaid, unpacked or already shipped order with a 409) and write the shipment;
+ * after the commit tell the buyer. A failed e-mail does not undo the shipment: the parcel left.
+ */
+export async function shipOrder(
+	ref: string,
+	input: ShipmentInput,
+	by: { userId: string },
+	origin?: string,
+	now = new Date()
+) {
+	const shipment = await transact(async (tx) => {
+		const [order] = await tx
+			.select({ id: orders.id })
+			.from(orders)
+			.where(eq(orders.ref, ref))
+			.for('update');
+		if (!order) throw new OrderNotFoundError(ref);
+		await moveOrder(
+			order.id,
+			'shipped',
+			{ userId: by.userId, why: `Shipped with ${input.carrier}, tracking ${input.trackingNumber}` },
+			tx,
+			{},
+			now
+		);
+		const row = {
+			orderId: order.id,
+			carrier: input.carrier,
+			trackingNumber: input.trackingNumber,
+			shippedAt: new Date(Math.floor(now.getTime() / 1000) * 1000)
+		};
+		const [{ id }] = await tx.insert(shipments).values(row).$returningId();
+		return { id, ...row };
+	});
+	let mailed = true;
+	try {
+		const order = await mailOrder(shipment.orderId);
+		await sendMail({ to: order.email, ...shippingMail(order, shipment, origin) });
+	} catch (err) {
+		mailed = false;
+		console.error('shipping e-mail failed', ref, err);
+	}
+	return {
+		id: shipment.id,
+		ref,
+		carrier: shipment.carrier,
+		trackingNumber: shipment.trackingNumber,
+		shippedAt: shipment.shippedAt.toISOString(),
+		mailed
+	};
+}
+
+export { StatusMoveError };

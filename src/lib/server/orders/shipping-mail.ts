@@ -1,0 +1,104 @@
+/**
+ * The e-mails the workshop's order work sends: the buyer's "on its way" and "refunded" letters,
+ * and the workshop's own alert for each paid order. Each has a text and an HTML part carrying
+ * the same facts.
+ */
+import { formatMoney } from '$lib/money';
+import { trackingLink } from './tracking';
+import { esc, mailButton, mailPage } from '../mail-html';
+import { orderLink } from './links';
+
+export type MailOrder = {
+	ref: string;
+	buyerName: string;
+	currency: string;
+	totalMinor: number;
+	lines: { quantity: number; title: string; woodName: string; initials?: string | null }[];
+};
+
+const lineWords = (l: MailOrder['lines'][number]) =>
+	`${l.quantity} × ${l.title} in ${l.woodName}${l.initials ? `, initials ${l.initials}` : ''}`;
+
+export function shippingMail(
+	order: MailOrder,
+	shipment: { carrier: string; trackingNumber: string },
+	origin?: string
+) {
+	const link = orderLink(order.ref, origin);
+	const track = trackingLink(shipment.carrier, shipment.trackingNumber);
+	const text = [
+		`Hello ${order.buyerName},`,
+		'',
+		`Your order ${order.ref} left the Linden Ford workshop today.`,
+		'',
+		...order.lines.map(lineWords),
+		'',
+		`Carrier: ${shipment.carrier}`,
+		`Tracking number: ${shipment.trackingNumber}`,
+		...(track ? [`Follow the parcel: ${track}`] : []),
+		'',
+		`Your order: ${link}`,
+		'',
+		'Oil the piece now and then and wash it by hand; never leave it to soak.'
+	].join('\n');
+	const html = mailPage(`<h1 style="font-size:24px;margin:0 0 8px">Your order is on its way</h1>
+<p>Hello ${esc(order.buyerName)}, your order <strong>${esc(order.ref)}</strong> left the Linden Ford workshop today.</p>
+<ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
+<p>Carrier: <strong>${esc(shipment.carrier)}</strong><br>Tracking number: <strong>${esc(shipment.trackingNumber)}</strong></p>
+${track ? `<p><a href="${esc(track)}">Follow the parcel with ${esc(shipment.carrier)}</a></p>` : ''}
+${mailButton(link, 'See your order')}
+<p style="font-size:14px;color:#5c4a3c">Oil the piece now and then and wash it by hand; never leave it to soak.</p>`);
+	return { subject: `Order ${order.ref} is on its way`, text, html };
+}
+
+export function refundMail(
+	order: MailOrder,
+	refund: { amountMinor: number; reason: string; refundedTotalMinor: number },
+	origin?: string
+) {
+	const money = (m: number) => formatMoney(m, order.currency);
+	const link = orderLink(order.ref, origin);
+	const full = refund.refundedTotalMinor >= order.totalMinor;
+	const text = [
+		`Hello ${order.buyerName},`,
+		'',
+		`We have refunded ${money(refund.amountMinor)} on order ${order.ref}.`,
+		`Reason: ${refund.reason}`,
+		full
+			? `That is the whole ${money(order.totalMinor)} you paid.`
+			: `Refunded so far: ${money(refund.refundedTotalMinor)} of ${money(order.totalMinor)}.`,
+		'',
+		'Your bank usually shows the money within 5 to 10 working days.',
+		'',
+		`Your order: ${link}`
+	].join('\n');
+	const html =
+		mailPage(`<h1 style="font-size:24px;margin:0 0 8px">A refund on order ${esc(order.ref)}</h1>
+<p>Hello ${esc(order.buyerName)}, we have refunded <strong>${esc(money(refund.amountMinor))}</strong>.</p>
+<p>Reason: ${esc(refund.reason)}</p>
+<p>${full ? `That is the whole ${esc(money(order.totalMinor))} you paid.` : `Refunded so far: ${esc(money(refund.refundedTotalMinor))} of ${esc(money(order.totalMinor))}.`}</p>
+<p>Your bank usually shows the money within 5 to 10 working days.</p>
+${mailButton(link, 'See your order')}`);
+	return { subject: `Refund of ${money(refund.amountMinor)} on order ${order.ref}`, text, html };
+}
+
+/** For the owner and helpers who asked: one short note per paid order, with a link to it. */
+export function newOrderAlertMail(order: MailOrder, origin: string, readyBy: string | null) {
+	const money = formatMoney(order.totalMinor, order.currency);
+	const href = `${origin}/workshop/orders/${encodeURIComponent(order.ref)}`;
+	const text = [
+		`New paid order ${order.ref} from ${order.buyerName}: ${money}.`,
+		'',
+		...order.lines.map(lineWords),
+		'',
+		`Ready by: ${readyBy ?? 'not dated yet'}`,
+		`Open it: ${href}`
+	].join('\n');
+	const html =
+		mailPage(`<h1 style="font-size:22px;margin:0 0 8px">New paid order ${esc(order.ref)}</h1>
+<p>${esc(order.buyerName)} paid <strong>${esc(money)}</strong>.</p>
+<ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
+<p>Ready by: ${esc(readyBy ?? 'not dated yet')}</p>
+${mailButton(href, 'Open the order')}`);
+	return { subject: `New order ${order.ref} — ${money}`, text, html };
+}

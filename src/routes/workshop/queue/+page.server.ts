@@ -1,0 +1,61 @@
+import { fail } from '@sveltejs/kit';
+import { daysBetween } from '$lib/carving-queue';
+import { requireRole } from '$lib/server/auth/guard';
+import { formTexts } from '$lib/form-text';
+import { carvingQueue, setCarvingSchedule } from '$lib/server/orders/carving-queue';
+import { alertHelperIds, setAlertOptIn } from '$lib/server/orders/paid-alert';
+import { carvingHoursForm } from '$lib/schemas/carving-hours';
+import { fieldErrors } from '$lib/schemas/cart';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, 'owner', 'helper');
+	const [queue, helpers] = await Promise.all([carvingQueue(), alertHelperIds()]);
+	return {
+		role: user.role,
+		queue,
+		alertsOn: user.role === 'owner' || helpers.includes(user.id)
+	};
+};
+
+export const actions: Actions = {
+	/** The owner's carving week: changing it re-dates every queued order. */
+	hours: async (event) => {
+		requireRole(event, 'owner');
+		const values = await formTexts(event.request);
+		const parsed = carvingHoursForm.safeParse(values);
+		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
+		const v = parsed.data;
+		const mins = (h: number) => Math.round(h * 60);
+		await setCarvingSchedule({
+			minutesByWeekday: [
+				mins(v.h0),
+				mins(v.h1),
+				mins(v.h2),
+				mins(v.h3),
+				mins(v.h4),
+				mins(v.h5),
+				mins(v.h6)
+			],
+			daysOff: [
+				...new Set(
+					v.daysOff.flatMap((d) =>
+						d.includes('..') ? daysBetween(...(d.split('..') as [string, string])) : [d]
+					)
+				)
+			].sort(),
+			finishingDays: v.finishingDays,
+			packingDays: v.packingDays,
+			surchargePerMinuteMinor: v.surchargeCents
+		});
+		return { saved: 'Saved. Every order in the queue has a new ready-by date.' };
+	},
+
+	/** A helper asks for (or stops) an e-mail on each paid order; the owner always gets one. */
+	alerts: async (event) => {
+		const user = requireRole(event, 'owner', 'helper');
+		const on = (await event.request.formData()).get('on') === 'yes';
+		if (user.role === 'helper') await setAlertOptIn(user.id, on);
+		return { saved: on ? 'You will get an e-mail for each paid order.' : 'No more order e-mails.' };
+	}
+};
