@@ -47,7 +47,18 @@ const sessionHandle: Handle = async ({ event, resolve }) => {
 
 /** Security headers on every response; `Retry-After` when a throttle said no (RFC 6585 §4). */
 const headers: Handle = async ({ event, resolve }) => {
-	const response = withSecurityHeaders(await resolve(event), event.url.protocol === 'https:');
+	let resolved: Response;
+	try {
+		resolved = await resolve(event);
+	} catch (err) {
+		// A handle that threw would otherwise reach the visitor as SvelteKit's bare 500.
+		console.error(err);
+		resolved = new Response('Something went wrong on our side. Please try again in a moment.', {
+			status: 500,
+			headers: { 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store' }
+		});
+	}
+	const response = withSecurityHeaders(resolved, event.url.protocol === 'https:');
 	if (event.locals.retryAfterS)
 		response.headers.set('retry-after', String(event.locals.retryAfterS));
 	return response;

@@ -21,10 +21,13 @@ const DOWN_CODES = new Set([
 	'ER_CONNECTION_KILLED',
 	'ER_SERVER_GONE_ERROR',
 	'ER_SERVER_LOST',
-	'ER_QUERY_INTERRUPTED'
+	'ER_QUERY_INTERRUPTED',
+	// The server answers but refuses the app's account (a password changed on one side only):
+	// to a visitor that is the same outage.
+	'ER_ACCESS_DENIED_ERROR'
 ]);
-/** The same by MariaDB error number (1053 shutdown, 1927 connection killed, 2006/2013 gone). */
-const DOWN_ERRNOS = new Set([1053, 1040, 1927, 2002, 2003, 2006, 2013]);
+/** The same by MariaDB error number (1045 access denied, 1053 shutdown, 1927 connection killed, 2006/2013 gone). */
+const DOWN_ERRNOS = new Set([1045, 1053, 1040, 1927, 2002, 2003, 2006, 2013]);
 
 /** True when `err` (or anything in its `cause` chain, e.g. drizzle's wrapper) means "database down". */
 export function isDatabaseDown(err: unknown): boolean {
