@@ -41,7 +41,8 @@ test('personalise, pay with the test card, e-mail and workshop see it paid', asy
 	// The e-mail's signed link opens the buyer's order page without signing in.
 	const link = /https?:\/\/\S+\/orders\/\S+/.exec(mail.text)![0];
 	await page.goto(new URL(link).pathname + new URL(link).search);
-	await expect(page.getByTestId('order-status')).toContainText('paid');
+	await expect(page.getByTestId('order-status')).toHaveAttribute('data-status', 'paid');
+	await expect(page.getByTestId('order-status')).toContainText('Paid');
 	// Without the signature the same page is not shown.
 	const bare = await page.goto(`/orders/${ref}`);
 	expect(bare?.status()).toBe(404);
