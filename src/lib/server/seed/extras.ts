@@ -1,6 +1,7 @@
 import type { MySql2Database } from 'drizzle-orm/mysql2';
 import type * as schema from '../db/schema';
 import { demoPhotos } from './photos';
+import { demoReadyBy } from './ready-by';
 
 export type SeedDb = MySql2Database<typeof schema>;
 
@@ -21,4 +22,4 @@ export type DemoExtra = {
  * uploaded to the S3 stand-in, for instance). Add a step here; a failing step is reported and
  * does not undo the demo data.
  */
-export const demoExtras: DemoExtra[] = [demoPhotos];
+export const demoExtras: DemoExtra[] = [demoPhotos, demoReadyBy];
