@@ -130,6 +130,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/refund'
 	},
+	'POST /workshop/orders/[ref]?/balance': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/balance'
+	},
 	'POST /workshop/orders/[ref]?/returned': {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/returned'
