@@ -5,11 +5,10 @@
  * balance as paid, and two clicks on "balance paid" record it once.
  */
 import { and, eq } from 'drizzle-orm';
-import { simpleParser } from 'mailparser';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
+import { mailTo, testPiece, testWood } from './helpers/fixtures';
 import { createFair } from '../../src/lib/server/fairs/fairs';
 import { placeBoothOrder } from '../../src/lib/server/fairs/booth-order';
 import { FairError } from '../../src/lib/server/fairs/errors';
@@ -19,26 +18,10 @@ import { POST as shipApi } from '../../src/routes/api/workshop/orders/[ref]/ship
 import { actions } from '../../src/routes/workshop/orders/[ref]/+page.server';
 
 const tag = `bo${process.pid}${Date.now() % 100000}`;
-const inbox = `http://127.0.0.1:${config.mail.inboxPort}/api/messages`;
-let pieceId = 0;
 let woodId = 0;
 let fairId = 0;
 let owner: { id: string; email: string; name: string; role: 'owner' };
 let helper: { id: string; role: 'helper' };
-
-async function mailTo(email: string, subject: RegExp) {
-	for (let i = 0; i < 100; i++) {
-		const list = (await (await fetch(`${inbox}?to=${encodeURIComponent(email)}`)).json()) as {
-			id: string;
-			subject: string;
-		}[];
-		const m = list.find((x) => subject.test(x.subject));
-		if (m)
-			return simpleParser(Buffer.from(await (await fetch(`${inbox}/${m.id}/raw`)).arrayBuffer()));
-		await new Promise((r) => setTimeout(r, 50));
-	}
-	throw new Error(`no mail to ${email} matching ${subject}`);
-}
 
 const boothOrder = (n: number, extra: Record<string, unknown> = {}) => ({
 	id: `${tag}-order-${n}`,
@@ -83,40 +66,12 @@ const shipJson = (ref: string) =>
 	} as unknown as Parameters<typeof shipApi>[0]);
 
 beforeAll(async () => {
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: `${tag}-wood`,
-			name: 'Test basswood',
-			botanicalName: 'Tilia americana',
-			specificGravityMilli: 370,
-			densityKgM3: 414,
-			sideHardnessN: 1800,
-			priceAddOnMinor: 0,
-			toneLight: '#f1e4c8',
-			toneDark: '#c9ae82',
-			character: 'test'
-		})
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: `${tag}-orn`,
-			title: 'Test ornament',
-			kind: 'ornament',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 75,
-			widthMm: 75,
-			thicknessMm: 6,
-			basePriceMinor: 2000,
-			personalisable: true,
-			leadDays: 10,
-			pattern: { diameterMm: 50, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
+	woodId = await testWood(`${tag}-wood`);
+	await testPiece(`${tag}-orn`, [woodId], {
+		title: 'Test ornament',
+		kind: 'ornament',
+		personalisable: true
+	});
 	const [o] = await db.select().from(s.users).where(eq(s.users.role, 'owner')).limit(1);
 	owner = { id: o.id, email: o.email, name: o.name, role: 'owner' };
 	const [h] = await db.select().from(s.users).where(eq(s.users.role, 'helper')).limit(1);

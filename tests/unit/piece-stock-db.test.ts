@@ -7,6 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
 import { pieceStock } from '../../src/lib/server/stock/piece-stock';
+import { testPiece, testWood } from './helpers/fixtures';
 import { actions } from '../../src/routes/workshop/pieces/[id]/+page.server';
 
 const tag = `st${process.pid}${Date.now() % 100000}`;
@@ -66,45 +67,13 @@ async function ledger() {
 }
 
 beforeAll(async () => {
-	const wood = (slug: string) => ({
-		slug,
-		name: `Wood ${slug}`,
-		botanicalName: 'Tilia americana',
-		specificGravityMilli: 370,
-		densityKgM3: 414,
-		sideHardnessN: 1800,
-		priceAddOnMinor: 0,
-		toneLight: '#f1e4c8',
-		toneDark: '#c9ae82',
-		character: 'test'
+	woodId = await testWood(`${tag}-a`);
+	otherWoodId = await testWood(`${tag}-b`);
+	pieceId = await testPiece(`${tag}-box`, [woodId], {
+		title: 'Test box',
+		kind: 'box',
+		personalisable: false
 	});
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values(wood(`${tag}-a`))
-		.$returningId();
-	[{ id: otherWoodId }] = await db
-		.insert(s.woods)
-		.values(wood(`${tag}-b`))
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: `${tag}-box`,
-			title: 'Test box',
-			kind: 'box',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 120,
-			widthMm: 80,
-			thicknessMm: 40,
-			basePriceMinor: 4000,
-			personalisable: false,
-			leadDays: 5,
-			pattern: { diameterMm: 50, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
 	[{ id: closedFairId }] = await db
 		.insert(s.fairs)
 		.values({
