@@ -62,6 +62,16 @@ export function daysBetween(from: string, to: string): string[] {
 	return out;
 }
 
+/**
+ * The days the owner is away ("away until" the day they are back): from `today` up to the day
+ * before `until`. Nothing when `until` is empty or already here. The start is today because an
+ * absence that began earlier only matters from now on.
+ */
+export function awayDays(today: string, until: string): string[] {
+	if (!until || until <= today) return [];
+	return daysBetween(today, addIsoDays(until, -1));
+}
+
 /** Carving minutes on one day: the weekday's hours unless the day is off. */
 export function capacityOn(iso: string, s: CarvingSchedule, off: ReadonlySet<string>): number {
 	if (off.has(iso)) return 0;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
 	addWorkshopDays,
+	awayDays,
 	daysBetween,
 	readyByFor,
 	scheduleQueue,
@@ -93,6 +94,42 @@ describe('carving queue, a week by hand', () => {
 			'2026-03-01',
 			'2026-03-02'
 		]);
+	});
+});
+
+/**
+ * The same week, worked by hand again with the owner away "until Friday 6 March" (back that
+ * day), so Wed 4 and Thu 5 give no carving. Fair on Sat 7 as before.
+ *
+ *   Fri 6  240 min: A 150 (done, 90 left) · B takes 90 (110 still to do)
+ *   Sat 7  fair, 0 · Sun 8 no hours, 0
+ *   Mon 9  240 min: B 110 (done, 130 left) · C 90 (done, 40 left) · D takes 40 (260 to do)
+ *   Tue 10 240 min: D takes 240 (20 to do)
+ *   Wed 11 240 min: D 20 (done, 220 left)
+ *
+ *   A new 45-min piece: carved Wed 11, then 2 finishing + 1 packing workshop days: Thu 12,
+ *   Fri 13, Sat 14 (Saturday has 2 h, so it is a workshop day) → ready Saturday 14 March 2026,
+ *   two days later than the 12th without the absence.
+ */
+describe('away dates move ready-by dates', () => {
+	it('counts the days from today up to the day before the return', () => {
+		expect(awayDays('2026-03-04', '2026-03-06')).toEqual(['2026-03-04', '2026-03-05']);
+		// Back today, back in the past, or no date: no day off.
+		expect(awayDays('2026-03-04', '2026-03-04')).toEqual([]);
+		expect(awayDays('2026-03-04', '2026-03-01')).toEqual([]);
+		expect(awayDays('2026-03-04', '')).toEqual([]);
+	});
+
+	it('pushes the queue and a new piece past the absence', () => {
+		const off = [...fair, ...awayDays('2026-03-04', '2026-03-06')];
+		const s = scheduleQueue(queue, week, '2026-03-04', off);
+		expect(s.map((l) => [l.key, l.carvedOn])).toEqual([
+			['A', '2026-03-06'],
+			['B', '2026-03-09'],
+			['C', '2026-03-09'],
+			['D', '2026-03-11']
+		]);
+		expect(readyByFor(740, 45, week, '2026-03-04', off)).toBe('2026-03-14');
 	});
 });
 

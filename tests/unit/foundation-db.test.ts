@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
-import { eq } from 'drizzle-orm';
+import { eq, inArray, isNotNull } from 'drizzle-orm';
 import mysql from 'mysql2/promise';
 import * as schema from '../../src/lib/server/db/schema';
 import { getTableConfig } from 'drizzle-orm/mysql-core';
@@ -14,6 +14,8 @@ import { config } from '../../src/lib/server/config';
 import { runMigrations } from '../../src/lib/server/db/migrate';
 import { seedDemo, DEMO_ACCOUNTS } from '../../src/lib/server/seed/demo';
 import { verifyPassword } from '../../src/lib/server/auth/password';
+import { carvingQueue } from '../../src/lib/server/orders/carving-queue';
+import { readyAfterCarving } from '../../src/lib/carving-queue';
 
 const mainUrl = new URL(config.db.url);
 const scratchName = `${mainUrl.pathname.slice(1)}_seed${process.pid}`;
@@ -132,9 +134,10 @@ describe('demo seed', () => {
 		}
 	});
 
-	it('has thirteen orders across every status, with sums that add up', async () => {
+	it('has fourteen orders across every status, with sums that add up', async () => {
 		const orders = await db.select().from(schema.orders);
-		expect(orders).toHaveLength(13);
+		// Thirteen online orders and one taken at the open fair with a deposit.
+		expect(orders).toHaveLength(14);
 		expect(new Set(orders.map((o) => o.status))).toEqual(new Set(schema.orderStatuses));
 		const lines = await db.select().from(schema.orderLines);
 		const shipments = await db.select().from(schema.shipments);
@@ -148,6 +151,33 @@ describe('demo seed', () => {
 			expect(o.refundedMinor).toBe(o.status === 'refunded' ? o.totalMinor : 0);
 		}
 		expect(lines.some((l) => l.personalisation?.initials)).toBe(true);
+	});
+
+	it('has a booth order with a deposit, the balance still owed, and ready-by dates from the queue', async () => {
+		const [booth] = await db
+			.select()
+			.from(schema.orders)
+			.where(isNotNull(schema.orders.depositMinor));
+		expect(booth.status).toBe('paid');
+		expect(booth.depositMinor).toBeGreaterThan(0);
+		expect(booth.depositMinor).toBeLessThan(booth.totalMinor);
+		expect(booth.balancePaidAt).toBeNull();
+		const [entry] = await db
+			.select()
+			.from(schema.boothSales)
+			.where(eq(schema.boothSales.orderId, booth.id));
+		expect(entry).toMatchObject({ kind: 'deposit', totalMinor: booth.depositMinor });
+		// Every queued order (paid or on the bench, with a line to carve) is dated by the queue.
+		const queue = await db.transaction((tx) => carvingQueue(new Date(), tx));
+		const dated = await db
+			.select({ id: schema.orders.id, readyBy: schema.orders.readyBy })
+			.from(schema.orders)
+			.where(inArray(schema.orders.id, [0, ...queue.lines.map((l) => l.orderId)]));
+		expect(dated.map((o) => o.id)).toContain(booth.id);
+		for (const o of dated) {
+			const last = queue.lines.filter((l) => l.orderId === o.id).at(-1)!;
+			expect(o.readyBy).toBe(readyAfterCarving(last.carvedOn!, queue.schedule, queue.daysOff));
+		}
 	});
 
 	it('has two closed fairs (one that does not add up) and one open fair with pieces loaded out', async () => {

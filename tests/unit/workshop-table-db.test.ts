@@ -170,7 +170,7 @@ describe('carving queue and Today', () => {
 			.where(eq(s.orders.ref, `${tag}-4`));
 		const last = q.lines.filter((l) => l.ref === `${tag}-4`).at(-1)!;
 		expect(last.carvedOn).not.toBeNull();
-		expect(o4.readyBy).toBe(readyAfterCarving(last.carvedOn!, q.schedule, q.fairDays));
+		expect(o4.readyBy).toBe(readyAfterCarving(last.carvedOn!, q.schedule, q.daysOff));
 		expect(o4.readyBy! > last.carvedOn!).toBe(true);
 	});
 });

@@ -130,6 +130,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/refund'
 	},
+	'POST /workshop/orders/[ref]?/balance': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/balance'
+	},
 	'POST /workshop/orders/[ref]?/returned': {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/returned'
@@ -158,7 +162,7 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'POST /workshop/pieces/new': ownerAction,
 	'GET /workshop/pieces/[id]': { ...ownerOnly, url: (f) => `/workshop/pieces/${f.pieceId}` },
 	...Object.fromEntries(
-		['alt', 'deletePhoto', 'move', 'restore', 'retire', 'save'].map((a) => [
+		['alt', 'deletePhoto', 'move', 'restore', 'retire', 'save', 'stock'].map((a) => [
 			`POST /workshop/pieces/[id]?/${a}`,
 			{ ...ownerAction, url: `/workshop/pieces/${NO_PIECE}?/${a}` }
 		])

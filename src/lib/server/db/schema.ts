@@ -197,6 +197,10 @@ export type Address = {
 	country: string;
 };
 
+/** How the rest of a deposit order was paid (at a fair, by post, at the door). */
+export const balanceMethods = ['cash', 'card', 'transfer', 'other'] as const;
+export type BalanceMethod = (typeof balanceMethods)[number];
+
 export const orders = mysqlTable(
 	'orders',
 	{
@@ -220,6 +224,9 @@ export const orders = mysqlTable(
 		paymentIntentId: varchar('payment_intent_id', { length: 255 }),
 		/** Part paid up front (a booth order's deposit); the rest is due before it ships. */
 		depositMinor: int('deposit_minor'),
+		/** When the rest after a deposit was paid, and how; null while it is still owed. */
+		balancePaidAt: datetime('balance_paid_at'),
+		balanceMethod: mysqlEnum('balance_method', balanceMethods),
 		refundedMinor: int('refunded_minor').notNull().default(0),
 		readyBy: date('ready_by', { mode: 'string' }),
 		holdExpiresAt: datetime('hold_expires_at'),

@@ -1,26 +1,25 @@
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db';
-import { boothSales, orderHistory, orderLines, orders, pieces, pieceWoods, woods, type Role } from '../db/schema';
+import { boothSales, pieces, pieceWoods, woods, type Role } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
-import { personalise } from '../personalise';
-import { personalisedPriceMinor } from '$lib/personalised-price';
-import { priceSale } from '$lib/reconcile';
+import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
+import { afterBoothOrder } from '../orders/booth-mail';
+import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/schemas/fairs';
 import { FairError } from './errors';
 import { fairStateShared } from './fairs';
-import { uniqueRef } from '../orders/place';
-
 
 /**
- * A personalised piece ordered at the booth: one `orders` row (status 'paid', the deposit in
- * `deposit_minor`, the rest to pay before it ships), one `order_lines` row with the server's own
- * personalisation snapshot, and a booth entry of kind 'deposit' under the phone's id so the
- * deposit counts in the tally's cash or card and a resend stores nothing new.
+ * A personalised piece ordered at the booth: the orders module writes the order (paid in part,
+ * the rest owed before it ships), and beside it a booth entry of kind 'deposit' under the phone's
+ * id, so the deposit counts in the tally's cash or card and a resend stores nothing new. After
+ * the commit the queue dates the order and the buyer gets a confirmation.
  */
 export async function placeBoothOrder(
 	fairId: number,
 	o: BoothOrder,
-	seller: { id: string; role: Role }
+	seller: { id: string; role: Role },
+	origin?: string
 ) {
 	const [row] = await db
 		.select({ piece: pieces, wood: woods })
@@ -29,27 +28,14 @@ export async function placeBoothOrder(
 		.innerJoin(woods, eq(woods.id, pieceWoods.woodId))
 		.where(and(eq(pieces.slug, o.pieceSlug), eq(woods.slug, o.woodSlug)));
 	if (!row) throw new FairError(`${o.pieceSlug} is not made in ${o.woodSlug}.`);
-	if (!row.piece.personalisable) throw new FairError(`${row.piece.title} is not carved to order.`);
-	const made = personalise(row.piece, row.wood, { initials: o.initials });
-	if (!made.ok)
-		throw new FairError(Object.values(made.fields)[0]?.[0] ?? 'Those initials do not fit.');
-	const unit = personalisedPriceMinor(row.piece.basePriceMinor, row.wood.priceAddOnMinor);
 
+	let placed: { id: number; ref: string; totalMinor: number; fairName: string };
 	try {
-		return await withRetry(() =>
+		placed = await withRetry(() =>
 			db.transaction(async (tx) => {
 				const fair = await fairStateShared(tx, fairId);
 				if (fair.closedAt)
 					throw new FairError(`${fair.name} is closed; it takes no more orders.`, 409);
-				const priced = priceSale(
-					[{ unitMinor: unit, quantity: 1 }],
-					0,
-					fair.salesTaxBp,
-					fair.pricesIncludeTax
-				);
-				if (o.depositMinor > priced.totalMinor) {
-					throw new FairError('The deposit is more than the order’s total.');
-				}
 				const now = new Date();
 				// The booth entry goes in first: a resend waits on its key, then fails as a duplicate.
 				await tx.insert(boothSales).values({
@@ -64,61 +50,32 @@ export async function placeBoothOrder(
 					receivedAt: now,
 					recordedBy: seller.id
 				});
-				const [{ id: orderId }] = await tx
-					.insert(orders)
-					.values({
-						ref: await uniqueRef(tx),
+				const order = await placeOrderFromBooth(tx, {
+					piece: row.piece,
+					wood: row.wood,
+					initials: o.initials,
+					buyer: {
+						name: o.name,
 						email: o.email,
-						buyerName: o.name,
 						address: {
 							line1: o.line1,
 							city: o.city,
-							region: o.region,
+							...(o.region ? { region: o.region } : {}),
 							postcode: o.postcode,
 							country: o.country
-						},
-						giftNote: `Ordered at ${fair.name}`.slice(0, 500),
-						currency: fair.currency,
-						subtotalMinor: priced.taxableMinor,
-						shippingMinor: 0,
-						taxMinor: priced.taxMinor,
-						totalMinor: priced.totalMinor,
-						depositMinor: o.depositMinor,
-						status: 'paid',
-						createdAt: now,
-						paidAt: now
-					})
-					.$returningId();
-				await tx.insert(orderLines).values({
-					orderId,
-					pieceId: row.piece.id,
-					woodId: row.wood.id,
-					title: row.piece.title,
-					woodName: row.wood.name,
-					quantity: 1,
-					// Net of tax, so the order's lines add up to its subtotal as online orders do.
-					unitPriceMinor: priced.taxableMinor,
-					lineTotalMinor: priced.taxableMinor,
-					personalisation: made.snapshot
+						}
+					},
+					fair,
+					depositMinor: o.depositMinor,
+					takenBy: seller.id,
+					now
 				});
-				// Born paid (the deposit is in hand); its history says where and by whom.
-				await tx.insert(orderHistory).values({
-					orderId,
-					fromStatus: 'pending',
-					toStatus: 'paid',
-					userId: seller.id,
-					reason: `Ordered at ${fair.name}; deposit taken`.slice(0, 500),
-					createdAt: now
-				});
-				await tx.update(boothSales).set({ orderId }).where(eq(boothSales.id, o.id));
-				const [{ ref }] = await tx
-					.select({ ref: orders.ref })
-					.from(orders)
-					.where(eq(orders.id, orderId));
-				return { status: 'accepted' as const, ref, totalMinor: priced.totalMinor };
+				await tx.update(boothSales).set({ orderId: order.id }).where(eq(boothSales.id, o.id));
+				return { ...order, fairName: fair.name };
 			})
 		);
 	} catch (err) {
+		if (err instanceof OrderError) throw new FairError(err.message, 400);
 		if (isDuplicateKey(err)) {
 			const [seen] = await db
 				.select({ id: boothSales.id })
@@ -128,4 +85,6 @@ export async function placeBoothOrder(
 		}
 		throw err;
 	}
+	await afterBoothOrder(placed.id, placed.fairName, origin);
+	return { status: 'accepted' as const, ref: placed.ref, totalMinor: placed.totalMinor };
 }

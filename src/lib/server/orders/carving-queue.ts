@@ -7,6 +7,7 @@
 import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import {
+	awayDays,
 	daysBetween,
 	DEFAULT_SCHEDULE,
 	isoDay,
@@ -28,6 +29,7 @@ import {
 } from '../db/schema';
 import { jsonValue } from '../json-column';
 import { snapshotInput } from '$lib/pattern/snapshot';
+import { getAway } from '../shop-settings';
 
 const KEY = 'carvingSchedule';
 const minutes = z
@@ -137,21 +139,26 @@ export type QueueView = Awaited<ReturnType<typeof carvingQueue>>;
 /** The queue with the day each line should be carved, for the "Today" page. */
 export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
 	const today = isoDay(now);
-	const [lines, schedule, fairOff] = await Promise.all([
+	const [lines, schedule, fairOff, away] = await Promise.all([
 		queueLines(conn),
 		getCarvingSchedule(conn),
-		fairDays(today, conn)
+		fairDays(today, conn),
+		getAway(conn)
 	]);
+	// Fair days and the owner's away days are both days with no carving.
+	const daysOff = [...new Set([...fairOff, ...awayDays(today, away.until)])].sort();
 	const planned = scheduleQueue(
 		lines.map((l) => ({ key: l, minutes: l.minutes })),
 		schedule,
 		today,
-		fairOff
+		daysOff
 	);
 	return {
 		today,
 		schedule,
 		fairDays: fairOff,
+		awayUntil: away.until,
+		daysOff,
 		totalMinutes: lines.reduce((s, l) => s + l.minutes, 0),
 		lines: planned.map((p) => ({ ...p.key, carvedOn: p.carvedOn }))
 	};
@@ -160,15 +167,15 @@ export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
 /**
  * Gives every order in the queue its ready-by date from its place in it: the day its last line
  * is carved, plus finishing and packing. Run when the queue changes (a payment, a move off the
- * bench, new carving hours). Orders of ready-made pieces are left as they are.
+ * bench, new carving hours, new away dates). Orders of ready-made pieces are left as they are.
  */
-export async function recomputeReadyBy(now = new Date()) {
-	const q = await carvingQueue(now);
+export async function recomputeReadyBy(now = new Date(), conn: Db | Tx = db) {
+	const q = await carvingQueue(now, conn);
 	const lastDay = new Map<number, string | null>();
 	for (const l of q.lines) lastDay.set(l.orderId, l.carvedOn);
 	for (const [orderId, carvedOn] of lastDay) {
-		const readyBy = carvedOn ? readyAfterCarving(carvedOn, q.schedule, q.fairDays) : null;
-		await db.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
+		const readyBy = carvedOn ? readyAfterCarving(carvedOn, q.schedule, q.daysOff) : null;
+		await conn.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
 	}
 	return lastDay.size;
 }
@@ -180,7 +187,7 @@ export async function queueOutlook(now = new Date()) {
 		today: q.today,
 		minutesAhead: q.totalMinutes,
 		schedule: q.schedule,
-		extraDaysOff: q.fairDays
+		extraDaysOff: q.daysOff
 	};
 }
 export type QueueOutlook = Awaited<ReturnType<typeof queueOutlook>>;

@@ -3,6 +3,8 @@ import { db, type Db, type Tx } from '../db';
 import { inTx } from '../db/retry';
 import { orderHistory, orderLines, orders } from '../db/schema';
 import { canMove, statusLabel, type OrderStatus } from '$lib/order-status';
+import { orderBalance } from '$lib/order-balance';
+import { formatMoney } from '$lib/money';
 
 /** A move the status table does not allow; the message is for a person, the status for HTTP. */
 export class StatusMoveError extends Error {
@@ -39,7 +41,16 @@ export async function moveOrder(
 ): Promise<{ from: OrderStatus; to: OrderStatus }> {
 	return inTx(tx, async (t) => {
 		const [order] = await t
-			.select({ id: orders.id, ref: orders.ref, status: orders.status })
+			.select({
+				id: orders.id,
+				ref: orders.ref,
+				status: orders.status,
+				currency: orders.currency,
+				totalMinor: orders.totalMinor,
+				depositMinor: orders.depositMinor,
+				balancePaidAt: orders.balancePaidAt,
+				paidAt: orders.paidAt
+			})
 			.from(orders)
 			.where(eq(orders.id, orderId))
 			.for('update');
@@ -48,6 +59,13 @@ export async function moveOrder(
 		if (!canMove(from, to, { needsCarving: await needsCarving(t, orderId) })) {
 			throw new StatusMoveError(
 				`Order ${order.ref} is “${statusLabel(from)}” and cannot move to “${statusLabel(to)}”.`
+			);
+		}
+		// A deposit order ships only once the rest is paid (the parcel is the last leverage).
+		const owed = orderBalance(order).balanceMinor;
+		if (to === 'shipped' && owed > 0) {
+			throw new StatusMoveError(
+				`Order ${order.ref} still has ${formatMoney(owed, order.currency)} to pay. Record the balance as paid before it ships.`
 			);
 		}
 		await t

@@ -1,6 +1,8 @@
 import type { MySql2Database } from 'drizzle-orm/mysql2';
 import type * as schema from '../db/schema';
 import { demoPhotos } from './photos';
+import { demoReadyBy } from './ready-by';
+import { demoBoothOrder } from './fairs';
 
 export type SeedDb = MySql2Database<typeof schema>;
 
@@ -21,4 +23,5 @@ export type DemoExtra = {
  * uploaded to the S3 stand-in, for instance). Add a step here; a failing step is reported and
  * does not undo the demo data.
  */
-export const demoExtras: DemoExtra[] = [demoPhotos];
+// The booth order joins the carving queue, so it comes before the queue dates the orders.
+export const demoExtras: DemoExtra[] = [demoPhotos, demoBoothOrder, demoReadyBy];

@@ -11,7 +11,7 @@ import { and, eq } from 'drizzle-orm';
 import * as schema from '../db/schema';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { priceSale } from '../../reconcile';
-import type { SeedDb } from './extras';
+import type { DemoExtra, SeedDb } from './extras';
 
 type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
 type Ids = {
@@ -292,3 +292,62 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 		await tx.update(schema.fairs).set({ closedAt: closeAt }).where(eq(schema.fairs.id, id));
 	}
 }
+
+/**
+ * At the open Riverbank Winter Market a buyer ordered a keepsake box in cherry with her initials
+ * and left a cash deposit: the orders module writes it as the booth would, so the workshop shows
+ * a deposit order with the balance still to pay. Runs after the demo is committed (the orders
+ * module uses the `$lib` alias, loaded when it runs), before the queue dates the orders.
+ */
+export const demoBoothOrder: DemoExtra = {
+	name: 'a booth order with a deposit',
+	run: async (db, seeded) => {
+		const { placeBoothOrder } = await import('../orders/booth');
+		const [fair] = await db
+			.select()
+			.from(schema.fairs)
+			.where(eq(schema.fairs.name, 'Riverbank Winter Market'));
+		if (!fair) return;
+		const [piece] = await db
+			.select()
+			.from(schema.pieces)
+			.where(eq(schema.pieces.id, seeded.pieceIds['keepsake-box']));
+		const [wood] = await db
+			.select()
+			.from(schema.woods)
+			.where(eq(schema.woods.id, seeded.woodIds['cherry']));
+		const helper = seeded.userIds['wren@chipstall.test'] ?? null;
+		const at = new Date(Date.now() - 2 * 3600_000);
+		const deposit = 2000;
+		await db.transaction(async (tx) => {
+			const order = await placeBoothOrder(tx, {
+				piece,
+				wood,
+				initials: 'MQ',
+				buyer: {
+					name: 'Marisol Quill',
+					email: 'marisol.quill@example.test',
+					address: { line1: '14 Ferry Lane', city: 'Linden Ford', postcode: '80344', country: 'US' }
+				},
+				fair,
+				depositMinor: deposit,
+				takenBy: helper,
+				now: at
+			});
+			// The deposit counts in the fair's cash box like the booth's own entry would.
+			await tx.insert(schema.boothSales).values({
+				id: 'demo-riverbank-deposit-1',
+				fairId: fair.id,
+				kind: 'deposit',
+				method: 'cash',
+				lines: [],
+				subtotalMinor: deposit,
+				totalMinor: deposit,
+				soldAt: at,
+				receivedAt: at,
+				recordedBy: helper,
+				orderId: order.id
+			});
+		});
+	}
+};

@@ -13,6 +13,7 @@ import {
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
 import { away, policies, rateLine, shopInfo } from '$lib/schemas/settings';
 import { formatRates, parseRates } from './rates-text';
+import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
 import { formText } from '$lib/form-text';
 
@@ -89,6 +90,8 @@ export const actions: Actions = {
 		if (!parsed.success)
 			return fail(400, { section: 'away', errors: fieldErrors(parsed.error.issues) });
 		await setAway(parsed.data);
+		// Away days are days off for the carving queue: every queued order's date moves.
+		await recomputeReadyBy();
 		return { saved: 'away' };
 	},
 	policies: async (event) => {

@@ -8,6 +8,8 @@ import { isBenchMove } from '$lib/bench-moves';
 import { moveSchema, noteSchema } from '$lib/schemas/order-actions';
 import { shipmentSchema } from '$lib/schemas/shipment';
 import { refundFormSchema } from '$lib/schemas/refund';
+import { balanceSchema } from '$lib/schemas/balance';
+import { recordBalancePaid } from '$lib/server/orders/balance';
 import { fieldErrors } from '$lib/schemas/cart';
 import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
 import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
@@ -117,6 +119,19 @@ export const actions: Actions = {
 			return { form: 'returned', done: 'The ready-made pieces are back on the workshop shelf.' };
 		} catch (err) {
 			return refused(err, 'returned');
+		}
+	},
+
+	balance: async (event) => {
+		const user = requireRole(event, 'owner');
+		const parsed = balanceSchema.safeParse(await formTexts(event.request));
+		if (!parsed.success)
+			return fail(400, { form: 'balance', error: parsed.error.issues[0].message });
+		try {
+			await recordBalancePaid(event.params.ref, parsed.data.method, { userId: user.id });
+			return { form: 'balance', done: 'Balance recorded as paid. The order can ship.' };
+		} catch (err) {
+			return refused(err, 'balance');
 		}
 	},
 

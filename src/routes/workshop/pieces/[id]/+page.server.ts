@@ -15,6 +15,10 @@ import {
 	setPhotoAlt
 } from '$lib/server/catalogue/photos';
 import { photoAlt } from '$lib/schemas/photo';
+import { stockAdjustForm, stockDelta } from '$lib/schemas/stock';
+import { fieldErrors } from '$lib/schemas/cart';
+import { formTexts } from '$lib/form-text';
+import { adjustPieceStock, pieceStock, StockChangeError } from '$lib/server/stock/piece-stock';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -50,9 +54,14 @@ async function withPhoto<S extends z.ZodType>(
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'owner');
 	const id = pieceId(event.params.id);
-	const [piece, woods, photos] = await Promise.all([pieceForEdit(id), allWoods(), listPhotos(id)]);
+	const [piece, woods, photos, stock] = await Promise.all([
+		pieceForEdit(id),
+		allWoods(),
+		listPhotos(id),
+		pieceStock(id)
+	]);
 	if (!piece) error(404, 'There is no such piece.');
-	return { piece, woods, photos, created: event.url.searchParams.has('created') };
+	return { piece, woods, photos, stock, created: event.url.searchParams.has('created') };
 };
 
 export const actions: Actions = {
@@ -92,5 +101,30 @@ export const actions: Actions = {
 		requireRole(event, 'owner');
 		const id = pieceId(event.params.id);
 		return withPhoto(event.request, photoAction, (p) => deletePhoto(id, p.photoId));
+	},
+	stock: async (event) => {
+		const user = requireRole(event, 'owner');
+		const id = pieceId(event.params.id);
+		const values = await formTexts(event.request);
+		const parsed = stockAdjustForm.safeParse(values);
+		if (!parsed.success) {
+			return fail(400, { stockErrors: fieldErrors(parsed.error), stockValues: values });
+		}
+		const { woodId, place, reason } = parsed.data;
+		try {
+			const r = await adjustPieceStock(
+				id,
+				{ woodId, place, reason, delta: stockDelta(parsed.data) },
+				user.id
+			);
+			return { stockSaved: r.quantity };
+		} catch (err) {
+			if (!(err instanceof StockChangeError)) throw err;
+			if (err.status === 404) error(404, err.message);
+			return fail(err.status, {
+				stockErrors: { [err.field ?? 'form']: [err.message] },
+				stockValues: values
+			});
+		}
 	}
 };

@@ -18,7 +18,7 @@ export const POST: RequestHandler = async (event) => {
 			for (const i of parsed.error.issues) (fields[String(i.path[0])] ??= []).push(i.message);
 			return apiError(400, parsed.error.issues[0].message, fields);
 		}
-		return json(await placeBoothOrder(fairId, parsed.data, user));
+		return json(await placeBoothOrder(fairId, parsed.data, user, event.url.origin));
 	} catch (err) {
 		if (err instanceof FairError) return apiError(err.status, err.message);
 		throw err;

@@ -1,0 +1,49 @@
+/**
+ * The rest of a deposit order, paid: the owner records when and how, the order's history says so,
+ * and from then on it may ship. Locks the order row so two clicks record it once.
+ */
+import { eq } from 'drizzle-orm';
+import { formatMoney } from '$lib/money';
+import { orderBalance } from '$lib/order-balance';
+import { transact } from '../db/retry';
+import { orderHistory, orders, type BalanceMethod } from '../db/schema';
+import { OrderNotFoundError } from './ship';
+import { StatusMoveError } from './status';
+
+const METHOD_WORDS: Record<BalanceMethod, string> = {
+	cash: 'in cash',
+	card: 'by card',
+	transfer: 'by bank transfer',
+	other: 'another way'
+};
+
+export async function recordBalancePaid(
+	ref: string,
+	method: BalanceMethod,
+	by: { userId: string },
+	now = new Date()
+) {
+	return transact(async (tx) => {
+		const [order] = await tx.select().from(orders).where(eq(orders.ref, ref)).for('update');
+		if (!order) throw new OrderNotFoundError(ref);
+		const owed = orderBalance(order).balanceMinor;
+		if (owed === 0) throw new StatusMoveError(`Order ${ref} has nothing left to pay.`);
+		if (order.status === 'cancelled' || order.status === 'refunded')
+			throw new StatusMoveError(`Order ${ref} is ${order.status}; there is no balance to take.`);
+		const at = new Date(Math.floor(now.getTime() / 1000) * 1000);
+		await tx
+			.update(orders)
+			.set({ balancePaidAt: at, balanceMethod: method })
+			.where(eq(orders.id, order.id));
+		const words = `Balance of ${formatMoney(owed, order.currency)} paid ${METHOD_WORDS[method]}`;
+		await tx.insert(orderHistory).values({
+			orderId: order.id,
+			fromStatus: order.status,
+			toStatus: order.status,
+			userId: by.userId,
+			reason: words,
+			createdAt: at
+		});
+		return { ref, paidMinor: owed, method };
+	});
+}

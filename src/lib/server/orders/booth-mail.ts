@@ -1,0 +1,66 @@
+/**
+ * The buyer's confirmation for an order taken at a fair: what will be carved, the deposit taken,
+ * what is left to pay before it ships, and the signed link to follow it. Plain text and HTML carry
+ * the same facts. Sent through the outbox like every other message.
+ */
+import { formatMoney } from '$lib/money';
+import { orderBalance } from '$lib/order-balance';
+import { sendMail } from '../mail';
+import { esc, mailButton, mailPage } from '../mail-html';
+import { afterOrderPaid } from './paid-alert';
+import { orderLink } from './links';
+import { readyByWords } from './mail';
+import { orderById, type OrderDetail } from './views';
+
+export function boothOrderMail(order: OrderDetail, where: string, origin?: string) {
+	const money = (m: number) => formatMoney(m, order.currency);
+	const b = orderBalance(order);
+	const link = orderLink(order.ref, origin);
+	const lines = order.lines.map(
+		(l) =>
+			`${l.quantity} × ${l.title} in ${l.woodName}${l.personalisation ? `, initials ${l.personalisation.initials}` : ''}`
+	);
+	const facts: [string, string][] = [
+		['Total', money(order.totalMinor)],
+		['Deposit paid', money(b.depositMinor ?? 0)],
+		['Left to pay before it ships', money(b.balanceMinor)]
+	];
+	const rest =
+		b.balanceMinor > 0
+			? `We will be in touch to settle the ${money(b.balanceMinor)} left before we post it.`
+			: 'It is paid in full.';
+	const text = [
+		`Thank you, ${order.buyerName}.`,
+		'',
+		`Hollis took your order ${order.ref} at ${where}:`,
+		...lines.map((l) => `   ${l}`),
+		'',
+		...facts.map(([k, v]) => `${k}: ${v}`),
+		'',
+		`It should be ready to post by ${readyByWords(order.readyBy)}. ${rest}`,
+		'',
+		`See your order at any time: ${link}`
+	].join('\n');
+	const html = mailPage(`<p>Thank you, ${esc(order.buyerName)}.</p>
+<p>Hollis took your order <strong>${esc(order.ref)}</strong> at ${esc(where)}:</p>
+<ul>${lines.map((l) => `<li>${esc(l)}</li>`).join('')}</ul>
+<table>${facts.map(([k, v]) => `<tr><td style="padding:2px 12px 2px 0">${esc(k)}</td><td style="text-align:right"><strong>${esc(v)}</strong></td></tr>`).join('')}</table>
+<p>It should be ready to post by <strong>${esc(readyByWords(order.readyBy))}</strong>. ${esc(rest)}</p>
+${mailButton(link, 'See your order')}`);
+	return { subject: `Order ${order.ref}: your order from ${where}`, text, html };
+}
+
+/**
+ * After a booth order is committed: the queue dates it (and the workshop hears of it, as for any
+ * paid order), then the buyer gets the confirmation. A failed e-mail stays in the outbox and
+ * never undoes the order.
+ */
+export async function afterBoothOrder(orderId: number, fairName: string, origin?: string) {
+	await afterOrderPaid(orderId, origin ?? '');
+	try {
+		const order = await orderById(orderId);
+		if (order) await sendMail({ to: order.email, ...boothOrderMail(order, fairName, origin) });
+	} catch (err) {
+		console.error('booth order e-mail failed', orderId, err);
+	}
+}

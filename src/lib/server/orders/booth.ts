@@ -1,0 +1,109 @@
+/**
+ * An order taken at a fair's booth for a piece carved to order: the orders module writes it like
+ * any other order (the order row, its line with the server's own personalisation snapshot, and
+ * its history), paid in part: the deposit taken at the booth, the rest owed before it ships.
+ * The caller (the booth) owns the transaction, so its own entry for the deposit and this order
+ * are stored together or not at all.
+ */
+import type { Tx } from '../db';
+import { orderHistory, orderLines, orders, type Address } from '../db/schema';
+import { personalise } from '../personalise';
+import { personalisedPriceMinor } from '$lib/personalised-price';
+import { priceSale } from '$lib/reconcile';
+import { OrderError, uniqueRef } from './place';
+
+export type BoothOrderInput = {
+	piece: {
+		id: number;
+		title: string;
+		personalisable: boolean;
+		basePriceMinor: number;
+		pattern: unknown;
+		widthMm: number;
+		lengthMm: number;
+		thicknessMm: number;
+	};
+	wood: {
+		id: number;
+		name: string;
+		slug: string;
+		priceAddOnMinor: number;
+		toneLight: string;
+		toneDark: string;
+	};
+	initials: string;
+	buyer: { name: string; email: string; address: Address };
+	/** Where it was taken: the fair's name, currency and sales tax. */
+	fair: { name: string; currency: string; salesTaxBp: number; pricesIncludeTax: boolean };
+	depositMinor: number;
+	takenBy: string | null;
+	now?: Date;
+};
+
+/**
+ * Writes the booth order; returns its id, reference and total. Refuses (OrderError 400) a piece
+ * that is not carved to order, initials that do not fit, or a deposit above the total.
+ */
+export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
+	if (!o.piece.personalisable)
+		throw new OrderError(`${o.piece.title} is not carved to order.`, 400);
+	const made = personalise(o.piece, o.wood, { initials: o.initials });
+	if (!made.ok)
+		throw new OrderError(Object.values(made.fields)[0]?.[0] ?? 'Those initials do not fit.', 400);
+	const unit = personalisedPriceMinor(o.piece.basePriceMinor, o.wood.priceAddOnMinor);
+	const priced = priceSale(
+		[{ unitMinor: unit, quantity: 1 }],
+		0,
+		o.fair.salesTaxBp,
+		o.fair.pricesIncludeTax
+	);
+	if (o.depositMinor > priced.totalMinor) {
+		throw new OrderError('The deposit is more than the order’s total.', 400);
+	}
+	const now = o.now ?? new Date();
+	const ref = await uniqueRef(tx);
+	const [{ id }] = await tx
+		.insert(orders)
+		.values({
+			ref,
+			email: o.buyer.email,
+			buyerName: o.buyer.name,
+			address: o.buyer.address,
+			giftNote: `Ordered at ${o.fair.name}`.slice(0, 500),
+			currency: o.fair.currency,
+			subtotalMinor: priced.taxableMinor,
+			shippingMinor: 0,
+			taxMinor: priced.taxMinor,
+			totalMinor: priced.totalMinor,
+			depositMinor: o.depositMinor,
+			// A deposit of the whole total leaves nothing owed: the balance is paid with it.
+			balancePaidAt: o.depositMinor === priced.totalMinor ? now : null,
+			status: 'paid',
+			createdAt: now,
+			paidAt: now
+		})
+		.$returningId();
+	await tx.insert(orderLines).values({
+		orderId: id,
+		pieceId: o.piece.id,
+		woodId: o.wood.id,
+		title: o.piece.title,
+		woodName: o.wood.name,
+		quantity: 1,
+		// Net of tax, so the order's lines add up to its subtotal as online orders do.
+		unitPriceMinor: priced.taxableMinor,
+		lineTotalMinor: priced.taxableMinor,
+		fromStock: false,
+		personalisation: made.snapshot
+	});
+	// Born paid in part (the deposit is in hand); its history says where and by whom.
+	await tx.insert(orderHistory).values({
+		orderId: id,
+		fromStatus: 'pending',
+		toStatus: 'paid',
+		userId: o.takenBy,
+		reason: `Ordered at ${o.fair.name}; deposit taken`.slice(0, 500),
+		createdAt: now
+	});
+	return { id, ref, totalMinor: priced.totalMinor };
+}
