@@ -255,6 +255,13 @@ describe('payment events', () => {
 		expect(await shelf()).toBe(1);
 		const [row] = await db.select().from(s.orders).where(eq(s.orders.id, order.id));
 		expect(row.status).toBe('cancelled');
+		// The hold and its release are in the piece's stock history, each naming the order.
+		const history = await db
+			.select({ delta: s.stockAdjustments.delta, reason: s.stockAdjustments.reason })
+			.from(s.stockAdjustments)
+			.where(and(eq(s.stockAdjustments.pieceId, pieceId), eq(s.stockAdjustments.woodId, woodId)));
+		const ofOrder = history.filter((h) => h.reason.includes(order.ref));
+		expect(ofOrder.map((h) => h.delta).sort()).toEqual([-1, 1]);
 
 		const late = await createPendingOrder(
 			await newCart(1),

@@ -6,7 +6,7 @@
 import { and, eq, inArray, isNotNull, lt, sql } from 'drizzle-orm';
 import { db, type Tx } from '../db';
 import { transact } from '../db/retry';
-import { orderLines, orders, stock, WORKSHOP } from '../db/schema';
+import { orderLines, orders, stock, stockAdjustments, WORKSHOP } from '../db/schema';
 import { moveOrder } from './status';
 import { config } from '../config';
 import { startOncePerInterval } from '../jobs/once-per-interval';
@@ -45,11 +45,29 @@ async function lockShelf(tx: Tx, wants: Want[]) {
 		.for('update');
 }
 
+/** Every change of stock leaves an adjustment row with its reason, as the owner's own do. */
+async function logAdjustments(tx: Tx, wants: Want[], sign: 1 | -1, reason: string) {
+	if (wants.length === 0) return;
+	const createdAt = new Date();
+	await tx.insert(stockAdjustments).values(
+		wants.map((w) => ({
+			pieceId: w.pieceId,
+			woodId: w.woodId,
+			place: WORKSHOP,
+			delta: sign * w.quantity,
+			reason: reason.slice(0, 160),
+			userId: null,
+			createdAt
+		}))
+	);
+}
+
 /**
  * Takes every wanted piece off the shelf, or none: returns the first line that is short (and
- * changes nothing) when the shelf cannot cover them all. Never takes stock below zero.
+ * changes nothing) when the shelf cannot cover them all. Never takes stock below zero. `reason`
+ * goes on the adjustment rows (which order took them).
  */
-export async function takeStock(tx: Tx, wants: Want[]): Promise<Want | null> {
+export async function takeStock(tx: Tx, wants: Want[], reason: string): Promise<Want | null> {
 	const rows = await lockShelf(tx, wants);
 	const need = new Map<number, number>();
 	for (const w of wants) {
@@ -64,11 +82,12 @@ export async function takeStock(tx: Tx, wants: Want[]): Promise<Want | null> {
 			.set({ quantity: sql`${stock.quantity} - ${qty}` })
 			.where(eq(stock.id, id));
 	}
+	await logAdjustments(tx, wants, -1, reason);
 	return null;
 }
 
 /** Puts pieces back on the shelf (a shelf row is made if the owner deleted it meanwhile). */
-export async function putBackStock(tx: Tx, wants: Want[]) {
+export async function putBackStock(tx: Tx, wants: Want[], reason: string) {
 	const rows = await lockShelf(tx, wants);
 	for (const w of wants) {
 		const row = rows.find((r) => r.pieceId === w.pieceId && r.woodId === w.woodId);
@@ -81,6 +100,7 @@ export async function putBackStock(tx: Tx, wants: Want[]) {
 			await tx.insert(stock).values({ ...w, place: WORKSHOP });
 		}
 	}
+	await logAdjustments(tx, wants, 1, reason);
 }
 
 /** The finished pieces an order holds (or needs to hold). */
@@ -101,12 +121,12 @@ export async function heldLines(tx: Tx, orderId: number): Promise<Want[]> {
  */
 export async function releaseInTx(tx: Tx, orderId: number, why: string): Promise<boolean> {
 	const [order] = await tx
-		.select({ status: orders.status })
+		.select({ status: orders.status, ref: orders.ref })
 		.from(orders)
 		.where(eq(orders.id, orderId))
 		.for('update');
 	if (!order || order.status !== 'pending') return false;
-	await putBackStock(tx, await heldLines(tx, orderId));
+	await putBackStock(tx, await heldLines(tx, orderId), `Hold of ${order.ref} released: ${why}`);
 	await moveOrder(orderId, 'cancelled', { userId: null, why }, tx, { holdExpiresAt: null });
 	return true;
 }

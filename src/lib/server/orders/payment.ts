@@ -219,7 +219,11 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 			paidAt: now
 		};
 		if (order.status === 'cancelled') {
-			const short = await takeStock(tx, await heldLines(tx, order.id));
+			const short = await takeStock(
+				tx,
+				await heldLines(tx, order.id),
+				`Taken again for ${order.ref}, paid after its hold lapsed`
+			);
 			if (short) {
 				await moveOrder(
 					order.id,

@@ -108,9 +108,11 @@ export async function createPendingOrder(
 			);
 		}
 
+		const ref = await uniqueRef(tx);
 		const short = await takeStock(
 			tx,
-			priced.lines.filter((l) => l.fromStock)
+			priced.lines.filter((l) => l.fromStock),
+			`Held for ${ref} while the buyer pays`
 		);
 		if (short) {
 			const line = priced.lines.find(
@@ -119,7 +121,6 @@ export async function createPendingOrder(
 			throw new OrderError(`${line.title} in ${line.woodName} has just sold out.`, 409, 'stock');
 		}
 
-		const ref = await uniqueRef(tx);
 		const holdExpiresAt = new Date(now.getTime() + HOLD_MINUTES * 60_000);
 		const [{ id }] = await tx
 			.insert(orders)

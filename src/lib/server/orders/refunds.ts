@@ -196,9 +196,11 @@ async function restockOnce(tx: Tx, orderId: number, refundRowId: number) {
 		.select()
 		.from(orderLines)
 		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, true)));
+	const [order] = await tx.select({ ref: orders.ref }).from(orders).where(eq(orders.id, orderId));
 	await putBackStock(
 		tx,
-		lines.map((l) => ({ pieceId: l.pieceId, woodId: l.woodId, quantity: l.quantity }))
+		lines.map((l) => ({ pieceId: l.pieceId, woodId: l.woodId, quantity: l.quantity })),
+		`Came back from ${order?.ref ?? `order ${orderId}`} after a refund`
 	);
 	await tx.update(orderRefunds).set({ restocked: true }).where(eq(orderRefunds.id, refundRowId));
 }
