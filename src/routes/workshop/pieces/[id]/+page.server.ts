@@ -15,6 +15,7 @@ import {
 	setPhotoAlt
 } from '$lib/server/catalogue/photos';
 import { photoAlt } from '$lib/schemas/photo';
+import { firstError, parseForm } from '$lib/forms';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -34,10 +35,8 @@ async function withPhoto<S extends z.ZodType>(
 	schema: S,
 	run: (p: z.infer<S>) => Promise<void>
 ) {
-	const parsed = schema.safeParse(Object.fromEntries(await request.formData()));
-	if (!parsed.success) {
-		return fail(400, { photoError: parsed.error.issues[0].message });
-	}
+	const parsed = await parseForm(request, schema);
+	if (!parsed.ok) return fail(400, { photoError: firstError(parsed.errors) });
 	try {
 		await run(parsed.data);
 	} catch (err) {
