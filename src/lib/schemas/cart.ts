@@ -47,4 +47,3 @@ export const destinationSchema = z.object({
 		.toUpperCase()
 		.regex(/^[A-Z]{2}$/, 'Choose a country.')
 });
-

@@ -31,4 +31,3 @@ export function requireRoleApi(event: GuardEvent, ...allowed: Role[]) {
 }
 
 export const WORKSHOP_STAFF: Role[] = ['owner', 'helper'];
-

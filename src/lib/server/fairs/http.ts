@@ -28,4 +28,3 @@ export async function orFail<T>(run: () => Promise<T>) {
 		throw err;
 	}
 }
-
