@@ -6,7 +6,6 @@
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from './db';
 import { settings, type Address } from './db/schema';
-import { jsonValue } from './json-column';
 import {
 	away as awaySchema,
 	policies as policiesSchema,
@@ -36,7 +35,7 @@ const DEFAULT_POLICIES: Policies = { returnsDays: 30, extra: '' };
 async function read<T>(key: string, schema: z.ZodType<T>, fallback: T, conn: Db | Tx): Promise<T> {
 	const [row] = await conn.select().from(settings).where(eq(settings.key, key)).limit(1);
 	if (!row) return fallback;
-	const parsed = schema.safeParse(jsonValue<unknown>(row.value));
+	const parsed = schema.safeParse(row.value);
 	return parsed.success ? parsed.data : fallback;
 }
 

@@ -1,20 +1,10 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
-import {
-	cartLines,
-	pieces,
-	shippingRates,
-	stock,
-	woods,
-	WORKSHOP,
-	type Personalisation
-} from '../db/schema';
-import { jsonValue } from '../json-column';
+import { cartLines, pieces, shippingRates, stock, woods, WORKSHOP } from '../db/schema';
 import { getSalesTaxBp } from '../settings';
 import { getCarvingSchedule } from '../orders/carving-queue';
 import { surchargeMinor } from '$lib/carving-queue';
 import { standardMinutes } from '$lib/layout-minutes';
-import type { PiecePattern } from '$lib/pattern/snapshot';
 import { lineTax, lineTotal } from '$lib/money';
 import { shippingCharge, zoneFor } from '$lib/shipping';
 
@@ -68,15 +58,13 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 	const problems: { lineId: number; message: string }[] = [];
 
 	const lines = rows.map((r) => {
-		const personalisation = r.personalisation
-			? jsonValue<Personalisation>(r.personalisation)
-			: null;
+		const personalisation = r.personalisation ?? null;
 		// The owner's optional charge for carving beyond the piece's standard layout (0 when off).
 		const extraMinor =
 			personalisation && schedule.surchargePerMinuteMinor > 0
 				? surchargeMinor(
 						personalisation.estimateMinutes ?? 0,
-						standardMinutes(jsonValue<PiecePattern>(r.pattern), r, r.woodSlug),
+						standardMinutes(r.pattern, r, r.woodSlug),
 						schedule
 					)
 				: 0;

@@ -1,6 +1,15 @@
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db';
-import { boothSales, orderHistory, orderLines, orders, pieces, pieceWoods, woods, type Role } from '../db/schema';
+import {
+	boothSales,
+	orderHistory,
+	orderLines,
+	orders,
+	pieces,
+	pieceWoods,
+	woods,
+	type Role
+} from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { personalise } from '../personalise';
 import { personalisedPriceMinor } from '$lib/personalised-price';
@@ -9,7 +18,6 @@ import type { BoothOrder } from '$lib/schemas/fairs';
 import { FairError } from './errors';
 import { fairStateShared } from './fairs';
 import { uniqueRef } from '../orders/place';
-
 
 /**
  * A personalised piece ordered at the booth: one `orders` row (status 'paid', the deposit in

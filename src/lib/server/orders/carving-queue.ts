@@ -26,7 +26,6 @@ import {
 	woods,
 	type Personalisation
 } from '../db/schema';
-import { jsonValue } from '../json-column';
 import { snapshotInput } from '$lib/pattern/snapshot';
 
 const KEY = 'carvingSchedule';
@@ -47,7 +46,7 @@ export const carvingScheduleSchema = z.object({
 
 export async function getCarvingSchedule(conn: Db | Tx = db): Promise<CarvingSchedule> {
 	const [row] = await conn.select().from(settings).where(eq(settings.key, KEY)).limit(1);
-	const parsed = row ? carvingScheduleSchema.safeParse(jsonValue(row.value)) : null;
+	const parsed = row ? carvingScheduleSchema.safeParse(row.value) : null;
 	return parsed?.success ? parsed.data : DEFAULT_SCHEDULE;
 }
 
@@ -115,7 +114,7 @@ export async function queueLines(conn: Db | Tx = db) {
 			asc(orderLines.id)
 		);
 	return rows.map((r) => {
-		const snap = r.personalisation ? jsonValue<Personalisation>(r.personalisation) : null;
+		const snap = r.personalisation ?? null;
 		const each = lineMinutes(snap, r, r.woodSlug);
 		return {
 			lineId: r.lineId,

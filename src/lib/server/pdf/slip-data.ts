@@ -4,8 +4,7 @@
  */
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
-import { orderLines, orders, type Address, type Personalisation } from '../db/schema';
-import { jsonValue } from '../json-column';
+import { orderLines, orders } from '../db/schema';
 import { addressLines, getShopInfo } from '../shop-settings';
 
 export type SlipLine = {
@@ -61,7 +60,7 @@ export async function slipOrders(refs: string[]) {
 		found.push({
 			ref: o.ref,
 			buyerName: o.buyerName,
-			address: addressLines({ name: o.buyerName, ...jsonValue<Address>(o.address) }),
+			address: addressLines({ name: o.buyerName, ...o.address }),
 			giftNote: o.giftNote,
 			currency: o.currency,
 			subtotalMinor: o.subtotalMinor,
@@ -72,7 +71,7 @@ export async function slipOrders(refs: string[]) {
 			lines: lines
 				.filter((l) => l.orderId === o.id)
 				.map((l) => {
-					const p = l.personalisation ? jsonValue<Personalisation>(l.personalisation) : null;
+					const p = l.personalisation ?? null;
 					return {
 						title: l.title,
 						woodName: l.woodName,

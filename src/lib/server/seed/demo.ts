@@ -11,7 +11,8 @@ import { drizzle } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { hashPassword } from '../auth/password';
 import * as schema from '../db/schema';
-import type { PieceKind, OrderStatus, Role } from '../db/schema';
+import type { OrderStatus, Role } from '../db/schema';
+import type { PieceKind } from '$lib/kinds';
 import {
 	snapshotInput,
 	snapshotOf,
