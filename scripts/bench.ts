@@ -9,7 +9,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { bringDown, bringUp } from './lib/bootstrap';
 import { BIN, DATA_DIR, ROOT } from './lib/paths';
 import { freePort, portAnswers, run, spawnTracked, stopAll, type Started } from './lib/services';

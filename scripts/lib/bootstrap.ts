@@ -2,7 +2,7 @@
  * What `npm start` and `npm run dev` share: MariaDB up, stand-ins up, migrations applied, demo
  * seeded when the database is empty, and a clean stop of whatever this run started.
  */
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { runMigrations } from '../../src/lib/server/db/migrate';
 import { ensureMariadb, releaseMariadb, type MariadbHandle } from './mariadb';
 import { startMocks, stopAll, type Started } from './services';
