@@ -3,6 +3,7 @@
  * closed dates, and the policies page. Each read falls back to a safe default when unset or
  * malformed, so a page never fails on a missing setting.
  */
+import { today as todayIso } from '$lib/dates';
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from './db';
 import { settings, type Address } from './db/schema';
@@ -53,7 +54,7 @@ export const setAway = (v: Away) => write('away', v);
 export const setPolicies = (v: Policies) => write('policies', v);
 
 /** The away notice to show today, or null once the return day has come. */
-export function awayNotice(a: Away, today = new Date().toISOString().slice(0, 10)) {
+export function awayNotice(a: Away, today = todayIso()) {
 	if (!a.until || a.until <= today) return null;
 	return { until: a.until, note: a.note };
 }

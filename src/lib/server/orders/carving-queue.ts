@@ -6,10 +6,10 @@
  */
 import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
+import { isoDay } from '$lib/dates';
 import {
 	daysBetween,
 	DEFAULT_SCHEDULE,
-	isoDay,
 	readyAfterCarving,
 	scheduleQueue,
 	type CarvingSchedule

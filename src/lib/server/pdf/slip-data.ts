@@ -2,6 +2,7 @@
  * What a packing or gift slip prints for one order: the buyer's address, the lines with wood and
  * personalisation, the gift note, the shop's return address. Read-only, one query per order.
  */
+import { isoDay } from '$lib/dates';
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
@@ -67,7 +68,7 @@ export async function slipOrders(refs: string[]) {
 			shippingMinor: o.shippingMinor,
 			taxMinor: o.taxMinor,
 			totalMinor: o.totalMinor,
-			placedOn: o.createdAt.toISOString().slice(0, 10),
+			placedOn: isoDay(o.createdAt),
 			lines: lines
 				.filter((l) => l.orderId === o.id)
 				.map((l) => {
