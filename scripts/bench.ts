@@ -26,7 +26,7 @@ import {
 	startBareServer,
 	type LoadFigure
 } from './bench/load';
-import { DEMO_ACCOUNTS } from '../src/lib/server/seed/demo';
+import { DEMO_ACCOUNTS } from './seed/demo';
 
 const e = process.env;
 const work = path.join(DATA_DIR, 'bench');

@@ -5,7 +5,7 @@
  * server sends. Dates are ISO calendar days (`YYYY-MM-DD`) with UTC day arithmetic, so the same
  * day comes out whatever the machine's time zone.
  */
-import { addIsoDays, isoDay } from './dates';
+import { addIsoDays } from './dates';
 
 /** Carving minutes available on each weekday, Sunday first (JavaScript's getUTCDay order). */
 export type WeekHours = [number, number, number, number, number, number, number];

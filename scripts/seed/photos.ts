@@ -5,8 +5,8 @@
  */
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
-import * as schema from '../db/schema';
-import { storePhoto } from '../storage';
+import * as schema from '../../src/lib/server/db/schema';
+import { storePhoto } from '../../src/lib/server/storage';
 import type { DemoExtra } from './extras';
 
 const W = 1200;
