@@ -1,5 +1,5 @@
 import { defineConfig } from 'drizzle-kit';
-import { config } from './src/lib/server/config';
+import { config } from './config/settings';
 
 export default defineConfig({
 	dialect: 'mysql',

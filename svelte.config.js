@@ -34,9 +34,14 @@ const config = {
 			}
 		},
 		typescript: {
-			// Type-check (and type-aware lint) the scripts, stand-ins and root config files too.
+			// Type-check (and type-aware lint) the scripts, stand-ins, settings and root config files too.
 			config: (tsconfig) => {
-				tsconfig.include.push('../scripts/**/*.ts', '../mocks/**/*.ts', '../*.config.ts');
+				tsconfig.include.push(
+					'../scripts/**/*.ts',
+					'../mocks/**/*.ts',
+					'../config/**/*.ts',
+					'../*.config.ts'
+				);
 				return tsconfig;
 			}
 		}

@@ -4,7 +4,7 @@
  * `.data/backups/<date-time>`). Restore with `npm run restore <folder>` (see README).
  */
 import path from 'node:path';
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { backup } from './lib/backup';
 import { ensureMariadb, releaseMariadb } from './lib/mariadb';
 import { DATA_DIR } from './lib/paths';

@@ -9,7 +9,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { bringDown, bringUp } from './lib/bootstrap';
 import { BIN, DATA_DIR, ROOT } from './lib/paths';
 import { freePort, portAnswers, run, spawnTracked, stopAll, type Started } from './lib/services';
@@ -26,7 +26,7 @@ import {
 	startBareServer,
 	type LoadFigure
 } from './bench/load';
-import { DEMO_ACCOUNTS } from '../src/lib/server/seed/demo';
+import { DEMO_ACCOUNTS } from './seed/demo';
 
 const e = process.env;
 const work = path.join(DATA_DIR, 'bench');

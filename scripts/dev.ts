@@ -2,7 +2,7 @@
  * `npm run dev`: the same services as `npm start`, then `vite dev` with hot reload
  * (PORT, default 5173). Ctrl-C stops what this run started.
  */
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { banner, bringDown, bringUp, stopOnSignals } from './lib/bootstrap';
 import { BIN } from './lib/paths';
 import { spawnTracked } from './lib/services';

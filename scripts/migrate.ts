@@ -1,5 +1,5 @@
 /** `npm run db:migrate`: starts the project's MariaDB if needed and applies drizzle/. */
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { runMigrations } from '../src/lib/server/db/migrate';
 import { ensureMariadb, releaseMariadb } from './lib/mariadb';
 

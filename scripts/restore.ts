@@ -3,7 +3,7 @@
  * must be empty: create it first) and uploads `<folder>/photos` to the photo bucket.
  */
 import path from 'node:path';
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { restore } from './lib/backup';
 import { ensureMariadb, releaseMariadb } from './lib/mariadb';
 import { startMocks, stopAll } from './lib/services';

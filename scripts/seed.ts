@@ -1,7 +1,7 @@
 /** `npx tsx scripts/seed.ts`: seeds the demo scenario into an empty database (after migrating). */
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { runMigrations } from '../src/lib/server/db/migrate';
-import { seedDemoAt } from '../src/lib/server/seed/demo';
+import { seedDemoAt } from './seed/demo';
 import { ensureMariadb, releaseMariadb } from './lib/mariadb';
 
 const handle = await ensureMariadb();

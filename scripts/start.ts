@@ -5,7 +5,7 @@
  */
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { config } from '../src/lib/server/config';
+import { config } from '../config/settings';
 import { banner, bringDown, bringUp, stopOnSignals } from './lib/bootstrap';
 import { BIN, ROOT } from './lib/paths';
 import { portAnswers, run, spawnTracked } from './lib/services';

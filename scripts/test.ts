@@ -78,7 +78,7 @@ async function freshDatabase(url: string, seed: boolean) {
 	const { runMigrations } = await import('../src/lib/server/db/migrate');
 	await runMigrations(url);
 	if (seed) {
-		const { seedDemoAt } = await import('../src/lib/server/seed/demo');
+		const { seedDemoAt } = await import('./seed/demo');
 		await seedDemoAt(url);
 	}
 }

@@ -6,7 +6,7 @@ import http from 'node:http';
 import type net from 'node:net';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { isMain, runUntilSignal } from '../run';
 import { MailStore } from './store';
 import { inboxPage, messagePage } from './pages';

@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import S3rver from 's3rver';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { isMain, runUntilSignal } from '../run';
 
 export type S3ServerOptions = {

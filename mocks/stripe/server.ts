@@ -5,7 +5,7 @@
  */
 import http from 'node:http';
 import Stripe from 'stripe';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { isMain, runUntilSignal } from '../run';
 import { route } from './api';
 import { checkKey } from './auth';

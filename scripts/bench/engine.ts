@@ -112,7 +112,14 @@ export async function engineTimings() {
 		`heap used ${(mem.heapUsed / 1048576).toFixed(1)} MB (grew ${((mem.heapUsed - heapBefore) / 1048576).toFixed(1)} MB), rss ${(mem.rss / 1048576).toFixed(1)} MB`
 	];
 	return {
-		figures: { patternMs, halvedMs, templatePdfMs: pdfMs, bigTemplatePdfMs: bigPdfMs, packingSlipMs: slipMs, packingSlipBatchMs: slipBatchMs },
+		figures: {
+			patternMs,
+			halvedMs,
+			templatePdfMs: pdfMs,
+			bigTemplatePdfMs: bigPdfMs,
+			packingSlipMs: slipMs,
+			packingSlipBatchMs: slipBatchMs
+		},
 		lines
 	};
 }

@@ -16,7 +16,7 @@ import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import type { Readable } from 'node:stream';
 import { GetObjectCommand, ListObjectsV2Command, PutObjectCommand } from '@aws-sdk/client-s3';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { s3 } from '../../src/lib/server/storage';
 
 const bin = (name: string) =>

@@ -2,7 +2,7 @@
  * What `npm start` and `npm run dev` share: MariaDB up, stand-ins up, migrations applied, demo
  * seeded when the database is empty, and a clean stop of whatever this run started.
  */
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { runMigrations } from '../../src/lib/server/db/migrate';
 import { ensureMariadb, releaseMariadb, type MariadbHandle } from './mariadb';
 import { startMocks, stopAll, type Started } from './services';
@@ -22,7 +22,7 @@ export async function bringUp(): Promise<Running> {
 		running.mocks = await startMocks();
 		await runMigrations(config.db.url);
 		// Imported late: the seed pulls in the password hasher and the photo step.
-		const { seedDemoAt } = await import('../../src/lib/server/seed/demo');
+		const { seedDemoAt } = await import('../seed/demo');
 		if (await seedDemoAt(config.db.url)) console.log('Demo data seeded (the database was empty).');
 	} catch (err) {
 		await bringDown(running);
@@ -68,7 +68,7 @@ export function stopOnSignals(running: Running) {
 }
 
 export function banner(appUrl: string) {
-	return import('../../src/lib/server/seed/demo').then(({ DEMO_ACCOUNTS }) => {
+	return import('../seed/demo').then(({ DEMO_ACCOUNTS }) => {
 		const w = Math.max(...DEMO_ACCOUNTS.map((a) => a.email.length));
 		const lines = [
 			'',

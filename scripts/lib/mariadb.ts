@@ -15,7 +15,7 @@ import {
 import { open, rm } from 'node:fs/promises';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { DATA_DIR } from './paths';
 import { freePort, portFree } from './services';
 

@@ -7,7 +7,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
-import { config } from '../../src/lib/server/config';
+import { config } from '../../config/settings';
 import { BIN, ROOT, RUN_DIR } from './paths';
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));

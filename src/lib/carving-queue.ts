@@ -5,6 +5,7 @@
  * server sends. Dates are ISO calendar days (`YYYY-MM-DD`) with UTC day arithmetic, so the same
  * day comes out whatever the machine's time zone.
  */
+import { addIsoDays } from './dates';
 
 /** Carving minutes available on each weekday, Sunday first (JavaScript's getUTCDay order). */
 export type WeekHours = [number, number, number, number, number, number, number];
@@ -40,16 +41,6 @@ export type ScheduledLine<K = string> = QueueLine<K> & {
 
 /** Far enough ahead for any real queue; stops the walk when no weekday has hours. */
 const HORIZON_DAYS = 366;
-
-const DAY_MS = 86_400_000;
-
-export function isoDay(d: Date): string {
-	return d.toISOString().slice(0, 10);
-}
-
-export function addIsoDays(iso: string, days: number): string {
-	return isoDay(new Date(Date.parse(`${iso}T00:00:00Z`) + days * DAY_MS));
-}
 
 function weekday(iso: string): number {
 	return new Date(`${iso}T00:00:00Z`).getUTCDay();

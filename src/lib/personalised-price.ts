@@ -3,6 +3,7 @@
  * its own (src/lib/server/pricing.ts); these only say what the buyer will see there.
  */
 import { hardnessWords, type WoodFacts } from './woods';
+import { addDays } from './dates';
 
 /** Base price plus the chosen wood's add-on, in integer minor units. */
 export function personalisedPriceMinor(basePriceMinor: number, woodAddOnMinor = 0): number {
@@ -12,11 +13,9 @@ export function personalisedPriceMinor(basePriceMinor: number, woodAddOnMinor = 
 	return basePriceMinor + woodAddOnMinor;
 }
 
-/** The day a piece ordered on `from` is ready: the lead time in whole days. */
-export function readyBy(leadDays: number, from: Date = new Date()): Date {
-	const d = new Date(from);
-	d.setDate(d.getDate() + Math.max(0, Math.ceil(leadDays)));
-	return d;
+/** The day ('YYYY-MM-DD', UTC: see $lib/dates) a piece ordered at `from` is ready. */
+export function readyBy(leadDays: number, from: Date = new Date()): string {
+	return addDays(from, leadDays);
 }
 
 export type WoodChoice = {

@@ -12,7 +12,7 @@ import * as schema from '../../src/lib/server/db/schema';
 import { getTableConfig } from 'drizzle-orm/mysql-core';
 import { config } from '../../src/lib/server/config';
 import { runMigrations } from '../../src/lib/server/db/migrate';
-import { seedDemo, DEMO_ACCOUNTS } from '../../src/lib/server/seed/demo';
+import { seedDemo, DEMO_ACCOUNTS } from '../../scripts/seed/demo';
 import { verifyPassword } from '../../src/lib/server/auth/password';
 import { carvingQueue } from '../../src/lib/server/orders/carving-queue';
 import { readyAfterCarving } from '../../src/lib/carving-queue';

@@ -72,7 +72,7 @@ async function deliver(event: object) {
 		headers: { 'stripe-signature': header, 'content-type': 'application/json' },
 		body: payload
 	});
-	return (await POST({ request } as Parameters<typeof POST>[0]));
+	return await POST({ request } as Parameters<typeof POST>[0]);
 }
 
 /** The completed event the provider sends for a session, from the session as it stands. */

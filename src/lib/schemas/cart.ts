@@ -47,13 +47,3 @@ export const destinationSchema = z.object({
 		.toUpperCase()
 		.regex(/^[A-Z]{2}$/, 'Choose a country.')
 });
-
-/** zod issues → { field: [messages] } for forms and JSON errors. */
-export function fieldErrors(error: z.ZodError): Record<string, string[]> {
-	const out: Record<string, string[]> = {};
-	for (const issue of error.issues) {
-		const key = String(issue.path[0] ?? 'form');
-		(out[key] ??= []).push(issue.message);
-	}
-	return out;
-}

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pieceKinds } from '$lib/server/db/schema';
+import { pieceKinds } from '$lib/kinds';
 
 const int = (label: string, min: number, maxValue: number) =>
 	z.coerce

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pieceKinds } from '$lib/server/db/schema';
+import { pieceKinds } from '$lib/kinds';
 
 export const SHOP_SORTS = ['featured', 'price-low', 'price-high', 'newest'] as const;
 export type ShopSort = (typeof SHOP_SORTS)[number];

@@ -1,3 +1,26 @@
+import { json } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { fieldErrors, type FieldErrors } from '$lib/forms';
+
+/**
+ * The one place API errors are shaped. Every JSON route answers a refusal as `{ error, fields? }`
+ * with its 4xx status through `apiError` / `apiInvalid`, and the `apiErrors` hook passes any other
+ * error response (a thrown `error()`, a 404 from the router) through `toApiErrorResponse`.
+ */
+
+/** JSON error body used by every API route. */
+export function apiError(status: number, message: string, fields?: FieldErrors) {
+	return json({ error: message, ...(fields ? { fields } : {}) }, { status });
+}
+
+/** 400 for input its zod schema refused: the first message as the error, all of them by field. */
+export function apiInvalid(
+	error: z.ZodError,
+	message = error.issues[0]?.message ?? 'Check the request.'
+) {
+	return apiError(400, message, fieldErrors(error));
+}
+
 /**
  * SvelteKit answers an `error()` thrown in a +server.ts with `{ message }` (or with its HTML error
  * page when the caller asked for HTML). Our API promises `{ error, fields? }`: this rewrites any

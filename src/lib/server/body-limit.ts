@@ -1,4 +1,4 @@
-import { apiError } from './auth/guard';
+import { apiError } from './api-errors';
 
 /**
  * The JSON API takes small bodies: a basket change or a payment event is a few hundred bytes.

@@ -1,8 +1,7 @@
 import { PIECE_SLUG } from '$lib/schemas/plain-text';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
-import { photos, pieces, pieceWoods, stock, woods, WORKSHOP, type PiecePattern } from './db/schema';
-import { jsonValue } from './json-column';
+import { photos, pieces, pieceWoods, stock, woods, WORKSHOP } from './db/schema';
 import { cachedCatalogue } from './catalogue-cache';
 import type { ShopQuery } from '$lib/schemas/shop';
 
@@ -195,7 +194,7 @@ async function readPiece(slug: string) {
 		foodContact: p.foodContact,
 		leadDays: p.leadDays,
 		careNotes: p.careNotes,
-		pattern: jsonValue<PiecePattern>(p.pattern),
+		pattern: p.pattern,
 		photos: photoMap.get(p.id) ?? [],
 		woods: (woodMap.get(p.id) ?? []).map((w) => ({ ...w, ...factBySlug.get(w.slug)! }))
 	};

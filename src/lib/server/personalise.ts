@@ -7,10 +7,9 @@ import {
 	type Personalisation,
 	type PiecePattern
 } from '$lib/pattern/snapshot';
-import { jsonValue } from './json-column';
 import { letterFont } from '$lib/pattern/letter-font';
 
-type PieceBlank = { pattern: unknown; widthMm: number; lengthMm: number; thicknessMm: number };
+type PieceBlank = { pattern: PiecePattern; widthMm: number; lengthMm: number; thicknessMm: number };
 type WoodTones = { slug?: string; toneLight: string; toneDark: string };
 
 /**
@@ -31,7 +30,7 @@ export function personalise(
 	if (!parsedStyle.success)
 		return { ok: false, fields: { style: [parsedStyle.error.issues[0].message] } };
 	const style = parsedStyle.data;
-	const layout = styledLayout(jsonValue<PiecePattern>(piece.pattern), style, parsedInitials.data);
+	const layout = styledLayout(piece.pattern, style, parsedInitials.data);
 	const result = computePattern(snapshotInput(layout, piece, wood.slug), {
 		svg: false,
 		font: letterFont()

@@ -3,10 +3,10 @@
  * closed dates, and the policies page. Each read falls back to a safe default when unset or
  * malformed, so a page never fails on a missing setting.
  */
+import { today as todayIso } from '$lib/dates';
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from './db';
 import { settings, type Address } from './db/schema';
-import { jsonValue } from './json-column';
 import {
 	away as awaySchema,
 	policies as policiesSchema,
@@ -36,7 +36,7 @@ const DEFAULT_POLICIES: Policies = { returnsDays: 30, extra: '' };
 async function read<T>(key: string, schema: z.ZodType<T>, fallback: T, conn: Db | Tx): Promise<T> {
 	const [row] = await conn.select().from(settings).where(eq(settings.key, key)).limit(1);
 	if (!row) return fallback;
-	const parsed = schema.safeParse(jsonValue<unknown>(row.value));
+	const parsed = schema.safeParse(row.value);
 	return parsed.success ? parsed.data : fallback;
 }
 
@@ -54,7 +54,7 @@ export const setAway = (v: Away) => write('away', v);
 export const setPolicies = (v: Policies) => write('policies', v);
 
 /** The away notice to show today, or null once the return day has come. */
-export function awayNotice(a: Away, today = new Date().toISOString().slice(0, 10)) {
+export function awayNotice(a: Away, today = todayIso()) {
 	if (!a.until || a.until <= today) return null;
 	return { until: a.until, note: a.note };
 }

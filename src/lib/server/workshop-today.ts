@@ -4,7 +4,7 @@
  * Ready-made orders are packed, never carved: they never count as "to carve".
  */
 import { and, asc, eq, gte, inArray, lte, sql } from 'drizzle-orm';
-import { isoDay } from '$lib/carving-queue';
+import { isoDay } from '$lib/dates';
 import type { OrderStatus } from '$lib/order-status';
 import { db } from './db';
 import { fairs, orders, pieces, stock, woods } from './db/schema';

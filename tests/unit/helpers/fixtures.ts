@@ -5,6 +5,7 @@
 import { simpleParser } from 'mailparser';
 import { db } from '../../../src/lib/server/db';
 import * as s from '../../../src/lib/server/db/schema';
+import type { PieceKind } from '../../../src/lib/kinds';
 import { config } from '../../../src/lib/server/config';
 
 export async function testWood(slug: string) {
@@ -30,7 +31,7 @@ export async function testWood(slug: string) {
 export async function testPiece(
 	slug: string,
 	woodIds: number[],
-	o: { title: string; kind: s.PieceKind; personalisable: boolean }
+	o: { title: string; kind: PieceKind; personalisable: boolean }
 ) {
 	const [{ id }] = await db
 		.insert(s.pieces)

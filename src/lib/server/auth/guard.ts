@@ -1,4 +1,4 @@
-import { error, json, redirect, type RequestEvent } from '@sveltejs/kit';
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import type { Role } from '../db/schema';
 
 type GuardEvent = Pick<RequestEvent, 'locals' | 'url'>;
@@ -31,8 +31,3 @@ export function requireRoleApi(event: GuardEvent, ...allowed: Role[]) {
 }
 
 export const WORKSHOP_STAFF: Role[] = ['owner', 'helper'];
-
-/** JSON error body used by every API route. */
-export function apiError(status: number, message: string, fields?: Record<string, string[]>) {
-	return json({ error: message, ...(fields ? { fields } : {}) }, { status });
-}

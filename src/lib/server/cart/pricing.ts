@@ -1,22 +1,13 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
-import {
-	cartLines,
-	pieces,
-	shippingRates,
-	stock,
-	woods,
-	WORKSHOP,
-	type Personalisation
-} from '../db/schema';
-import { jsonValue } from '../json-column';
+import { cartLines, pieces, shippingRates, stock, woods, WORKSHOP } from '../db/schema';
 import { getSalesTaxBp } from '../settings';
 import { getCarvingSchedule } from '../orders/carving-queue';
-import { surchargeMinor } from '$lib/carving-queue';
+import { surchargeMinor, type CarvingSchedule } from '$lib/carving-queue';
 import { standardMinutes } from '$lib/layout-minutes';
-import type { PiecePattern } from '$lib/pattern/snapshot';
 import { lineTax, lineTotal } from '$lib/money';
-import { shippingCharge, zoneFor } from '$lib/shipping';
+import { shippingCharge, zoneFor, type RateRow } from '$lib/shipping';
+import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
 
 /**
  * Prices a cart from the database alone: unit prices, per-line tax, shipping by destination.
@@ -64,83 +55,118 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 
 	const rateBp = await getSalesTaxBp(conn);
 	const schedule = await getCarvingSchedule(conn);
+	const rates = await conn.select().from(shippingRates);
 	const currency = rows[0]?.currency ?? 'USD';
-	const problems: { lineId: number; message: string }[] = [];
+	const priced = priceLines(rows, { rateBp, schedule, rates, country });
 
+	const problems: { lineId: number; message: string }[] = [];
+	const lines = priced.lines.map((l) => {
+		const available = onHand(l.pieceId, l.woodId);
+		if (!l.active) problems.push({ lineId: l.id, message: `${l.title} is no longer offered.` });
+		if (l.currency !== currency)
+			problems.push({ lineId: l.id, message: `${l.title} is priced in another currency.` });
+		if (l.fromStock && available < l.quantity) {
+			problems.push({
+				lineId: l.id,
+				message:
+					available === 0
+						? `${l.title} in ${l.woodName} is sold out.`
+						: `Only ${available} ${l.title} in ${l.woodName} ready now.`
+			});
+		}
+		return { ...l, available };
+	});
+	if (lines.length && !priced.shippingKnown) {
+		problems.push({
+			lineId: 0,
+			message: 'This parcel is too heavy for our rates to that country; write to us.'
+		});
+	}
+	return {
+		lines,
+		currency,
+		country,
+		zone: zoneFor(country),
+		billableGrams: priced.billableGrams,
+		rateBp,
+		subtotalMinor: priced.subtotalMinor,
+		taxMinor: priced.taxMinor,
+		shippingMinor: priced.shippingMinor,
+		shippingKnown: priced.shippingKnown,
+		totalMinor: priced.totalMinor,
+		count: lines.reduce((n, l) => n + l.quantity, 0),
+		problems
+	};
+}
+
+/** What pricing needs to know of one line: the piece, the wood, how many, and its snapshot. */
+export type LineToPrice = {
+	quantity: number;
+	personalisation: Personalisation | null;
+	kind: string;
+	lengthMm: number;
+	widthMm: number;
+	thicknessMm: number;
+	basePriceMinor: number;
+	pattern: PiecePattern;
+	woodSlug: string;
+	densityKgM3: number;
+	priceAddOnMinor: number;
+};
+
+/**
+ * The shop's arithmetic for a set of lines, with no database: unit price (base, wood add-on and
+ * the owner's optional carving surcharge), line total, sales tax per line (half-up, see
+ * lineTax), shipping by billable weight to the destination, and the totals. The cart, checkout
+ * and the demo seed all price through here.
+ */
+export function priceLines<L extends LineToPrice>(
+	rows: L[],
+	ctx: { rateBp: number; schedule: CarvingSchedule; rates: RateRow[]; country: string }
+) {
 	const lines = rows.map((r) => {
-		const personalisation = r.personalisation
-			? jsonValue<Personalisation>(r.personalisation)
-			: null;
+		const personalisation = r.personalisation ?? null;
 		// The owner's optional charge for carving beyond the piece's standard layout (0 when off).
 		const extraMinor =
-			personalisation && schedule.surchargePerMinuteMinor > 0
+			personalisation && ctx.schedule.surchargePerMinuteMinor > 0
 				? surchargeMinor(
 						personalisation.estimateMinutes ?? 0,
-						standardMinutes(jsonValue<PiecePattern>(r.pattern), r, r.woodSlug),
-						schedule
+						standardMinutes(r.pattern, r, r.woodSlug),
+						ctx.schedule
 					)
 				: 0;
 		const unitMinor = r.basePriceMinor + r.priceAddOnMinor + extraMinor;
 		const totalMinor = lineTotal(unitMinor, r.quantity);
-		// Personalised pieces are carved to order; plain ones come from finished stock.
-		const fromStock = !personalisation;
-		const available = onHand(r.pieceId, r.woodId);
-		if (!r.active) problems.push({ lineId: r.id, message: `${r.title} is no longer offered.` });
-		if (r.currency !== currency)
-			problems.push({ lineId: r.id, message: `${r.title} is priced in another currency.` });
-		if (fromStock && available < r.quantity) {
-			problems.push({
-				lineId: r.id,
-				message:
-					available === 0
-						? `${r.title} in ${r.woodName} is sold out.`
-						: `Only ${available} ${r.title} in ${r.woodName} ready now.`
-			});
-		}
 		return {
 			...r,
 			personalisation,
 			unitMinor,
 			totalMinor,
-			taxMinor: lineTax(totalMinor, rateBp),
-			fromStock,
-			available
+			taxMinor: lineTax(totalMinor, ctx.rateBp),
+			// Personalised pieces are carved to order; plain ones come from finished stock.
+			fromStock: !personalisation
 		};
 	});
-
-	const rates = await conn.select().from(shippingRates);
 	const ship = shippingCharge(
-		rates,
-		country,
+		ctx.rates,
+		ctx.country,
 		lines.map((l) => ({
 			size: { kind: l.kind, lengthMm: l.lengthMm, widthMm: l.widthMm, thicknessMm: l.thicknessMm },
 			densityKgM3: l.densityKgM3,
 			quantity: l.quantity
 		}))
 	);
-	if (lines.length && ship.priceMinor === null) {
-		problems.push({
-			lineId: 0,
-			message: 'This parcel is too heavy for our rates to that country; write to us.'
-		});
-	}
 	const subtotalMinor = lines.reduce((n, l) => n + l.totalMinor, 0);
 	const taxMinor = lines.reduce((n, l) => n + l.taxMinor, 0);
 	const shippingMinor = ship.priceMinor ?? 0;
 	return {
 		lines,
-		currency,
-		country,
-		zone: zoneFor(country),
 		billableGrams: ship.billableGrams,
-		rateBp,
 		subtotalMinor,
 		taxMinor,
 		shippingMinor,
 		shippingKnown: ship.priceMinor !== null,
-		totalMinor: subtotalMinor + taxMinor + shippingMinor,
-		count: lines.reduce((n, l) => n + l.quantity, 0),
-		problems
+		totalMinor: subtotalMinor + taxMinor + shippingMinor
 	};
 }
 

@@ -6,7 +6,6 @@
 import { asc, eq, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { photos, pieces, pieceWoods, woods } from '../db/schema';
-import { jsonValue } from '../json-column';
 import type { PieceForm } from '$lib/schemas/piece';
 import type { PiecePattern } from '../db/schema';
 import { lockErrno, withLockRetry } from './retry';
@@ -46,7 +45,7 @@ export async function pieceForEdit(id: number) {
 		.select({ woodId: pieceWoods.woodId })
 		.from(pieceWoods)
 		.where(eq(pieceWoods.pieceId, id));
-	const pattern = jsonValue<PiecePattern>(p.pattern);
+	const pattern = p.pattern;
 	return {
 		id: p.id,
 		active: p.active,

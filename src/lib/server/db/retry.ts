@@ -10,7 +10,11 @@ export function isRetryable(err: unknown): boolean {
 
 /** Duplicate key (1062): another request stored the same row first. */
 export function isDuplicateKey(err: unknown): boolean {
-	const e = err as { errno?: number; code?: string; cause?: { errno?: number; code?: string } } | null;
+	const e = err as {
+		errno?: number;
+		code?: string;
+		cause?: { errno?: number; code?: string };
+	} | null;
 	return (
 		e?.errno === 1062 ||
 		e?.cause?.errno === 1062 ||

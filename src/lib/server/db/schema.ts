@@ -6,14 +6,15 @@ import {
 	datetime,
 	date,
 	text,
-	json,
 	mysqlEnum,
 	primaryKey,
 	uniqueIndex,
 	index,
 	bigint
 } from 'drizzle-orm/mysql-core';
+import { json } from './json';
 import { orderStatuses, type OrderStatus } from '../../order-status';
+import { pieceKinds } from '../../kinds';
 import type { Personalisation, PiecePattern } from '../../pattern/snapshot';
 
 export const roles = ['owner', 'helper', 'customer'] as const;
@@ -84,9 +85,6 @@ export const woods = mysqlTable('woods', {
 	character: varchar('character', { length: 255 }).notNull(),
 	caution: text('caution')
 });
-
-export const pieceKinds = ['bottle_holder', 'plate', 'box', 'ornament', 'spoon', 'board'] as const;
-export type PieceKind = (typeof pieceKinds)[number];
 
 export const pieces = mysqlTable('pieces', {
 	id: int('id').autoincrement().primaryKey(),

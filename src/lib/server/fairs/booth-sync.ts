@@ -1,3 +1,4 @@
+import { isoDay } from '$lib/dates';
 import { eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { boothSales, type Role } from '../db/schema';
@@ -20,7 +21,7 @@ type Seller = { id: string; role: Role };
 export function assertOpen(fair: Fair) {
 	if (fair.closedAt) {
 		throw new FairError(
-			`${fair.name} was closed on ${fair.closedAt.toISOString().slice(0, 10)}; it takes no more sales.`,
+			`${fair.name} was closed on ${isoDay(fair.closedAt)}; it takes no more sales.`,
 			409
 		);
 	}

@@ -1,3 +1,4 @@
+import { isoDay, today as todayIso } from '$lib/dates';
 import { and, asc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { pieces, pieceWoods, woods } from '../db/schema';
@@ -9,11 +10,7 @@ import { boothEntries } from './tally';
  * What the booth screen needs, and no more: the fair's pieces with prices, what can be ordered
  * personalised, and today's sales by method — counts for everyone, money only for the owner.
  */
-export async function boothView(
-	fairId: number,
-	owner: boolean,
-	today = new Date().toISOString().slice(0, 10)
-) {
+export async function boothView(fairId: number, owner: boolean, today = todayIso()) {
 	const fair = await getFair(fairId);
 	const [stockLines, entries, orderable] = await Promise.all([
 		fairPieces(fairId),
@@ -33,9 +30,7 @@ export async function boothView(
 			.where(and(eq(pieces.personalisable, true), eq(pieces.active, true)))
 			.orderBy(asc(pieces.title), asc(woods.name))
 	]);
-	const todays = entries.filter(
-		(e) => e.kind === 'sale' && e.soldAt.toISOString().slice(0, 10) === today
-	);
+	const todays = entries.filter((e) => e.kind === 'sale' && isoDay(e.soldAt) === today);
 	const day = (['cash', 'card', 'other'] as const).map((method) => {
 		const of = todays.filter((e) => e.method === method);
 		return {

@@ -1,3 +1,4 @@
+import { today as todayIso } from '$lib/dates';
 import { and, asc, desc, eq, gte, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
@@ -49,7 +50,7 @@ export async function listFairs() {
 }
 
 /** Coming and running fairs for the public page: name, place and dates only. */
-export async function comingFairs(today = new Date().toISOString().slice(0, 10)) {
+export async function comingFairs(today = todayIso()) {
 	return db
 		.select({
 			id: fairs.id,

@@ -28,10 +28,3 @@ export async function orFail<T>(run: () => Promise<T>) {
 		throw err;
 	}
 }
-
-/** zod issues as `{ field: [messages] }` for the form to show beside each field. */
-export function fieldErrors(e: z.ZodError): Record<string, string[]> {
-	const out: Record<string, string[]> = {};
-	for (const i of e.issues) (out[String(i.path[0] ?? 'form')] ??= []).push(i.message);
-	return out;
-}

@@ -2,7 +2,6 @@ import { isNotNull } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { boothSales, fairs, orders } from '../db/schema';
-import { jsonValue } from '../json-column';
 import { decimal } from './report';
 import { fairTally } from './tally';
 
@@ -60,7 +59,7 @@ export async function moneyReport() {
 		r.salesMinor += o.subtotal;
 		r.taxMinor += o.tax;
 		r.refundsMinor += o.refunded;
-		const a = jsonValue<{ country?: string; region?: string }>(o.address);
+		const a = o.address;
 		if (o.tax > 0) addTax(`Online: ${[a.region, a.country].filter(Boolean).join(', ')}`, o.tax);
 	}
 	const fairCosts = [];

@@ -2,21 +2,17 @@ import { and, desc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { boothSales, fairs, fairStock, stock, tallies } from '../db/schema';
 import { withRetry } from '../db/retry';
-import { jsonValue } from '../json-column';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { reconcile, type TallyEntry } from '$lib/reconcile';
 import { fairPieces, getFair, type Fair } from './fairs';
 import { FairError } from './errors';
 
-type SaleLine = { pieceId: number; woodId: number; quantity: number; unitPriceMinor: number };
-
 export async function boothEntries(fairId: number, conn: Db | Tx = db) {
-	const rows = await conn
+	return conn
 		.select()
 		.from(boothSales)
 		.where(eq(boothSales.fairId, fairId))
 		.orderBy(boothSales.soldAt);
-	return rows.map((r) => ({ ...r, lines: jsonValue<SaleLine[]>(r.lines) }));
 }
 export type BoothEntry = Awaited<ReturnType<typeof boothEntries>>[number];
 

@@ -11,6 +11,7 @@ import { personalise } from '../personalise';
 import { personalisedPriceMinor } from '$lib/personalised-price';
 import { priceSale } from '$lib/reconcile';
 import { OrderError, uniqueRef } from './place';
+import type { PiecePattern } from '../db/schema';
 
 export type BoothOrderInput = {
 	piece: {
@@ -18,7 +19,7 @@ export type BoothOrderInput = {
 		title: string;
 		personalisable: boolean;
 		basePriceMinor: number;
-		pattern: unknown;
+		pattern: PiecePattern;
 		widthMm: number;
 		lengthMm: number;
 		thicknessMm: number;

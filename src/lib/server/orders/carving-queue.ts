@@ -6,11 +6,11 @@
  */
 import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
+import { isoDay } from '$lib/dates';
 import {
 	awayDays,
 	daysBetween,
 	DEFAULT_SCHEDULE,
-	isoDay,
 	readyAfterCarving,
 	scheduleQueue,
 	type CarvingSchedule
@@ -27,7 +27,6 @@ import {
 	woods,
 	type Personalisation
 } from '../db/schema';
-import { jsonValue } from '../json-column';
 import { snapshotInput } from '$lib/pattern/snapshot';
 import { getAway } from '../shop-settings';
 
@@ -49,7 +48,7 @@ export const carvingScheduleSchema = z.object({
 
 export async function getCarvingSchedule(conn: Db | Tx = db): Promise<CarvingSchedule> {
 	const [row] = await conn.select().from(settings).where(eq(settings.key, KEY)).limit(1);
-	const parsed = row ? carvingScheduleSchema.safeParse(jsonValue(row.value)) : null;
+	const parsed = row ? carvingScheduleSchema.safeParse(row.value) : null;
 	return parsed?.success ? parsed.data : DEFAULT_SCHEDULE;
 }
 
@@ -117,7 +116,7 @@ export async function queueLines(conn: Db | Tx = db) {
 			asc(orderLines.id)
 		);
 	return rows.map((r) => {
-		const snap = r.personalisation ? jsonValue<Personalisation>(r.personalisation) : null;
+		const snap = r.personalisation ?? null;
 		const each = lineMinutes(snap, r, r.woodSlug);
 		return {
 			lineId: r.lineId,

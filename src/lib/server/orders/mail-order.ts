@@ -1,7 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
-import { orderLines, orders, type Personalisation } from '../db/schema';
-import { jsonValue } from '../json-column';
+import { orderLines, orders } from '../db/schema';
 import type { MailOrder } from './shipping-mail';
 
 /** Just what the workshop's e-mails say about an order. */
@@ -27,9 +26,7 @@ export async function mailOrder(
 			quantity: l.quantity,
 			title: l.title,
 			woodName: l.woodName,
-			initials: l.personalisation
-				? jsonValue<Personalisation>(l.personalisation).initials || null
-				: null
+			initials: l.personalisation?.initials || null
 		}))
 	};
 }

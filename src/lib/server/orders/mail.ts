@@ -2,14 +2,9 @@ import { formatMoney } from '$lib/money';
 import { countryName } from '$lib/shipping';
 import { formatDay } from '$lib/dates';
 import { sendMail } from '../mail';
+import { esc } from '../mail-html';
 import { orderLink } from './links';
 import type { OrderDetail } from './views';
-
-const esc = (s: string) =>
-	s.replace(
-		/[&<>"']/g,
-		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!
-	);
 
 export function readyByWords(iso: string | null) {
 	return formatDay(iso, 'weekdayLong', 'soon');

@@ -2,7 +2,6 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '../db';
 import { settings, users } from '../db/schema';
-import { jsonValue } from '../json-column';
 import { sendMail } from '../mail';
 import { recomputeReadyBy } from './carving-queue';
 import { mailOrder } from './mail-order';
@@ -14,14 +13,14 @@ const helperIds = z.array(z.string().max(36)).max(200);
 /** Helpers who asked for an e-mail on each paid order (the owner always gets one). */
 export async function alertHelperIds(): Promise<string[]> {
 	const [row] = await db.select().from(settings).where(eq(settings.key, KEY)).limit(1);
-	const parsed = row ? helperIds.safeParse(jsonValue(row.value)) : null;
+	const parsed = row ? helperIds.safeParse(row.value) : null;
 	return parsed?.success ? parsed.data : [];
 }
 
 export async function setAlertOptIn(userId: string, on: boolean) {
 	await db.transaction(async (tx) => {
 		const [row] = await tx.select().from(settings).where(eq(settings.key, KEY)).for('update');
-		const parsed = row ? helperIds.safeParse(jsonValue(row.value)) : null;
+		const parsed = row ? helperIds.safeParse(row.value) : null;
 		const now = new Set(parsed?.success ? parsed.data : []);
 		if (on) now.add(userId);
 		else now.delete(userId);

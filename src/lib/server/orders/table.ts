@@ -5,7 +5,7 @@
  */
 import { and, asc, desc, gte, inArray, like, lt, or, sql, eq, type SQL } from 'drizzle-orm';
 import type { OrderTableQuery, WorkshopOrderRow } from '$lib/schemas/workshop-orders';
-import { addIsoDays } from '$lib/carving-queue';
+import { addIsoDays } from '$lib/dates';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
 

@@ -8,16 +8,7 @@ import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { snapshotInput } from '$lib/pattern/snapshot';
 import { db } from '../db';
-import {
-	orderLines,
-	orders,
-	pieces,
-	shipments,
-	woods,
-	type Address,
-	type Personalisation
-} from '../db/schema';
-import { jsonValue } from '../json-column';
+import { orderLines, orders, pieces, shipments, woods } from '../db/schema';
 import { previewSvg } from '../personalise';
 import { orderPath } from './links';
 
@@ -49,10 +40,10 @@ async function withDetails(order: typeof orders.$inferSelect) {
 	]);
 	return {
 		...order,
-		address: jsonValue<Address>(order.address),
+		address: order.address,
 		lines: lines.map((l) => ({
 			...l,
-			personalisation: l.personalisation ? jsonValue<Personalisation>(l.personalisation) : null
+			personalisation: l.personalisation ?? null
 		})),
 		shipments: ships
 	};
@@ -206,7 +197,7 @@ export async function workshopOrderDetail(ref: string) {
 		status: order.status,
 		buyerName: order.buyerName,
 		email: order.email,
-		address: jsonValue<Address>(order.address),
+		address: order.address,
 		...orderFigures(order),
 		checkoutSessionId: order.checkoutSessionId,
 		paymentIntentId: order.paymentIntentId,
@@ -223,7 +214,7 @@ export async function workshopOrderDetail(ref: string) {
 			shippedAt: s.shippedAt
 		})),
 		lines: lines.map((l) => {
-			const snap = l.personalisation ? jsonValue<Personalisation>(l.personalisation) : null;
+			const snap = l.personalisation ?? null;
 			const input = snap ? snapshotInput(snap, l, l.woodSlug) : null;
 			// The carving close up (what the carver checks), and the whole blank small beside it.
 			const pattern = input
@@ -270,6 +261,6 @@ export async function orderLineForTemplate(ref: string, lineId: number) {
 	if (!row) return null;
 	return {
 		...row,
-		personalisation: row.personalisation ? jsonValue<Personalisation>(row.personalisation) : null
+		personalisation: row.personalisation ?? null
 	};
 }

@@ -2,10 +2,10 @@
  * What a packing or gift slip prints for one order: the buyer's address, the lines with wood and
  * personalisation, the gift note, the shop's return address. Read-only, one query per order.
  */
+import { isoDay } from '$lib/dates';
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
-import { orderLines, orders, type Address, type Personalisation } from '../db/schema';
-import { jsonValue } from '../json-column';
+import { orderLines, orders } from '../db/schema';
 import { addressLines, getShopInfo } from '../shop-settings';
 
 export type SlipLine = {
@@ -61,18 +61,18 @@ export async function slipOrders(refs: string[]) {
 		found.push({
 			ref: o.ref,
 			buyerName: o.buyerName,
-			address: addressLines({ name: o.buyerName, ...jsonValue<Address>(o.address) }),
+			address: addressLines({ name: o.buyerName, ...o.address }),
 			giftNote: o.giftNote,
 			currency: o.currency,
 			subtotalMinor: o.subtotalMinor,
 			shippingMinor: o.shippingMinor,
 			taxMinor: o.taxMinor,
 			totalMinor: o.totalMinor,
-			placedOn: o.createdAt.toISOString().slice(0, 10),
+			placedOn: isoDay(o.createdAt),
 			lines: lines
 				.filter((l) => l.orderId === o.id)
 				.map((l) => {
-					const p = l.personalisation ? jsonValue<Personalisation>(l.personalisation) : null;
+					const p = l.personalisation ?? null;
 					return {
 						title: l.title,
 						woodName: l.woodName,

@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { z } from 'zod';
+import { parseForm } from '$lib/forms';
 import { resetRequestSchema } from '$lib/schemas/auth';
 import { requestPasswordReset } from '$lib/server/auth/reset-mail';
 import { afterResponse } from '$lib/server/auth/after-response';
@@ -9,12 +9,9 @@ import type { Actions } from './$types';
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = Object.fromEntries(await event.request.formData());
-		const email = typeof form.email === 'string' ? form.email : '';
-		const parsed = resetRequestSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, { errors: z.flattenError(parsed.error).fieldErrors, values: { email } });
-		}
+		const parsed = await parseForm(event.request, resetRequestSchema);
+		if (!parsed.ok) return parsed.failure;
+		const { values } = parsed;
 		const verdict = await takeAll([
 			[throttles.resetEmail, parsed.data.email],
 			[throttles.resetAddress, event.getClientAddress()]
@@ -23,7 +20,7 @@ export const actions: Actions = {
 			event.locals.retryAfterS = verdict.retryAfterS;
 			return fail(429, {
 				errors: { email: [tryAgainIn(verdict.retryAfterS)] },
-				values: { email }
+				values
 			});
 		}
 		// Looked up and mailed after answering: the same answer, in the same time, for everyone.

@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { z } from 'zod';
+import { formText, parseForm } from '$lib/forms';
 import { signInSchema } from '$lib/schemas/auth';
 import { homeFor, safeNext } from '$lib/safe-redirect';
 import { authenticate } from '$lib/server/auth/users';
@@ -20,21 +20,14 @@ const NO_MATCH = "That e-mail and password don't match an account.";
 export const actions: Actions = {
 	default: async (event) => {
 		const { request, cookies, locals, url } = event;
-		const form = Object.fromEntries(await request.formData());
-		const email = typeof form.email === 'string' ? form.email : '';
+		const parsed = await parseForm(request, signInSchema, { extra: { message: '' } });
+		if (!parsed.ok) return parsed.failure;
+		const { form, values } = parsed;
 		const next = safeNext(
-			typeof form.next === 'string' ? form.next : url.searchParams.get('next'),
+			formText(form.get('next'), url.searchParams.get('next') ?? ''),
 			'',
 			url.origin
 		);
-		const parsed = signInSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, {
-				errors: z.flattenError(parsed.error).fieldErrors,
-				values: { email },
-				message: ''
-			});
-		}
 		// Every attempt counts, per account and per client address, before the password is checked.
 		const verdict = await takeAll([
 			[throttles.signInAccount, parsed.data.email],
@@ -42,10 +35,10 @@ export const actions: Actions = {
 		]);
 		if (!verdict.ok) {
 			locals.retryAfterS = verdict.retryAfterS;
-			return fail(429, { errors: {}, values: { email }, message: tryAgainIn(verdict.retryAfterS) });
+			return fail(429, { errors: {}, values, message: tryAgainIn(verdict.retryAfterS) });
 		}
 		const user = await authenticate(parsed.data.email, parsed.data.password);
-		if (!user) return fail(400, { errors: {}, values: { email }, message: NO_MATCH });
+		if (!user) return fail(400, { errors: {}, values, message: NO_MATCH });
 
 		await throttles.signInAccount.forget(parsed.data.email);
 		if (locals.session) await invalidateSession(locals.session.id);

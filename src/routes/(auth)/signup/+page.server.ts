@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { z } from 'zod';
+import { parseForm } from '$lib/forms';
 import { signUpSchema } from '$lib/schemas/auth';
 import { safeNext } from '$lib/safe-redirect';
 import { afterResponse } from '$lib/server/auth/after-response';
@@ -14,8 +14,6 @@ export const load: PageServerLoad = ({ locals, url }) => {
 	return { next };
 };
 
-const text = (v: FormDataEntryValue | undefined) => (typeof v === 'string' ? v : '');
-
 /**
  * Sign-up answers "check your e-mail" for every well-formed request, at once: the account is
  * made from the e-mailed link, and a known address gets a note to its owner instead, so the
@@ -23,12 +21,9 @@ const text = (v: FormDataEntryValue | undefined) => (typeof v === 'string' ? v :
  */
 export const actions: Actions = {
 	default: async (event) => {
-		const form = Object.fromEntries(await event.request.formData());
-		const values = { name: text(form.name), email: text(form.email) };
-		const parsed = signUpSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, { errors: z.flattenError(parsed.error).fieldErrors, values });
-		}
+		const parsed = await parseForm(event.request, signUpSchema);
+		if (!parsed.ok) return parsed.failure;
+		const { values } = parsed;
 		const verdict = await takeAll([
 			[throttles.signUpEmail, parsed.data.email],
 			[throttles.signUpAddress, event.getClientAddress()]

@@ -1,4 +1,5 @@
 import { fail } from '@sveltejs/kit';
+import type { z } from 'zod';
 import {
 	CartError,
 	cartIdFrom,
@@ -9,12 +10,8 @@ import {
 	setQuantity
 } from '$lib/server/cart';
 import { returnUnpaid } from '$lib/server/orders/payment';
-import {
-	destinationSchema,
-	fieldErrors,
-	removeLineSchema,
-	setQuantitySchema
-} from '$lib/schemas/cart';
+import { destinationSchema, removeLineSchema, setQuantitySchema } from '$lib/schemas/cart';
+import { parseForm } from '$lib/forms';
 import { COUNTRIES } from '$lib/shipping';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -28,53 +25,45 @@ export const load: PageServerLoad = async ({ cookies, url }) => {
 	return { summary: await cartSummary(cartId), returned, countries: COUNTRIES };
 };
 
-/** The same changes as /api/cart, for browsers without JavaScript. */
-async function act(
+/**
+ * The same changes as /api/cart, for browsers without JavaScript: parsed first (bad input never
+ * creates a basket), then run; a refusal answers `fail(4xx, { errors, values })`.
+ */
+async function act<S extends z.ZodType>(
 	event: RequestEvent,
-	fn: (cartId: string, form: Record<string, FormDataEntryValue>) => Promise<void>
+	schema: S,
+	run: (cartId: string, input: z.output<S>) => Promise<void>
 ) {
-	const form = Object.fromEntries(await event.request.formData());
+	const parsed = await parseForm(event.request, schema);
+	if (!parsed.ok) return parsed.failure;
 	try {
 		const cartId = await ensureCart(
 			event.cookies,
 			event.locals.user?.id ?? null,
 			event.url.protocol === 'https:'
 		);
-		await fn(cartId, form);
+		await run(cartId, parsed.data);
 		return { ok: true };
 	} catch (err) {
 		if (err instanceof CartError)
-			return fail(err.status === 404 ? 404 : 400, { error: err.message, fields: err.fields });
-		if (err instanceof FormError) return fail(400, { error: err.message, fields: err.fields });
+			return fail(err.status === 404 ? 404 : 400, {
+				errors: { form: [err.message], ...err.fields },
+				values: parsed.values
+			});
 		throw err;
 	}
 }
 
-class FormError extends Error {
-	constructor(public fields: Record<string, string[]>) {
-		super(Object.values(fields)[0]?.[0] ?? 'Check the form.');
-	}
-}
+/** Only the countries we post to; the message the page shows beside the list. */
+const knownDestination = destinationSchema.refine(
+	(d) => (COUNTRIES as readonly string[]).includes(d.country),
+	{ message: 'Choose a country from the list.', path: ['country'] }
+);
 
 export const actions: Actions = {
 	quantity: (event) =>
-		act(event, async (cartId, form) => {
-			const r = setQuantitySchema.safeParse(form);
-			if (!r.success) throw new FormError(fieldErrors(r.error));
-			await setQuantity(cartId, r.data.lineId, r.data.quantity);
-		}),
-	remove: (event) =>
-		act(event, async (cartId, form) => {
-			const r = removeLineSchema.safeParse(form);
-			if (!r.success) throw new FormError(fieldErrors(r.error));
-			await removeLine(cartId, r.data.lineId);
-		}),
+		act(event, setQuantitySchema, (cartId, r) => setQuantity(cartId, r.lineId, r.quantity)),
+	remove: (event) => act(event, removeLineSchema, (cartId, r) => removeLine(cartId, r.lineId)),
 	destination: (event) =>
-		act(event, async (cartId, form) => {
-			const r = destinationSchema.safeParse(form);
-			if (!r.success || !(COUNTRIES as readonly string[]).includes(r.data.country)) {
-				throw new FormError({ country: ['Choose a country from the list.'] });
-			}
-			await setDestination(cartId, r.data.country);
-		})
+		act(event, knownDestination, (cartId, r) => setDestination(cartId, r.country))
 };

@@ -2,10 +2,9 @@ import { fail, redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
 import { OrderError, placeOrder } from '$lib/server/orders/place';
 import { checkoutSchema } from '$lib/schemas/checkout';
-import { fieldErrors } from '$lib/schemas/cart';
 import { COUNTRIES } from '$lib/shipping';
 import type { Actions, PageServerLoad } from './$types';
-import { formText } from '$lib/form-text';
+import { parseForm } from '$lib/forms';
 import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
 import { throttles } from '$lib/server/throttles';
 
@@ -21,14 +20,9 @@ export const load: PageServerLoad = async ({ cookies, locals }) => {
 
 export const actions: Actions = {
 	default: async ({ request, cookies, locals, url, getClientAddress }) => {
-		const raw = Object.fromEntries(await request.formData());
-		const values = Object.fromEntries(
-			Object.entries(raw)
-				.filter(([k]) => k !== 'seenTotal')
-				.map(([k, v]) => [k, formText(v)])
-		);
-		const parsed = checkoutSchema.safeParse(raw);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
+		const parsed = await parseForm(request, checkoutSchema);
+		if (!parsed.ok) return parsed.failure;
+		const { values } = parsed;
 
 		const cartId = cartIdFrom(cookies);
 		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });

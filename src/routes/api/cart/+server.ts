@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/auth/guard';
+import { apiError } from '$lib/server/api-errors';
+import { fieldErrors, type FieldErrors } from '$lib/forms';
 import {
 	addLine,
 	CartError,
@@ -13,7 +14,6 @@ import {
 import {
 	addLineSchema,
 	destinationSchema,
-	fieldErrors,
 	removeLineSchema,
 	setQuantitySchema
 } from '$lib/schemas/cart';
@@ -50,7 +50,7 @@ async function change(
 }
 
 class InputError extends Error {
-	constructor(public fields: Record<string, string[]>) {
+	constructor(public fields: FieldErrors) {
 		super(Object.values(fields)[0]?.[0] ?? 'Check the request.');
 	}
 }

@@ -1,4 +1,4 @@
-import { apiError } from '$lib/server/auth/guard';
+import { apiError } from '$lib/server/api-errors';
 import { letterFont } from '$lib/pattern/letter-font';
 import { patternJson } from '$lib/server/pattern-api';
 import { throttles } from '$lib/server/throttles';

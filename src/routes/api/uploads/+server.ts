@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { requireRoleApi } from '$lib/server/auth/guard';
+import { apiError, apiInvalid } from '$lib/server/api-errors';
 import { addPhoto, PhotoNotFound } from '$lib/server/catalogue/photos';
 import { PhotoRejected } from '$lib/server/storage';
 import { uploadFields } from '$lib/schemas/photo';
@@ -19,11 +20,7 @@ export const POST: RequestHandler = async (event) => {
 		return apiError(400, 'Send the photo as a multipart form with a file field.');
 	}
 	const fields = uploadFields.safeParse({ pieceId: form.get('pieceId'), alt: form.get('alt') });
-	if (!fields.success) {
-		const errs: Record<string, string[]> = {};
-		for (const i of fields.error.issues) (errs[String(i.path[0])] ??= []).push(i.message);
-		return apiError(400, fields.error.issues[0].message, errs);
-	}
+	if (!fields.success) return apiInvalid(fields.error);
 	const file = form.get('file');
 	if (!(file instanceof File))
 		return apiError(400, 'Choose a photo to send.', { file: ['Missing'] });

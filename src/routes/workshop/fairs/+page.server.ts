@@ -1,10 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { createFair, listFairs } from '$lib/server/fairs/fairs';
 import { fairTally } from '$lib/server/fairs/tally';
-import { fieldErrors } from '$lib/server/fairs/http';
 import { fairFormSchema } from '$lib/schemas/fairs';
-import { formText } from '$lib/form-text';
+import { parseForm } from '$lib/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -32,12 +31,8 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	create: async (event) => {
 		requireRole(event, 'owner');
-		const form = Object.fromEntries(await event.request.formData());
-		const parsed = fairFormSchema.safeParse(form);
-		if (!parsed.success) {
-			const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, formText(v)]));
-			return fail(400, { errors: fieldErrors(parsed.error), values });
-		}
+		const parsed = await parseForm(event.request, fairFormSchema);
+		if (!parsed.ok) return parsed.failure;
 		const id = await createFair(parsed.data);
 		redirect(303, `/workshop/fairs/${id}`);
 	}

@@ -4,6 +4,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { moveOrders } from '$lib/server/orders/bulk';
 import { orderStatuses } from '$lib/order-status';
 import { isBenchMove } from '$lib/bench-moves';
+import { firstError, parseForm } from '$lib/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
@@ -21,10 +22,11 @@ export const actions: Actions = {
 	/** Moves the selected orders on together; each one goes only where its status allows. */
 	move: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const form = await event.request.formData();
-		const parsed = moveSchema.safeParse({ refs: form.getAll('refs'), to: form.get('to') });
-		if (!parsed.success) {
-			return fail(400, { error: parsed.error.issues[0]?.message ?? 'Check the selection.' });
+		const parsed = await parseForm(event.request, moveSchema, {
+			input: (t, form) => ({ refs: form.getAll('refs'), to: t.to })
+		});
+		if (!parsed.ok) {
+			return fail(400, { error: firstError(parsed.errors) ?? 'Check the selection.' });
 		}
 		if (!isBenchMove(parsed.data.to)) {
 			return fail(400, { error: 'Orders move on together only to carving, finishing or packed.' });

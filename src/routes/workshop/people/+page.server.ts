@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { z } from 'zod';
+import { parseForm } from '$lib/forms';
 import { addHelperSchema, promoteSchema, removeHelperSchema } from '$lib/schemas/auth';
 import { requireRole } from '$lib/server/auth/guard';
 import { addHelper, listStaff, promoteCustomer, removeHelper } from '$lib/server/auth/staff';
@@ -10,17 +10,12 @@ export const load: PageServerLoad = async (event) => {
 	return { staff: await listStaff(), me: owner.id };
 };
 
-const text = (v: FormDataEntryValue | undefined) => (typeof v === 'string' ? v : '');
-
 export const actions: Actions = {
 	add: async (event) => {
 		requireRole(event, 'owner');
-		const form = Object.fromEntries(await event.request.formData());
-		const values = { name: text(form.name), email: text(form.email) };
-		const parsed = addHelperSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, { form: 'add', errors: z.flattenError(parsed.error).fieldErrors, values });
-		}
+		const parsed = await parseForm(event.request, addHelperSchema, { extra: { form: 'add' } });
+		if (!parsed.ok) return parsed.failure;
+		const { values } = parsed;
 		const r = await addHelper(parsed.data);
 		if (!r.ok) return fail(400, { form: 'add', errors: { [r.field]: [r.message] }, values });
 		return { form: 'add', done: `${r.user.name} can now sign in as a helper.` };
@@ -28,16 +23,9 @@ export const actions: Actions = {
 
 	promote: async (event) => {
 		requireRole(event, 'owner');
-		const form = Object.fromEntries(await event.request.formData());
-		const values = { email: text(form.email) };
-		const parsed = promoteSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, {
-				form: 'promote',
-				errors: z.flattenError(parsed.error).fieldErrors,
-				values
-			});
-		}
+		const parsed = await parseForm(event.request, promoteSchema, { extra: { form: 'promote' } });
+		if (!parsed.ok) return parsed.failure;
+		const { values } = parsed;
 		const r = await promoteCustomer(parsed.data.email);
 		if (!r.ok) return fail(400, { form: 'promote', errors: { [r.field]: [r.message] }, values });
 		return { form: 'promote', done: `${r.user.name} is now a helper.` };
@@ -45,10 +33,10 @@ export const actions: Actions = {
 
 	remove: async (event) => {
 		const owner = requireRole(event, 'owner');
-		const parsed = removeHelperSchema.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) {
-			return fail(400, { form: 'remove', errors: z.flattenError(parsed.error).fieldErrors });
-		}
+		const parsed = await parseForm(event.request, removeHelperSchema, {
+			extra: { form: 'remove' }
+		});
+		if (!parsed.ok) return parsed.failure;
 		const r = await removeHelper(owner.id, parsed.data.userId);
 		if (!r.ok) return fail(400, { form: 'remove', errors: { userId: [r.message] } });
 		return {

@@ -1,11 +1,9 @@
-import { fail } from '@sveltejs/kit';
 import { daysBetween } from '$lib/carving-queue';
 import { requireRole } from '$lib/server/auth/guard';
-import { formTexts } from '$lib/form-text';
+import { parseForm } from '$lib/forms';
 import { carvingQueue, setCarvingSchedule } from '$lib/server/orders/carving-queue';
 import { alertHelperIds, setAlertOptIn } from '$lib/server/orders/paid-alert';
 import { carvingHoursForm } from '$lib/schemas/carving-hours';
-import { fieldErrors } from '$lib/schemas/cart';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -22,9 +20,8 @@ export const actions: Actions = {
 	/** The owner's carving week: changing it re-dates every queued order. */
 	hours: async (event) => {
 		requireRole(event, 'owner');
-		const values = await formTexts(event.request);
-		const parsed = carvingHoursForm.safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
+		const parsed = await parseForm(event.request, carvingHoursForm);
+		if (!parsed.ok) return parsed.failure;
 		const v = parsed.data;
 		const mins = (h: number) => Math.round(h * 60);
 		await setCarvingSchedule({

@@ -15,7 +15,7 @@ import { away, policies, rateLine, shopInfo } from '$lib/schemas/settings';
 import { formatRates, parseRates } from './rates-text';
 import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
-import { formText } from '$lib/form-text';
+import { formText, parseForm } from '$lib/forms';
 
 /** The rate as typed, in percent with up to two decimals (7.25 → 725 basis points). */
 const taxSchema = z.object({
@@ -29,14 +29,7 @@ const taxSchema = z.object({
 		)
 });
 
-/** zod issues as `{ field: [message] }`, nested paths joined with dots (address.city). */
-function fieldErrors(issues: z.core.$ZodIssue[]) {
-	const out: Record<string, string[]> = {};
-	for (const i of issues) (out[i.path.join('.')] ??= []).push(i.message);
-	return out;
-}
-
-const text = (form: FormData, k: string) => formText(form.get(k) ?? undefined);
+const ADDRESS_KEYS = ['name', 'line1', 'line2', 'city', 'region', 'postcode', 'country'];
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'owner');
@@ -53,42 +46,30 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	tax: async (event) => {
 		requireRole(event, 'owner');
-		const form = Object.fromEntries(await event.request.formData());
-		const parsed = taxSchema.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, {
-				errors: { rate: [parsed.error.issues[0].message] },
-				values: { rate: formText(form.rate) }
-			});
-		}
+		const parsed = await parseForm(event.request, taxSchema);
+		if (!parsed.ok) return parsed.failure;
 		await setSalesTaxBp(parsed.data.rate);
 		return { saved: 'tax' };
 	},
 	shop: async (event) => {
 		requireRole(event, 'owner');
-		const f = await event.request.formData();
-		const input = {
-			name: text(f, 'name'),
-			email: text(f, 'email'),
-			address: Object.fromEntries(
-				['name', 'line1', 'line2', 'city', 'region', 'postcode', 'country'].map((k) => [
-					k,
-					text(f, `address.${k}`)
-				])
-			)
-		};
-		const parsed = shopInfo.safeParse(input);
-		if (!parsed.success)
-			return fail(400, { section: 'shop', errors: fieldErrors(parsed.error.issues) });
+		// The address fields are posted as address.<key>; the schema wants them nested.
+		const parsed = await parseForm(event.request, shopInfo, {
+			extra: { section: 'shop' },
+			input: (t) => ({
+				name: t.name ?? '',
+				email: t.email ?? '',
+				address: Object.fromEntries(ADDRESS_KEYS.map((k) => [k, t[`address.${k}`] ?? '']))
+			})
+		});
+		if (!parsed.ok) return parsed.failure;
 		await setShopInfo(parsed.data);
 		return { saved: 'shop' };
 	},
 	away: async (event) => {
 		requireRole(event, 'owner');
-		const f = await event.request.formData();
-		const parsed = away.safeParse({ until: text(f, 'until'), note: text(f, 'note') });
-		if (!parsed.success)
-			return fail(400, { section: 'away', errors: fieldErrors(parsed.error.issues) });
+		const parsed = await parseForm(event.request, away, { extra: { section: 'away' } });
+		if (!parsed.ok) return parsed.failure;
 		await setAway(parsed.data);
 		// Away days are days off for the carving queue: every queued order's date moves.
 		await recomputeReadyBy();
@@ -96,19 +77,14 @@ export const actions: Actions = {
 	},
 	policies: async (event) => {
 		requireRole(event, 'owner');
-		const f = await event.request.formData();
-		const parsed = policies.safeParse({
-			returnsDays: text(f, 'returnsDays'),
-			extra: text(f, 'extra')
-		});
-		if (!parsed.success)
-			return fail(400, { section: 'policies', errors: fieldErrors(parsed.error.issues) });
+		const parsed = await parseForm(event.request, policies, { extra: { section: 'policies' } });
+		if (!parsed.ok) return parsed.failure;
 		await setPolicies(parsed.data);
 		return { saved: 'policies' };
 	},
 	rates: async (event) => {
 		requireRole(event, 'owner');
-		const raw = text(await event.request.formData(), 'rates');
+		const raw = formText((await event.request.formData()).get('rates'));
 		const parsed = parseRates(raw, rateLine);
 		if (!parsed.ok) return fail(400, { section: 'rates', errors: { rates: [parsed.error] }, raw });
 		await replaceShippingRates(parsed.rows);

@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { z } from 'zod';
+import { parseForm } from '$lib/forms';
 import { resetPasswordSchema } from '$lib/schemas/auth';
 import { homeFor } from '$lib/safe-redirect';
 import { checkResetToken, completeReset } from '$lib/server/auth/reset';
@@ -17,13 +17,10 @@ export const load: PageServerLoad = async ({ params, setHeaders }) => {
 
 export const actions: Actions = {
 	default: async ({ params, request, cookies, url }) => {
-		const parsed = resetPasswordSchema.safeParse(Object.fromEntries(await request.formData()));
-		if (!parsed.success) {
-			return fail(400, {
-				errors: z.flattenError(parsed.error).fieldErrors,
-				state: 'valid' as const
-			});
-		}
+		const parsed = await parseForm(request, resetPasswordSchema, {
+			extra: { state: 'valid' as const }
+		});
+		if (!parsed.ok) return parsed.failure;
 		const done = await completeReset(params.token, parsed.data.password);
 		if (!done.ok) return fail(400, { errors: {}, state: done.state });
 

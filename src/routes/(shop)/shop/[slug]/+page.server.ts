@@ -4,10 +4,10 @@ import { standardMinutes } from '$lib/layout-minutes';
 import { queueOutlook } from '$lib/server/orders/carving-queue';
 import { getPiece } from '$lib/server/catalogue';
 import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
-import { addLineSchema, fieldErrors } from '$lib/schemas/cart';
+import { addLineSchema } from '$lib/schemas/cart';
 import { hardnessWords, weightWords } from '$lib/woods';
 import type { Actions, PageServerLoad } from './$types';
-import { formText } from '$lib/form-text';
+import { fieldErrors, formTexts } from '$lib/forms';
 import { drawPreview } from '$lib/pattern/personaliser-draw';
 import type { RosetteStyle } from '$lib/pattern/styles';
 
@@ -77,17 +77,18 @@ export const load: PageServerLoad = async ({ params }) => {
 export const actions: Actions = {
 	/** Adds the piece, personalised or ready-made; the server checks and prices it again. */
 	add: async ({ request, params, cookies, locals, url }) => {
-		const form = Object.fromEntries(await request.formData());
+		const form = formTexts(await request.formData());
 		const personalised = form.mode === 'personalised';
 		const values = {
 			mode: personalised ? 'personalised' : 'ready',
-			initials: formText(form.initials),
-			wood: formText(form.wood),
-			style: formText(form.style),
-			quantity: formText(form.quantity, '1')
+			initials: form.initials ?? '',
+			wood: form.wood ?? '',
+			style: form.style ?? '',
+			quantity: form.quantity ?? '1'
 		};
+		// Not parseForm: a personalised line also needs initials, and the answer carries a preview.
 		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
-		const errors: Record<string, string[]> = parsed.success ? {} : fieldErrors(parsed.error);
+		const errors = parsed.success ? {} : fieldErrors(parsed.error);
 		if (personalised && !values.initials.trim()) {
 			errors.initials = ['Type one to three letters for the rosette.'];
 		}

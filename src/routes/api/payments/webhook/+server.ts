@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/auth/guard';
+import { apiError } from '$lib/server/api-errors';
 import { config } from '$lib/server/config';
 import { verifyWebhook, WebhookSignatureError } from '$lib/server/payments';
 import { handlePaymentEvent, PaymentEventError } from '$lib/server/orders/payment';

@@ -2,10 +2,10 @@ import { fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
 import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
-import { fairIdParam, fieldErrors, orFail, orPageError } from '$lib/server/fairs/http';
+import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
 import { fairFormSchema, loadOutLineSchema } from '$lib/schemas/fairs';
 import { fairFormValues } from '$lib/fair-form-values';
-import { formText } from '$lib/form-text';
+import { formTexts, parseForm } from '$lib/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -41,12 +41,8 @@ export const actions: Actions = {
 	save: async (event) => {
 		requireRole(event, 'owner');
 		const id = fairIdParam(event.params.id);
-		const form = Object.fromEntries(await event.request.formData());
-		const parsed = fairFormSchema.safeParse(form);
-		if (!parsed.success) {
-			const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, formText(v)]));
-			return fail(400, { errors: fieldErrors(parsed.error), values });
-		}
+		const parsed = await parseForm(event.request, fairFormSchema);
+		if (!parsed.ok) return parsed.failure;
 		return orFail(async () => {
 			await updateFair(id, parsed.data);
 			return { saved: true };
@@ -55,16 +51,13 @@ export const actions: Actions = {
 	loadOut: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
 		const id = fairIdParam(event.params.id);
-		const form = await event.request.formData();
+		const form = formTexts(await event.request.formData());
 		const lines: { pieceId: number; woodId: number; quantity: number }[] = [];
-		for (const [key, value] of form) {
+		// One input per shelf row (take-<piece>-<wood>), so each row is parsed on its own.
+		for (const [key, value] of Object.entries(form)) {
 			const m = /^take-(\d+)-(\d+)$/.exec(key);
-			if (!m || formText(value).trim() === '' || formText(value).trim() === '0') continue;
-			const parsed = loadOutLineSchema.safeParse({
-				pieceId: m[1],
-				woodId: m[2],
-				quantity: formText(value)
-			});
+			if (!m || value.trim() === '' || value.trim() === '0') continue;
+			const parsed = loadOutLineSchema.safeParse({ pieceId: m[1], woodId: m[2], quantity: value });
 			if (!parsed.success) {
 				return fail(400, { loadOutError: parsed.error.issues[0].message, key });
 			}

@@ -1,6 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { formTexts } from '$lib/form-text';
+import { firstError, formTexts, parseForm } from '$lib/forms';
 import { workshopOrderDetail } from '$lib/server/orders/views';
 import { nextStatuses, statusLabel } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
@@ -10,7 +10,6 @@ import { shipmentSchema } from '$lib/schemas/shipment';
 import { refundFormSchema } from '$lib/schemas/refund';
 import { balanceSchema } from '$lib/schemas/balance';
 import { recordBalancePaid } from '$lib/server/orders/balance';
-import { fieldErrors } from '$lib/schemas/cart';
 import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
 import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
 import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
@@ -42,8 +41,8 @@ function refused(err: unknown, form: string) {
 export const actions: Actions = {
 	move: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const parsed = moveSchema.safeParse(await formTexts(event.request));
-		if (!parsed.success) return fail(400, { form: 'move', error: parsed.error.issues[0].message });
+		const parsed = await parseForm(event.request, moveSchema);
+		if (!parsed.ok) return fail(400, { form: 'move', error: firstError(parsed.errors) });
 		const { to, why } = parsed.data;
 		if (!isBenchMove(to)) {
 			return fail(400, {
@@ -63,11 +62,8 @@ export const actions: Actions = {
 
 	ship: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const values = await formTexts(event.request);
-		const parsed = shipmentSchema.safeParse(values);
-		if (!parsed.success) {
-			return fail(400, { form: 'ship', errors: fieldErrors(parsed.error), values });
-		}
+		const parsed = await parseForm(event.request, shipmentSchema, { extra: { form: 'ship' } });
+		if (!parsed.ok) return parsed.failure;
 		try {
 			const s = await shipOrder(
 				event.params.ref,
@@ -90,11 +86,10 @@ export const actions: Actions = {
 		const user = requireRole(event, 'owner');
 		const order = await workshopOrderDetail(event.params.ref);
 		if (!order) return fail(404, { form: 'refund', error: 'There is no such order.' });
-		const values = await formTexts(event.request);
-		const parsed = refundFormSchema(order.currency).safeParse(values);
-		if (!parsed.success) {
-			return fail(400, { form: 'refund', errors: fieldErrors(parsed.error), values });
-		}
+		const parsed = await parseForm(event.request, refundFormSchema(order.currency), {
+			extra: { form: 'refund' }
+		});
+		if (!parsed.ok) return parsed.failure;
 		try {
 			const r = await refundOrder(
 				event.params.ref,
@@ -124,7 +119,7 @@ export const actions: Actions = {
 
 	balance: async (event) => {
 		const user = requireRole(event, 'owner');
-		const parsed = balanceSchema.safeParse(await formTexts(event.request));
+		const parsed = balanceSchema.safeParse(formTexts(await event.request.formData()));
 		if (!parsed.success)
 			return fail(400, { form: 'balance', error: parsed.error.issues[0].message });
 		try {
@@ -137,10 +132,8 @@ export const actions: Actions = {
 
 	note: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const values = await formTexts(event.request);
-		const parsed = noteSchema.safeParse(values);
-		if (!parsed.success)
-			return fail(400, { form: 'note', errors: fieldErrors(parsed.error), values });
+		const parsed = await parseForm(event.request, noteSchema, { extra: { form: 'note' } });
+		if (!parsed.ok) return parsed.failure;
 		try {
 			await addOrderNote(event.params.ref, parsed.data.body, user.id);
 			return { form: 'note', done: 'Note added.' };

@@ -16,9 +16,8 @@ import {
 } from '$lib/server/catalogue/photos';
 import { photoAlt } from '$lib/schemas/photo';
 import { stockAdjustForm, stockDelta } from '$lib/schemas/stock';
-import { fieldErrors } from '$lib/schemas/cart';
-import { formTexts } from '$lib/form-text';
 import { adjustPieceStock, pieceStock, StockChangeError } from '$lib/server/stock/piece-stock';
+import { fieldErrors, firstError, formTexts, parseForm } from '$lib/forms';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -38,10 +37,8 @@ async function withPhoto<S extends z.ZodType>(
 	schema: S,
 	run: (p: z.infer<S>) => Promise<void>
 ) {
-	const parsed = schema.safeParse(Object.fromEntries(await request.formData()));
-	if (!parsed.success) {
-		return fail(400, { photoError: parsed.error.issues[0].message });
-	}
+	const parsed = await parseForm(request, schema);
+	if (!parsed.ok) return fail(400, { photoError: firstError(parsed.errors) });
 	try {
 		await run(parsed.data);
 	} catch (err) {
@@ -105,7 +102,7 @@ export const actions: Actions = {
 	stock: async (event) => {
 		const user = requireRole(event, 'owner');
 		const id = pieceId(event.params.id);
-		const values = await formTexts(event.request);
+		const values = formTexts(await event.request.formData());
 		const parsed = stockAdjustForm.safeParse(values);
 		if (!parsed.success) {
 			return fail(400, { stockErrors: fieldErrors(parsed.error), stockValues: values });

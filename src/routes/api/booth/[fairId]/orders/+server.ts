@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { requireRoleApi } from '$lib/server/auth/guard';
+import { apiError, apiInvalid } from '$lib/server/api-errors';
 import { placeBoothOrder } from '$lib/server/fairs/booth-order';
 import { readBoothJson } from '$lib/server/fairs/read-json';
 import { FairError } from '$lib/server/fairs/errors';
@@ -13,11 +14,7 @@ export const POST: RequestHandler = async (event) => {
 	if (!Number.isInteger(fairId) || fairId <= 0) return apiError(404, 'There is no such fair.');
 	try {
 		const parsed = boothOrderSchema.safeParse(await readBoothJson(event.request));
-		if (!parsed.success) {
-			const fields: Record<string, string[]> = {};
-			for (const i of parsed.error.issues) (fields[String(i.path[0])] ??= []).push(i.message);
-			return apiError(400, parsed.error.issues[0].message, fields);
-		}
+		if (!parsed.success) return apiInvalid(parsed.error);
 		return json(await placeBoothOrder(fairId, parsed.data, user, event.url.origin));
 	} catch (err) {
 		if (err instanceof FairError) return apiError(err.status, err.message);

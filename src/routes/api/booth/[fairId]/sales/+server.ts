@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { requireRoleApi } from '$lib/server/auth/guard';
+import { apiError } from '$lib/server/api-errors';
 import { syncSales } from '$lib/server/fairs/booth-sync';
 import { readBoothJson } from '$lib/server/fairs/read-json';
 import { FairError } from '$lib/server/fairs/errors';

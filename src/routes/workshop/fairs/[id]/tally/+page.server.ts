@@ -3,7 +3,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { closeFair, fairTally, saveTally } from '$lib/server/fairs/tally';
 import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
 import { countSchema, moneyField, tallyFormSchema } from '$lib/schemas/fairs';
-import { formText } from '$lib/form-text';
+import { formTexts } from '$lib/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -37,20 +37,21 @@ export const actions: Actions = {
 	counts: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
 		const id = fairIdParam(event.params.id);
-		const form = await event.request.formData();
+		const form = formTexts(await event.request.formData());
 		const errors: Record<string, string> = {};
 		const counts: Record<number, number> = {};
-		for (const [key, value] of form) {
+		// One count per stock row (count-<id>), each parsed on its own.
+		for (const [key, value] of Object.entries(form)) {
 			const m = /^count-(\d+)$/.exec(key);
-			if (!m || formText(value).trim() === '') continue;
-			const n = countSchema.safeParse(formText(value).trim());
+			if (!m || value.trim() === '') continue;
+			const n = countSchema.safeParse(value.trim());
 			if (n.success) counts[Number(m[1])] = n.data;
 			else errors[key] = n.error.issues[0].message;
 		}
 		const money = tallyFormSchema.safeParse({
-			cashCounted: formText(form.get('cashCounted') ?? ''),
-			cashPaidOut: formText(form.get('cashPaidOut') ?? ''),
-			cardReported: formText(form.get('cardReported') ?? '')
+			cashCounted: form.cashCounted ?? '',
+			cashPaidOut: form.cashPaidOut ?? '',
+			cardReported: form.cardReported ?? ''
 		});
 		if (!money.success) for (const i of money.error.issues) errors[String(i.path[0])] = i.message;
 		let cardReportedMinor: number | null | undefined = undefined;
@@ -64,7 +65,7 @@ export const actions: Actions = {
 			}
 		}
 		if (Object.keys(errors).length || !money.success) return fail(400, { errors });
-		const cashGiven = formText(form.get('cashCounted') ?? '').trim() !== '';
+		const cashGiven = (form.cashCounted ?? '').trim() !== '';
 		return orFail(async () => {
 			await saveTally(
 				id,

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
-import { apiError, requireRoleApi } from '$lib/server/auth/guard';
+import { requireRoleApi } from '$lib/server/auth/guard';
+import { apiError, apiInvalid } from '$lib/server/api-errors';
 import { OrderNotFoundError, shipOrder, StatusMoveError } from '$lib/server/orders/ship';
 import { shipmentSchema } from '$lib/schemas/shipment';
-import { fieldErrors } from '$lib/schemas/cart';
 import type { RequestHandler } from './$types';
 
 /** Marks the order shipped with its carrier and tracking number; the buyer gets an e-mail. */
@@ -12,7 +12,7 @@ export const POST: RequestHandler = async (event) => {
 	if (!body || typeof body !== 'object') return apiError(400, 'Send a JSON object.');
 	const parsed = shipmentSchema.safeParse(body);
 	if (!parsed.success) {
-		return apiError(400, 'Check the carrier and tracking number.', fieldErrors(parsed.error));
+		return apiInvalid(parsed.error, 'Check the carrier and tracking number.');
 	}
 	try {
 		const shipment = await shipOrder(

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { apiError, requireRole } from '$lib/server/auth/guard';
+import { requireRole } from '$lib/server/auth/guard';
+import { apiError } from '$lib/server/api-errors';
 import { letterFont } from '$lib/pattern/letter-font';
 import { orderLineForTemplate } from '$lib/server/orders/views';
 import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';

@@ -1,5 +1,5 @@
 import type { MySql2Database } from 'drizzle-orm/mysql2';
-import type * as schema from '../db/schema';
+import type * as schema from '../../src/lib/server/db/schema';
 import { demoPhotos } from './photos';
 import { demoReadyBy } from './ready-by';
 import { demoBoothOrder } from './fairs';

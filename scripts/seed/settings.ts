@@ -2,7 +2,7 @@
  * Demo shop details: Hollis Marsh's workshop address in the invented town of Linden Ford, a
  * contact address, no closed dates, and the returns window. Relative imports only (runs under tsx).
  */
-import * as schema from '../db/schema';
+import * as schema from '../../src/lib/server/db/schema';
 import type { SeedDb } from './extras';
 
 type SeedTx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];

@@ -9,7 +9,7 @@ import type { DemoExtra } from './extras';
 export const demoReadyBy: DemoExtra = {
 	name: 'ready-by dates from the carving queue',
 	run: async (db) => {
-		const { recomputeReadyBy } = await import('../orders/carving-queue');
+		const { recomputeReadyBy } = await import('../../src/lib/server/orders/carving-queue');
 		await db.transaction(async (tx) => {
 			await recomputeReadyBy(new Date(), tx);
 		});

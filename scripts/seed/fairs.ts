@@ -8,9 +8,10 @@
  * starts from is unchanged by them.
  */
 import { and, eq } from 'drizzle-orm';
-import * as schema from '../db/schema';
-import { adjustStock, fairPlace } from '../stock/adjust';
-import { priceSale } from '../../reconcile';
+import * as schema from '../../src/lib/server/db/schema';
+import { adjustStock, fairPlace } from '../../src/lib/server/stock/adjust';
+import { priceSale } from '../../src/lib/reconcile';
+import { isoDay } from '../../src/lib/dates';
 import type { DemoExtra, SeedDb } from './extras';
 
 type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
@@ -23,7 +24,7 @@ type Line = [piece: string, wood: string, quantity: number];
 type Sale = { lines: Line[]; method: 'cash' | 'card' | 'other'; hour: number; discount?: number };
 
 const DAY = 86_400_000;
-const iso = (d: Date) => d.toISOString().slice(0, 10);
+const iso = isoDay;
 
 type DemoFair = {
 	fair: Omit<typeof schema.fairs.$inferInsert, 'startsOn' | 'endsOn'>;
@@ -302,7 +303,7 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 export const demoBoothOrder: DemoExtra = {
 	name: 'a booth order with a deposit',
 	run: async (db, seeded) => {
-		const { placeBoothOrder } = await import('../orders/booth');
+		const { placeBoothOrder } = await import('../../src/lib/server/orders/booth');
 		const [fair] = await db
 			.select()
 			.from(schema.fairs)

@@ -5,9 +5,8 @@
  */
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
-import * as schema from '../db/schema';
-import { jsonValue } from '../json-column';
-import { storePhoto } from '../storage';
+import * as schema from '../../src/lib/server/db/schema';
+import { storePhoto } from '../../src/lib/server/storage';
 import type { DemoExtra } from './extras';
 
 const W = 1200;
@@ -144,7 +143,7 @@ export const demoPhotos: DemoExtra = {
 				await db.select().from(schema.pieceWoods).where(eq(schema.pieceWoods.pieceId, pieceId))
 			).map((r) => r.woodId);
 			const woods = woodRows.filter((w) => woodIds.includes(w.id)).slice(0, 2);
-			const pattern = jsonValue<typeof piece.pattern | null>(piece.pattern);
+			const pattern = piece.pattern;
 			for (const [i, w] of woods.entries()) {
 				const svg = pieceSvg(
 					piece.kind,
