@@ -152,7 +152,7 @@ function describe(report: Report, events: TraceEvent[], lcp: number, fcp: number
 		element: `${data.type ?? '?'} ${String(data.nodeName ?? '?').slice(0, 90)}`,
 		imageUrl: imageUrl?.replace(/^https?:\/\/[^/]+/, ''),
 		phases: Object.fromEntries(
-			Object.entries(phases).map(([k, v]) => [k, Math.round(v as number)])
+			Object.entries(phases).map(([k, v]) => [k, Math.round(v)])
 		) as LcpPhases,
 		before: {
 			requests: done.length,
