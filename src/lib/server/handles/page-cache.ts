@@ -27,7 +27,8 @@ import { scriptPreloadsIntoHead } from './link-preloads';
  */
 const MAX_PAGES = 300;
 
-type Encoded = { body: Uint8Array; headers: Headers };
+type Bytes = Uint8Array<ArrayBuffer>;
+type Encoded = { body: Bytes; headers: Headers };
 type Stored = {
 	status: number;
 	etag: string | null;
@@ -40,7 +41,7 @@ type Stored = {
 let version = '';
 const pages = new Map<string, Stored>();
 
-function encoded(base: Headers, body: Uint8Array, encoding: string | null): Encoded {
+function encoded(base: Headers, body: Bytes, encoding: string | null): Encoded {
 	const headers = new Headers(base);
 	headers.set('content-length', String(body.byteLength));
 	if (encoding) headers.set('content-encoding', encoding);
@@ -48,7 +49,7 @@ function encoded(base: Headers, body: Uint8Array, encoding: string | null): Enco
 }
 
 /** Builds everything a hit needs once, so answering is a look-up. */
-function store(response: Response, rendered: Uint8Array): Stored {
+function store(response: Response, rendered: Bytes): Stored {
 	const base = new Headers(response.headers);
 	base.set('x-page-cache', 'hit');
 	base.append('vary', 'Accept-Encoding');
@@ -74,8 +75,8 @@ function store(response: Response, rendered: Uint8Array): Stored {
 		status: response.status,
 		etag,
 		identity: encoded(base, bytes, null),
-		gzip: encoded(base, gz, 'gzip'),
-		br: encoded(base, br, 'br'),
+		gzip: encoded(base, new Uint8Array(gz), 'gzip'),
+		br: encoded(base, new Uint8Array(br), 'br'),
 		notModified
 	};
 }

@@ -8,7 +8,7 @@ import { LRUCache } from 'lru-cache';
  * for the store was the largest part of it. Entries live ten minutes, so a deleted photo stops
  * being served by every process within that time (browsers keep it a year in any case).
  */
-type Kept = { body: Uint8Array; headers: [string, string][] };
+type Kept = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
 
 const MAX_BYTES = 32 * 1024 * 1024;
 const kept = new LRUCache<string, Kept>({
