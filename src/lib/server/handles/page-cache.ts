@@ -122,7 +122,14 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	) {
 		return resolve(event);
 	}
-	const v = `${await catalogueVersion()}|${new Date().toDateString()}`;
+	let v: string;
+	try {
+		v = `${await catalogueVersion()}|${new Date().toDateString()}`;
+	} catch {
+		// No version, no cache: the page renders as if uncached, so its loads meet the same error
+		// inside SvelteKit (a 503 while the database is down) and every outer handle still runs.
+		return resolve(event);
+	}
 	if (v !== version) {
 		pages.clear();
 		version = v;
