@@ -15,11 +15,13 @@ const config = {
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
 		csrf: { trustedOrigins: [] },
 		// Content-Security-Policy on every page (OWASP Content Security Policy Cheat Sheet):
-		// SvelteKit puts a nonce (or, on prerendered pages, a hash) on its own inline script, so no
+		// SvelteKit names its own inline script by its sha256 hash in the policy, so no
 		// 'unsafe-inline' for scripts. Styles keep it for the style attributes the preview and
 		// planner drawings set. Non-page responses get a deny-all policy in hooks.server.ts.
 		csp: {
-			mode: 'auto',
+			// Hashes rather than nonces: a cached public page is answered with the same bytes and the same
+			// policy every time (a nonce must never repeat), see src/lib/server/handles/page-cache.ts.
+			mode: 'hash',
 			directives: {
 				'default-src': ['self'],
 				'script-src': ['self'],

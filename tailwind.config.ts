@@ -10,7 +10,7 @@ export default {
 				ink: { DEFAULT: 'var(--c-ink)', soft: 'var(--c-ink-soft)' },
 				line: 'var(--c-line)',
 				accent: { DEFAULT: 'var(--c-accent)', deep: 'var(--c-accent-deep)' },
-				moss: 'var(--c-moss)',
+				moss: { DEFAULT: 'var(--c-moss)', deep: 'var(--c-moss-deep)' },
 				warn: 'var(--c-warn)',
 				danger: 'var(--c-danger)',
 				focus: 'var(--c-focus)'

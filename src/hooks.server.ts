@@ -12,6 +12,7 @@ import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
 import { pageCacheHandle } from '$lib/server/handles/page-cache';
+import { photoCacheHandle } from '$lib/server/handles/photo-cache';
 import { declaredTooLarge } from '$lib/server/body-limit';
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
@@ -78,6 +79,7 @@ const apiErrors: Handle = async ({ event, resolve }) => {
 // Headers first, so cached pages, 503s and errors all carry them.
 export const handle = sequence(
 	headers,
+	photoCacheHandle,
 	availabilityHandle,
 	pageCacheHandle,
 	httpCacheHandle,

@@ -11,7 +11,22 @@ import { expect, test, type Page } from '@playwright/test';
 import { signInAs } from './helpers/auth';
 import type { Role } from '../../src/lib/server/db/schema';
 
-type Screen = { name: string; path: string; role?: Role; prepare?: (page: Page) => Promise<void> };
+type Screen = {
+	name: string;
+	/** A path, or a function finding it once signed in (a fair's pages need the fair's id). */
+	path: string | ((page: Page) => Promise<string>);
+	role?: Role;
+	prepare?: (page: Page) => Promise<void>;
+	/** After the page loads: put it in the state worth checking (e.g. a sale under way). */
+	then?: (page: Page) => Promise<void>;
+	/** A phone's viewport, for screens used on a phone. */
+	phone?: boolean;
+	/**
+	 * Also hold text to WCAG 2.1 SC 1.4.6 (enhanced contrast, 7:1; 4.5:1 for large text), well
+	 * above the AA minimum of 4.5:1: for the booth screen, read outdoors in daylight.
+	 */
+	enhancedContrast?: boolean;
+};
 
 async function basketWithOnePiece(page: Page) {
 	await page.goto('/shop/rosette-bottle-holder', { waitUntil: 'networkidle' });
@@ -19,6 +34,19 @@ async function basketWithOnePiece(page: Page) {
 	await section.getByRole('textbox', { name: 'Initials' }).fill('HM');
 	await page.getByRole('button', { name: 'Add to basket with these initials' }).click();
 	await expect(page.getByTestId('cart-count')).toHaveText('1');
+}
+
+/** A page of the demo's open fair (loaded out, selling today), found from the fairs list. */
+function openFairPage(sub: string) {
+	return async (page: Page) => {
+		await page.goto('/workshop/fairs');
+		const href = await page
+			.getByRole('link', { name: 'Riverbank Winter Market' })
+			.first()
+			.getAttribute('href');
+		expect(href).toMatch(/^\/workshop\/fairs\/\d+$/);
+		return `${href}${sub}`;
+	};
 }
 
 const SCREENS: Screen[] = [
@@ -29,18 +57,32 @@ const SCREENS: Screen[] = [
 	{ name: 'sign-in', path: '/signin' },
 	{ name: 'order page (buyer)', path: '/orders/CS-1001', role: 'customer' },
 	{ name: 'orders table', path: '/workshop/orders', role: 'owner' },
-	{ name: 'order page (workshop)', path: '/workshop/orders/CS-1001', role: 'owner' }
-	// Booth and tally screens: add their rows here when those routes exist.
+	{ name: 'order page (workshop)', path: '/workshop/orders/CS-1001', role: 'owner' },
+	{
+		name: 'booth screen on a phone, a sale under way',
+		path: openFairPage('/booth'),
+		role: 'helper',
+		phone: true,
+		enhancedContrast: true,
+		then: async (page) => {
+			await page.getByRole('button', { name: /^Add Rosette ornament, Basswood/ }).click();
+			await expect(page.getByRole('button', { name: 'Record the sale' })).toBeVisible();
+		}
+	},
+	{ name: 'tally', path: openFairPage('/tally'), role: 'owner' }
 ];
 
 const FOCUS_STOPS = 6;
 
 for (const screen of SCREENS) {
 	test(`accessibility: ${screen.name}`, async ({ page }) => {
-		if (screen.role) await signInAs(page, screen.role, screen.path);
+		if (screen.phone) await page.setViewportSize({ width: 390, height: 844 });
+		if (screen.role) await signInAs(page, screen.role);
+		const path = typeof screen.path === 'string' ? screen.path : await screen.path(page);
 		if (screen.prepare) await screen.prepare(page);
-		await page.goto(screen.path);
+		await page.goto(path);
 		await page.waitForLoadState('networkidle');
+		if (screen.then) await screen.then(page);
 
 		const results = await new AxeBuilder({ page })
 			.withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
@@ -49,6 +91,15 @@ for (const screen of SCREENS) {
 			.filter((v) => v.impact === 'serious' || v.impact === 'critical')
 			.map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 		expect(bad, 'serious or critical axe findings').toEqual([]);
+		if (screen.enhancedContrast) {
+			const enhanced = await new AxeBuilder({ page })
+				.withRules(['color-contrast-enhanced'])
+				.analyze();
+			const low = enhanced.violations.flatMap((v) =>
+				v.nodes.map((n) => `${n.target.join(' ')}: ${n.any[0]?.message ?? v.help}`)
+			);
+			expect(low, 'text below 7:1 (4.5:1 when large) on the booth').toEqual([]);
+		}
 
 		// Keyboard alone: each Tab lands on a different visible control with a focus outline.
 		const seen = new Set<string>();

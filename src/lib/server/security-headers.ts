@@ -1,6 +1,6 @@
 /**
  * Headers every response carries, whatever made it (page, API, PDF, photo, error, redirect).
- * Pages get their Content-Security-Policy from `kit.csp` in svelte.config.js (with a nonce for
+ * Pages get their Content-Security-Policy from `kit.csp` in svelte.config.js (with a hash for
  * SvelteKit's own inline script); anything else gets a policy that allows nothing to run and
  * nobody to frame it. Sources: OWASP Secure Headers Project and the OWASP Content Security
  * Policy Cheat Sheet; OWASP ASVS 4.0 V14.4 (HTTP security headers).

@@ -1,7 +1,9 @@
-import { randomBytes } from 'node:crypto';
+import { createHash } from 'node:crypto';
+import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import type { Handle } from '@sveltejs/kit';
 import { catalogueVersion } from '$lib/server/catalogue-cache';
 import { isPublicPage } from './public-pages';
+import { scriptPreloadsIntoHead } from './link-preloads';
 
 /**
  * Whole rendered public pages for visitors without cookies, kept per process.
@@ -14,41 +16,99 @@ import { isPublicPage } from './public-pages';
  * process, a script or by hand changes the checksum, so every process drops its pages within a
  * second. Anyone with a cookie (signed in, or with a basket) is rendered afresh, as before.
  *
+ * A hit does as little as it can, since it is most of the shop's traffic: the page's
+ * Content-Security-Policy names its inline script by hash (`kit.csp.mode: 'hash'`), so the stored
+ * bytes are answered unchanged, and they are compressed once when stored (brotli and gzip) rather
+ * than on every answer. A page whose policy carries a nonce is never stored: a nonce must not
+ * repeat between answers.
+ *
  * Sits before the ETag handle: a miss goes through it, so the stored headers carry the ETag, and a
  * hit answers If-None-Match itself.
  */
 const MAX_PAGES = 300;
 
+type Bytes = Uint8Array<ArrayBuffer>;
+type Encoded = { body: Bytes; headers: Headers };
 type Stored = {
 	status: number;
-	headers: [string, string][];
 	etag: string | null;
-	body: Uint8Array<ArrayBuffer> | string;
-	/** The CSP nonce in the stored page, replaced by a fresh one on every answer. */
-	nonce: string | null;
+	identity: Encoded;
+	gzip: Encoded;
+	br: Encoded;
+	notModified: Headers;
 };
 
 let version = '';
 const pages = new Map<string, Stored>();
 
-const NONCE = /'nonce-([^']+)'/;
+function encoded(base: Headers, body: Bytes, encoding: string | null): Encoded {
+	const headers = new Headers(base);
+	headers.set('content-length', String(body.byteLength));
+	if (encoding) headers.set('content-encoding', encoding);
+	return { body, headers };
+}
 
-function answer(stored: Stored, method: string, ifNoneMatch: string | null): Response {
-	const headers = new Headers(stored.headers);
-	headers.set('x-page-cache', 'hit');
-	const match =
-		stored.etag !== null &&
-		!!ifNoneMatch?.split(',').some((t) => t.trim().replace(/^W\//, '') === stored.etag);
-	if (match) return new Response(null, { status: 304, headers });
-	let body = stored.body;
-	if (stored.nonce && typeof body === 'string') {
-		// A nonce must not repeat between answers; swap in a new one in the page and its header.
-		const fresh = randomBytes(16).toString('base64');
-		body = body.replaceAll(stored.nonce, fresh);
-		const csp = headers.get('content-security-policy');
-		if (csp) headers.set('content-security-policy', csp.replaceAll(stored.nonce, fresh));
+/** Builds everything a hit needs once, so answering is a look-up. */
+function store(response: Response, rendered: Bytes): Stored {
+	const base = new Headers(response.headers);
+	base.set('x-page-cache', 'hit');
+	base.append('vary', 'Accept-Encoding');
+	const html = new TextDecoder().decode(rendered);
+	const moved = scriptPreloadsIntoHead(base, html);
+	const bytes = moved === html ? rendered : new TextEncoder().encode(moved);
+	// The tag the ETag handle gave the rendered page, for the bytes actually answered.
+	let etag = response.headers.get('etag');
+	if (etag && bytes !== rendered) {
+		etag = `"${createHash('sha1').update(bytes).digest('base64url')}"`;
+		base.set('etag', etag);
 	}
-	return new Response(method === 'HEAD' ? null : body, { status: stored.status, headers });
+	const br = brotliCompressSync(bytes, {
+		params: {
+			[constants.BROTLI_PARAM_QUALITY]: 9,
+			[constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength
+		}
+	});
+	const gz = gzipSync(bytes, { level: 9 });
+	const notModified = new Headers(base);
+	notModified.delete('content-length');
+	return {
+		status: response.status,
+		etag,
+		identity: encoded(base, bytes, null),
+		gzip: encoded(base, new Uint8Array(gz), 'gzip'),
+		br: encoded(base, new Uint8Array(br), 'br'),
+		notModified
+	};
+}
+
+/** The encoding the client accepts that we hold, brotli first (RFC 9110 §12.5.3, q=0 refuses). */
+function pick(stored: Stored, accept: string | null): Encoded {
+	if (!accept) return stored.identity;
+	const ok = (name: string) =>
+		accept.split(',').some((part) => {
+			const [token, ...params] = part.trim().split(';');
+			if (token.trim().toLowerCase() !== name) return false;
+			return !params.some((p) => /^\s*q\s*=\s*0(\.0*)?\s*$/.test(p));
+		});
+	if (ok('br')) return stored.br;
+	if (ok('gzip')) return stored.gzip;
+	return stored.identity;
+}
+
+function answer(stored: Stored, request: Request): Response {
+	const inm = request.headers.get('if-none-match');
+	if (
+		inm &&
+		stored.etag !== null &&
+		inm.split(',').some((t) => t.trim().replace(/^W\//, '') === stored.etag)
+	) {
+		return new Response(null, { status: 304, headers: stored.notModified });
+	}
+	const chosen = pick(stored, request.headers.get('accept-encoding'));
+	return new Response(request.method === 'HEAD' ? null : chosen.body, {
+		status: stored.status,
+		headers: chosen.headers
+	});
 }
 
 export const pageCacheHandle: Handle = async ({ event, resolve }) => {
@@ -62,35 +122,38 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	) {
 		return resolve(event);
 	}
-	const v = `${await catalogueVersion()}|${new Date().toDateString()}`;
+	let v: string;
+	try {
+		v = `${await catalogueVersion()}|${new Date().toDateString()}`;
+	} catch {
+		// No version, no cache: the page renders as if uncached, so its loads meet the same error
+		// inside SvelteKit (a 503 while the database is down) and every outer handle still runs.
+		return resolve(event);
+	}
 	if (v !== version) {
 		pages.clear();
 		version = v;
 	}
 	const key = url.pathname + url.search;
 	const hit = pages.get(key);
-	if (hit) return answer(hit, method, request.headers.get('if-none-match'));
+	if (hit) return answer(hit, request);
 
 	const response = await resolve(event);
-	if (method !== 'GET' || response.status !== 200 || response.headers.has('set-cookie')) {
+	if (
+		method !== 'GET' ||
+		response.status !== 200 ||
+		response.headers.has('set-cookie') ||
+		response.headers.has('content-encoding') ||
+		/'nonce-/.test(response.headers.get('content-security-policy') ?? '')
+	) {
 		return response;
 	}
-	const headers = [...response.headers];
-	const csp = response.headers.get('content-security-policy');
-	const nonce = csp?.match(NONCE)?.[1] ?? null;
 	const bytes = new Uint8Array(await response.arrayBuffer());
-	const stored: Stored = {
-		status: response.status,
-		headers,
-		etag: response.headers.get('etag'),
-		body: nonce ? new TextDecoder().decode(bytes) : bytes,
-		nonce
-	};
 	// Only keep what was rendered under the version we looked up; a page begun before an edit
 	// and finished after it would otherwise outlive the edit.
 	if (v === version) {
 		if (pages.size >= MAX_PAGES) pages.clear();
-		pages.set(key, stored);
+		pages.set(key, store(response, bytes));
 	}
 	const out = new Headers(response.headers);
 	out.set('x-page-cache', 'miss');

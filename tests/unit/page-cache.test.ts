@@ -1,0 +1,117 @@
+/**
+ * The page cache's answers for visitors without cookies, through the real handle (the catalogue
+ * version comes from the test database). Compressed answers are checked by decompressing them
+ * with Node's zlib (an independent brotli/gzip implementation) and comparing with the plain one;
+ * Accept-Encoding is read as RFC 9110 §12.5.3 says (q=0 refuses a coding); 304 per RFC 9110
+ * §13.1.2 (If-None-Match, weak comparison).
+ */
+import { brotliDecompressSync, gunzipSync } from 'node:zlib';
+import { describe, expect, it } from 'vitest';
+import type { RequestEvent } from '@sveltejs/kit';
+import { pageCacheHandle } from '$lib/server/handles/page-cache';
+
+const HEAD = `<!doctype html><html><head><title>t</title><link rel="preload" as="image" type="image/webp" imagesrcset="/photos/p/400.webp 400w, /photos/p/800.webp 800w" imagesizes="92vw" fetchpriority="high"/>
+<link href="./_app/immutable/assets/0.css" rel="stylesheet"></head><body>`;
+const PAGE = `${HEAD}${'<p>A rosette of six petals, each petal two chips.</p>'.repeat(200)}</body></html>`;
+const LINK = [
+	'<./_app/immutable/assets/0.css>; rel="preload"; as="style"; nopush',
+	'<./_app/immutable/entry/start.js>; rel="modulepreload"; nopush',
+	'<./_app/immutable/chunks/a.js>; rel="modulepreload"; nopush'
+].join(', ');
+
+let n = 0;
+/** A unique public path per test, so entries from one test never answer another. */
+const freshPath = () => `/shop/page-cache-test-${process.pid}-${Date.now()}-${n++}`;
+
+async function call(path: string, headers: Record<string, string>, csp: string) {
+	let rendered = 0;
+	const event = {
+		request: new Request(`http://localhost${path}`, { headers }),
+		url: new URL(`http://localhost${path}`)
+	} as unknown as RequestEvent;
+	const resolve = (): Promise<Response> => {
+		rendered++;
+		return Promise.resolve(
+			new Response(PAGE, {
+				headers: {
+					'content-type': 'text/html',
+					'content-security-policy': csp,
+					etag: '"rendered"',
+					link: LINK
+				}
+			})
+		);
+	};
+	const res: Response = await pageCacheHandle({ event, resolve });
+	return { res, rendered };
+}
+
+const HASHED = "script-src 'self' 'sha256-abc='";
+
+describe('page cache answers', () => {
+	it('stores the page once and answers brotli, gzip or plain as accepted, all the same page', async () => {
+		const path = freshPath();
+		const first = await call(path, {}, HASHED);
+		expect(first.rendered).toBe(1);
+		expect(first.res.headers.get('x-page-cache')).toBe('miss');
+
+		const plain = await call(path, {}, HASHED);
+		expect(plain.rendered).toBe(0);
+		expect(plain.res.headers.get('x-page-cache')).toBe('hit');
+		expect(plain.res.headers.get('content-encoding')).toBeNull();
+		const html = await plain.res.text();
+
+		const br = await call(path, { 'accept-encoding': 'gzip, deflate, br' }, HASHED);
+		expect(br.res.headers.get('content-encoding')).toBe('br');
+		const brBytes = Buffer.from(await br.res.arrayBuffer());
+		expect(Number(br.res.headers.get('content-length'))).toBe(brBytes.length);
+		expect(brotliDecompressSync(brBytes).toString()).toBe(html);
+		expect(brBytes.length).toBeLessThan(html.length / 4);
+
+		const gz = await call(path, { 'accept-encoding': 'br;q=0, gzip' }, HASHED);
+		expect(gz.res.headers.get('content-encoding')).toBe('gzip');
+		expect(gunzipSync(Buffer.from(await gz.res.arrayBuffer())).toString()).toBe(html);
+		expect(gz.res.headers.get('vary')).toContain('Accept-Encoding');
+	});
+
+	it('asks for the lead photo before the scripts: script preloads move from the Link header into the head', async () => {
+		const path = freshPath();
+		await call(path, {}, HASHED);
+		const hit = await call(path, {}, HASHED);
+		const html = await hit.res.text();
+		const image = html.indexOf('as="image"');
+		const script = html.indexOf(
+			'<link rel="modulepreload" href="./_app/immutable/entry/start.js">'
+		);
+		expect(image).toBeGreaterThan(0);
+		expect(script).toBeGreaterThan(image);
+		expect(script).toBeLessThan(html.indexOf('</head>'));
+		expect(html).toContain('<link rel="modulepreload" href="./_app/immutable/chunks/a.js">');
+		// The stylesheet stays in the header; no script is announced twice.
+		expect(hit.res.headers.get('link')).toBe(
+			'<./_app/immutable/assets/0.css>; rel="preload"; as="style"; nopush'
+		);
+		// The ETag names the bytes answered, not the page as first rendered.
+		const etag = hit.res.headers.get('etag')!;
+		expect(etag).not.toBe('"rendered"');
+		const again = await call(path, { 'if-none-match': `W/${etag}` }, HASHED);
+		expect(again.res.status).toBe(304);
+		expect(again.rendered).toBe(0);
+	});
+
+	it('never stores a page whose policy carries a nonce (a nonce must not repeat)', async () => {
+		const path = freshPath();
+		const nonce = "script-src 'self' 'nonce-abc123'";
+		await call(path, {}, nonce);
+		const second = await call(path, {}, nonce);
+		expect(second.rendered).toBe(1);
+		expect(second.res.headers.get('x-page-cache')).toBeNull();
+	});
+
+	it('leaves visitors with a cookie to a fresh render', async () => {
+		const path = freshPath();
+		await call(path, {}, HASHED);
+		const withCookie = await call(path, { cookie: 'chipstall_cart=x' }, HASHED);
+		expect(withCookie.rendered).toBe(1);
+	});
+});
