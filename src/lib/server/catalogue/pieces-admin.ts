@@ -8,7 +8,7 @@ import { db } from '../db';
 import { photos, pieces, pieceWoods, woods } from '../db/schema';
 import type { PieceForm } from '$lib/schemas/piece';
 import type { PiecePattern } from '../db/schema';
-import { lockErrno, withLockRetry } from './retry';
+import { isDuplicateKey, withRetry } from '../db/retry';
 
 export class SlugTaken extends Error {}
 
@@ -99,9 +99,9 @@ function columns(f: PieceForm) {
 /** MariaDB's duplicate-key error (1062) on the slug becomes a message for the slug field. */
 async function slugSafe<T>(run: () => Promise<T>): Promise<T> {
 	try {
-		return await withLockRetry(run);
+		return await withRetry(run);
 	} catch (err) {
-		if (lockErrno(err) === 1062) throw new SlugTaken('Another piece already uses this address.');
+		if (isDuplicateKey(err)) throw new SlugTaken('Another piece already uses this address.');
 		throw err;
 	}
 }
