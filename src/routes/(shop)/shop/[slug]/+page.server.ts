@@ -38,14 +38,21 @@ function previewFor(
 export const load: PageServerLoad = async ({ params }) => {
 	const piece = await getPiece(params.slug);
 	if (!piece) error(404, 'We do not have a piece at this address.');
-	const queue = await queueOutlook();
+	// The standard layout's minutes per wood are worked out here, so the page's script needs no
+	// pattern engine until the buyer starts typing (the engine then loads on its own).
+	const standard = Object.fromEntries(
+		piece.personalisable
+			? piece.woods.map((w) => [w.slug, standardMinutes(piece.pattern, piece, w.slug)])
+			: []
+	) as Record<string, number>;
+	const queue = { ...(await queueOutlook()), standardMinutes: standard };
 	const firstWood = piece.woods[0]?.slug;
 	// The date shown before the buyer types anything: the standard layout joining the queue now.
 	const queueReadyBy =
 		piece.personalisable && firstWood
 			? readyByFor(
 					queue.minutesAhead,
-					standardMinutes(piece.pattern, piece, firstWood),
+					standard[firstWood],
 					queue.schedule,
 					queue.today,
 					queue.extraDaysOff
