@@ -3,13 +3,14 @@
  * what is late; low stock; the next fair; and the carving queue with the day each line is due.
  * Ready-made orders are packed, never carved: they never count as "to carve".
  */
-import { and, asc, eq, gte, inArray, lte, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, lte, sql } from 'drizzle-orm';
 import { isoDay } from '$lib/dates';
 import type { OrderStatus } from '$lib/order-status';
 import { db } from './db';
-import { fairs, orders, pieces, stock, woods } from './db/schema';
+import { orders, pieces, stock, woods } from './db/schema';
 import { lineCounts } from './orders/table';
 import { carvingQueue } from './orders/carving-queue';
+import { comingFairs } from './fairs/fairs';
 
 /** Finished pieces at or under this count on the workshop shelf are "running low". */
 export const LOW_STOCK = 1;
@@ -51,7 +52,7 @@ export async function todaySummary(now = new Date()) {
 		resolve: bench.filter((o) => o.status === 'piece_gone')
 	};
 
-	const [lowStock, [nextFair], queue] = await Promise.all([
+	const [lowStock, comingList, queue] = await Promise.all([
 		db
 			.select({
 				piece: pieces.title,
@@ -66,18 +67,7 @@ export async function todaySummary(now = new Date()) {
 				and(eq(stock.place, 'workshop'), lte(stock.quantity, LOW_STOCK), eq(pieces.active, true))
 			)
 			.orderBy(asc(stock.quantity), asc(pieces.title)),
-		db
-			.select({
-				id: fairs.id,
-				name: fairs.name,
-				place: fairs.place,
-				startsOn: fairs.startsOn,
-				endsOn: fairs.endsOn
-			})
-			.from(fairs)
-			.where(gte(fairs.endsOn, today))
-			.orderBy(asc(fairs.startsOn))
-			.limit(1),
+		comingFairs(today),
 		carvingQueue(now)
 	]);
 
@@ -86,7 +76,7 @@ export async function todaySummary(now = new Date()) {
 		steps,
 		late: bench.filter((o) => o.late),
 		lowStock,
-		nextFair: nextFair ?? null,
+		nextFair: comingList[0] ?? null,
 		queue
 	};
 }
