@@ -1,5 +1,6 @@
-import { PDFDocument, PDFRawStream, PDFArray, decodePDFRawStream, PDFRef } from 'pdf-lib';
+import { PDFDocument } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
+import { pageContent } from './helpers/pdf-content';
 import { computePattern } from '../../src/lib/pattern';
 import { letterFont } from '../../src/lib/pattern/letter-font';
 import { templatePdf, tileGrid } from '../../src/lib/server/pdf/template';
@@ -13,21 +14,6 @@ const long = computePattern(
 	{ diameterMm: 90, count: 5, initials: 'AB', widthMm: 130, lengthMm: 520, border: { edgeMm: 26 } },
 	{ font }
 );
-
-/** The page's content streams, decoded, as text. */
-function contentOf(doc: PDFDocument, index: number): string {
-	const page = doc.getPage(index);
-	const contents = page.node.Contents();
-	const refs = contents instanceof PDFArray ? contents.asArray() : [contents];
-	return refs
-		.map((r) => {
-			const s = r instanceof PDFRef ? doc.context.lookup(r) : r;
-			return s instanceof PDFRawStream
-				? new TextDecoder('latin1').decode(decodePDFRawStream(s).decode())
-				: '';
-		})
-		.join('\n');
-}
 
 describe('1:1 template PDF', () => {
 	it('A4 pages are 210 × 297 mm = 595.276 × 841.890 pt', async () => {
@@ -56,7 +42,7 @@ describe('1:1 template PDF', () => {
 		const doc = await PDFDocument.load(
 			await templatePdf(small, { paper: 'a4', orderRef: 'CS-1042' })
 		);
-		const text = contentOf(doc, 0);
+		const text = pageContent(doc, 0);
 		// A rectangle operator `x y w h re` with w = h = 50 mm = 50 / 25.4 · 72 pt = 141.732 pt.
 		const squares = [...text.matchAll(/(-?[\d.]+) (-?[\d.]+) (-?[\d.]+) (-?[\d.]+) re/g)].filter(
 			(m) => Math.abs(Number(m[3]) - 141.732) < 0.01 && Math.abs(Number(m[4]) - 141.732) < 0.01
@@ -82,7 +68,7 @@ describe('1:1 template PDF', () => {
 		expect(doc.getPageCount()).toBe(1 + grid.rows * grid.cols);
 		// Every tile page is clipped to its printable window and carries a drawing.
 		for (let i = 1; i < doc.getPageCount(); i++) {
-			const c = contentOf(doc, i);
+			const c = pageContent(doc, i);
 			expect(c).toMatch(/ re\s+W\s+n/);
 			expect(c).toContain(' c'); // Bézier curves of the arcs
 		}
@@ -91,7 +77,7 @@ describe('1:1 template PDF', () => {
 	it('draws the rosette at true scale: a 90 mm rosette spans 255.118 pt', async () => {
 		const one = computePattern({ diameterMm: 90, count: 1, widthMm: 120, lengthMm: 120 }, { font });
 		const doc = await PDFDocument.load(await templatePdf(one, { paper: 'letter' }));
-		const c = contentOf(doc, 1);
+		const c = pageContent(doc, 1);
 		const cm = /([\d.]+) 0 0 -([\d.]+) 0 0 cm/.exec(c);
 		expect(cm).not.toBeNull();
 		const scale = Number(cm![1]);

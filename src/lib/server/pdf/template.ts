@@ -32,6 +32,15 @@ export type Paper = keyof typeof PAPER_MM;
 export const MARGIN_MM = 12;
 export const HEADER_MM = 9;
 export const OVERLAP_MM = 12;
+/**
+ * Plain paper kept round the drawing on the outer tiles. A stroke is centred on its path
+ * (ISO 32000-1 §8.5.3.2) and a clip cuts it (§8.5.4): an outline lying on a tile's edge would
+ * print at half width, under one dot at 100 dpi. With this pad every outer line sits inside.
+ */
+export const EDGE_PAD_MM = 2;
+/** Registration marks: a cross 8 mm long with a 5 mm ring, kept this far off any outline. */
+const MARK_REACH_MM = 4;
+const MARK_CLEAR_MM = 1.5;
 export const CALIBRATION_MM = 50;
 
 export type TemplateOptions = { paper: Paper; orderRef?: string; title?: string };
@@ -74,7 +83,7 @@ export type TileGrid = {
 	step: { x: number; y: number };
 };
 
-/** How the drawing splits into page-sized windows (mm). */
+/** How the drawing, with EDGE_PAD_MM of paper round it, splits into page-sized windows (mm). */
 export function tileGrid(widthMm: number, heightMm: number, paper: Paper): TileGrid {
 	const page = PAPER_MM[paper];
 	const tileW = page.w - 2 * MARGIN_MM;
@@ -82,12 +91,19 @@ export function tileGrid(widthMm: number, heightMm: number, paper: Paper): TileG
 	const count = (total: number, size: number) =>
 		total <= size ? 1 : Math.ceil((total - OVERLAP_MM) / (size - OVERLAP_MM));
 	return {
-		cols: count(widthMm, tileW),
-		rows: count(heightMm, tileH),
+		cols: count(widthMm + 2 * EDGE_PAD_MM, tileW),
+		rows: count(heightMm + 2 * EDGE_PAD_MM, tileH),
 		tileW,
 		tileH,
 		step: { x: tileW - OVERLAP_MM, y: tileH - OVERLAP_MM }
 	};
+}
+
+/** The drawing's window (mm, drawing coordinates) that a tile shows. */
+export function tileWindow(grid: TileGrid, row: number, col: number) {
+	const x = col * grid.step.x - EDGE_PAD_MM;
+	const y = row * grid.step.y - EDGE_PAD_MM;
+	return { x, y, w: grid.tileW, h: grid.tileH };
 }
 
 function tileName(row: number, col: number) {
@@ -119,8 +135,7 @@ export async function templatePdf(
 	for (let row = 0; row < grid.rows; row++) {
 		for (let col = 0; col < grid.cols; col++) {
 			const p = doc.addPage([pageW, pageH]);
-			const x0 = col * grid.step.x;
-			const y0 = row * grid.step.y;
+			const win = tileWindow(grid, row, col);
 			const title = [
 				`Tile ${tileName(row, col)}`,
 				grid.rows * grid.cols > 1
@@ -146,7 +161,7 @@ export async function templatePdf(
 					{ x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 8.5) * k, size: 7, font, color: SOFT }
 				);
 			}
-			drawTile(p, result, grid, x0, y0, pageH);
+			drawTile(p, result, grid, win.x, win.y, pageH);
 		}
 	}
 	return doc.save();
@@ -307,37 +322,73 @@ function drawTile(
 			.join('');
 		stroke(tri, 0.35);
 	}
-	registrationMarks(p, grid, d.widthMm, d.heightMm, stroke);
+	stroke(registrationMarks(grid, outlineDistance(r.drawing)), 0.4);
 	p.pushOperators(popGraphicsState());
 }
 
 /**
- * Round marks in the middle of every overlap strip: they print on both tiles that share the
- * strip, at the same place on the drawing, so laying one over the other aligns the pages.
+ * Distance (mm) from a point to the nearest outline: the blank's edges (its curved top end as an
+ * arc) and the border strip's edges.
  */
-function registrationMarks(
-	_p: PDFPage,
-	grid: TileGrid,
-	w: number,
-	h: number,
-	stroke: (path: string, width: number) => void
-) {
+export function outlineDistance(d: PatternResult['drawing']): (x: number, y: number) => number {
+	const segments: [number, number, number, number][] = [];
+	const rect = (x: number, y: number, w: number, h: number, top = true) => {
+		if (top) segments.push([x, y, x + w, y]);
+		segments.push([x + w, y, x + w, y + h], [x + w, y + h, x, y + h], [x, y + h, x, y]);
+	};
+	const b = d.blank;
+	const arch = b.curvedTop && b.lengthMm >= b.widthMm / 2;
+	const r = b.widthMm / 2;
+	if (arch) rect(0, r, b.widthMm, b.lengthMm - r, false);
+	else rect(0, 0, b.widthMm, b.lengthMm);
+	if (d.border) rect(d.border.x, d.border.y, d.border.edgeMm, d.border.lengthMm);
+	return (x, y) => {
+		let best = Infinity;
+		for (const [x1, y1, x2, y2] of segments) {
+			const dx = x2 - x1;
+			const dy = y2 - y1;
+			const t = Math.max(
+				0,
+				Math.min(1, ((x - x1) * dx + (y - y1) * dy) / (dx * dx + dy * dy || 1))
+			);
+			best = Math.min(best, Math.hypot(x - (x1 + t * dx), y - (y1 + t * dy)));
+		}
+		// The arched top is the upper half of the circle through both long edges.
+		if (arch) {
+			const onArc = y <= r ? Math.abs(Math.hypot(x - r, y - r) - r) : Math.hypot(x - r, y - r) - r;
+			best = Math.min(best, Math.abs(onArc));
+		}
+		return best;
+	};
+}
+
+/** Where along an overlap strip the marks may go: first the quarters, then nearby places. */
+const MARK_PLACES = [0.25, 0.75, 0.15, 0.35, 0.65, 0.85, 0.05, 0.45, 0.55, 0.95];
+
+/**
+ * Round marks in the middle of every overlap strip: they print on both tiles that share the
+ * strip, at the same place on the drawing, so laying one over the other aligns the pages. Two
+ * per strip, at the first places along it that keep clear of every outline.
+ */
+export function registrationMarks(grid: TileGrid, distance: (x: number, y: number) => number) {
 	const mark = (x: number, y: number) =>
 		`M${fmt(x - 4)} ${fmt(y)}h8M${fmt(x)} ${fmt(y - 4)}v8M${fmt(x - 2.5)} ${fmt(y)}a2.5 2.5 0 1 0 5 0a2.5 2.5 0 1 0 -5 0`;
+	const clear = (x: number, y: number) => distance(x, y) >= MARK_REACH_MM + MARK_CLEAR_MM;
+	const two = (at: (f: number) => { x: number; y: number }) =>
+		MARK_PLACES.map(at)
+			.filter((p) => clear(p.x, p.y))
+			.slice(0, 2)
+			.map((p) => mark(p.x, p.y))
+			.join('');
 	let path = '';
-	for (let col = 1; col < grid.cols; col++) {
-		const x = col * grid.step.x + OVERLAP_MM / 2;
-		for (let row = 0; row < grid.rows; row++) {
-			const ya = row * grid.step.y;
-			for (const f of [0.25, 0.75]) path += mark(x, Math.min(h, ya + grid.tileH * f));
-		}
-	}
-	for (let row = 1; row < grid.rows; row++) {
-		const y = row * grid.step.y + OVERLAP_MM / 2;
+	for (let row = 0; row < grid.rows; row++)
 		for (let col = 0; col < grid.cols; col++) {
-			const xa = col * grid.step.x;
-			for (const f of [0.25, 0.75]) path += mark(Math.min(w, xa + grid.tileW * f), y);
+			const win = tileWindow(grid, row, col);
+			// The strip shared with the tile to the right, and with the one below.
+			if (col + 1 < grid.cols)
+				path += two((f) => ({ x: win.x + win.w - OVERLAP_MM / 2, y: win.y + win.h * f }));
+			if (row + 1 < grid.rows)
+				path += two((f) => ({ x: win.x + win.w * f, y: win.y + win.h - OVERLAP_MM / 2 }));
 		}
-	}
-	stroke(path, 0.4);
+	return path;
 }
