@@ -76,7 +76,7 @@ export function banner(appUrl: string) {
 			'',
 			`    ${appUrl}`,
 			'',
-			'  (use exactly this one, not 127.0.0.1 or another name: forms are checked against it)',
+			'  (use exactly this one: forms are only accepted from it)',
 			`  Shop          ${appUrl}/shop`,
 			`  Workshop      ${appUrl}/workshop`,
 			`  Mail inbox    http://127.0.0.1:${config.mail.inboxPort}/   (every e-mail the app sends lands here)`,

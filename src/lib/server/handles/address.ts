@@ -42,15 +42,19 @@ export function otherHost(request: Request, origin: URL): string | null {
 	return host;
 }
 
-/** Where to send someone who posted from the wrong address: the page they were on, at ORIGIN. */
+/**
+ * Where to send someone whose form was refused: the page they were on when that page came from
+ * this same server under another name (its Referer names the host the form was sent to), else the
+ * form's own address; either way at ORIGIN.
+ */
 export function rightAddress(request: Request, origin: URL): string {
-	const from = request.headers.get('origin');
+	const host = request.headers.get('host')?.toLowerCase();
 	const referer = request.headers.get('referer');
 	let path = new URL(request.url).pathname;
-	if (referer && from) {
+	if (referer && host) {
 		try {
 			const r = new URL(referer);
-			if (r.origin === from) path = r.pathname + r.search;
+			if (r.host === host) path = r.pathname + r.search;
 		} catch {
 			// An unreadable Referer: the form's own address will do.
 		}
@@ -58,8 +62,7 @@ export function rightAddress(request: Request, origin: URL): string {
 	return new URL(path, origin).href;
 }
 
-const escape = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export function refusalMessage(from: string | null, origin: URL): string {
 	const sender = from && from !== 'null' ? from : 'a page we cannot name';
@@ -104,7 +107,8 @@ export function refusal(request: Request, origin: URL): Response {
 			...noStore,
 			'content-type': 'text/html; charset=utf-8',
 			// Only the page's own style block; nothing runs.
-			'content-security-policy': "default-src 'none'; style-src 'unsafe-inline'; frame-ancestors 'none'"
+			'content-security-policy':
+				"default-src 'none'; style-src 'unsafe-inline'; frame-ancestors 'none'"
 		}
 	});
 }
@@ -125,7 +129,10 @@ export const addressHandle: Handle = async ({ event, resolve }) => {
 		const raw = new URL(request.url);
 		return new Response(null, {
 			status: 308,
-			headers: { location: new URL(raw.pathname + raw.search, origin).href, 'cache-control': 'no-store' }
+			headers: {
+				location: new URL(raw.pathname + raw.search, origin).href,
+				'cache-control': 'no-store'
+			}
 		});
 	}
 	// As SvelteKit's own check: not while developing (vite dev has no ORIGIN to compare with).
