@@ -80,7 +80,9 @@ test('a form posted from another origin gets a plain page linking to the right a
 		page.getByRole('button', { name: 'Send' }).click()
 	]);
 	expect(answer.status()).toBe(403);
-	await expect(page.getByRole('heading', { name: 'Open the shop at its own address' })).toBeVisible();
+	await expect(
+		page.getByRole('heading', { name: 'Open the shop at its own address' })
+	).toBeVisible();
 	await expect(page.getByText(`sent from ${elsewhere}`)).toBeVisible();
 	await expect(page.getByText('Nothing was changed.')).toBeVisible();
 	await page.getByTestId('right-address').click();
@@ -124,4 +126,33 @@ test('the refusal answers in the shape each sender reads', async ({ request, bas
 		maxRedirects: 0
 	});
 	expect(own.status()).not.toBe(403);
+});
+
+test('a use:enhance form refused for its origin shows why, not nothing', async ({
+	page,
+	baseURL
+}) => {
+	const origin = new URL(baseURL!).origin;
+	const from = otherName(baseURL!);
+	await page.goto('/signin');
+	await page.waitForLoadState('networkidle');
+	// As if the page had been opened under the other name before the redirect could happen.
+	// (The browser will not send a forged Origin itself, so the post is sent on with one.)
+	await page.route(`${origin}/signin`, async (route) => {
+		if (route.request().method() !== 'POST') return route.continue();
+		const response = await route.fetch({ headers: { ...route.request().headers(), origin: from } });
+		await route.fulfill({ response });
+	});
+	const buyer = demoAccount('customer');
+	await page.getByLabel('E-mail').fill(buyer.email);
+	await page.getByLabel('Password').fill(buyer.password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(
+		page.getByRole('heading', { name: 'Open the shop at its own address' })
+	).toBeVisible();
+	await expect(page.getByTestId('error-message')).toContainText(`sent from ${from}`);
+	await page.unrouteAll();
+	await page.getByTestId('right-address').click();
+	await expect(page).toHaveURL(`${origin}/signin`);
+	await expect(page.getByLabel('E-mail')).toBeVisible();
 });
