@@ -99,7 +99,7 @@ test('the refusal answers in the shape each sender reads', async ({ request, bas
 		data: 'slug=rosette-bottle-holder'
 	});
 	expect(api.status()).toBe(403);
-	const apiBody = await api.json();
+	const apiBody = (await api.json()) as { error: string };
 	expect(apiBody.error).toContain(origin);
 
 	// A `use:enhance` form: an action error result the page shows, with the address to use.
@@ -108,7 +108,10 @@ test('the refusal answers in the shape each sender reads', async ({ request, bas
 		headers: { origin: from, accept: 'application/json', 'x-sveltekit-action': 'true' }
 	});
 	expect(enhanced.status()).toBe(403);
-	const result = await enhanced.json();
+	const result = (await enhanced.json()) as {
+		type: string;
+		error: { message: string; address: string };
+	};
 	expect(result.type).toBe('error');
 	expect(result.error.address).toBe(`${origin}/signin`);
 	expect(result.error.message).toContain(`sent from ${from}`);

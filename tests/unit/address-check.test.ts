@@ -118,7 +118,7 @@ describe('the refusal', () => {
 	it('is JSON { error } under /api/', async () => {
 		const res = refusal(post('/api/cart', { origin: 'http://127.0.0.1:3000' }), ORIGIN);
 		expect(res.status).toBe(403);
-		const body = await res.json();
+		const body = (await res.json()) as { error: string; address: string };
 		expect(body.error).toMatch(/sent from http:\/\/127\.0\.0\.1:3000/);
 		expect(body.address).toBe('http://localhost:3000/api/cart');
 	});
@@ -132,7 +132,7 @@ describe('the refusal', () => {
 			}),
 			ORIGIN
 		);
-		const body = await res.json();
+		const body = (await res.json()) as { error: { message: string } };
 		expect(body).toMatchObject({
 			type: 'error',
 			status: 403,
