@@ -20,6 +20,14 @@ export const config = {
 	get origin() {
 		return e.ORIGIN || `http://localhost:${this.port}`;
 	},
+	/**
+	 * Page requests that arrive under another host name (127.0.0.1 for localhost) are redirected to
+	 * ORIGIN. Off (`false`) behind a proxy that sends its own Host header instead of the visitor's,
+	 * where every request would otherwise be sent round again.
+	 */
+	get redirectOtherHosts() {
+		return e.REDIRECT_OTHER_HOSTS !== 'false';
+	},
 	db: {
 		get port() {
 			return num(e.DB_PORT, 3307);

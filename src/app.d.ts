@@ -4,6 +4,8 @@ declare global {
 	namespace App {
 		interface Error {
 			message: string;
+			/** A form refused for coming from another address: the same page at the shop's own. */
+			address?: string;
 		}
 		interface Locals {
 			user: Pick<PublicUser, 'id' | 'email' | 'name' | 'role'> | null;

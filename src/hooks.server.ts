@@ -9,6 +9,7 @@ import {
 import { toApiErrorResponse } from '$lib/server/api-errors';
 import { startHoldSweeper } from '$lib/server/orders/holds';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
+import { addressHandle } from '$lib/server/handles/address';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
 import { pageCacheHandle } from '$lib/server/handles/page-cache';
@@ -76,9 +77,11 @@ const apiErrors: Handle = async ({ event, resolve }) => {
 	return toApiErrorResponse(response);
 };
 
-// Headers first, so cached pages, 503s and errors all carry them.
+// Headers first, so cached pages, 503s and errors all carry them; then the address check, before
+// any cache answers.
 export const handle = sequence(
 	headers,
+	addressHandle,
 	photoCacheHandle,
 	availabilityHandle,
 	pageCacheHandle,

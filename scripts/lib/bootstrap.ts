@@ -72,7 +72,11 @@ export function banner(appUrl: string) {
 		const w = Math.max(...DEMO_ACCOUNTS.map((a) => a.email.length));
 		const lines = [
 			'',
-			'Chipstall is running.',
+			'Chipstall is running. Open it at this one address:',
+			'',
+			`    ${appUrl}`,
+			'',
+			'  (use exactly this one: forms are only accepted from it)',
 			`  Shop          ${appUrl}/shop`,
 			`  Workshop      ${appUrl}/workshop`,
 			`  Mail inbox    http://127.0.0.1:${config.mail.inboxPort}/   (every e-mail the app sends lands here)`,

@@ -73,6 +73,17 @@ const SCREENS: Screen[] = [
 ];
 
 const FOCUS_STOPS = 6;
+/** axe-core rule ids (Deque's rule descriptions), run on every screen whatever their impact. */
+const LANDMARK_RULES = [
+	'region',
+	'landmark-unique',
+	'landmark-one-main',
+	'landmark-no-duplicate-main',
+	'landmark-no-duplicate-banner',
+	'landmark-no-duplicate-contentinfo',
+	'skip-link',
+	'bypass'
+];
 
 for (const screen of SCREENS) {
 	test(`accessibility: ${screen.name}`, async ({ page }) => {
@@ -91,6 +102,14 @@ for (const screen of SCREENS) {
 			.filter((v) => v.impact === 'serious' || v.impact === 'critical')
 			.map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 		expect(bad, 'serious or critical axe findings').toEqual([]);
+		// axe files its landmark rules under best practice, not under the WCAG tags above, and rates
+		// some "moderate": run them by name and allow none, so every bit of content sits in a
+		// landmark and no two landmarks of a kind share a name.
+		const landmarks = await new AxeBuilder({ page }).withRules(LANDMARK_RULES).analyze();
+		const unplaced = landmarks.violations.map(
+			(v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`
+		);
+		expect(unplaced, 'landmark findings').toEqual([]);
 		if (screen.enhancedContrast) {
 			const enhanced = await new AxeBuilder({ page })
 				.withRules(['color-contrast-enhanced'])
@@ -123,5 +142,36 @@ for (const screen of SCREENS) {
 			seen.add(focus!.id);
 		}
 		expect(seen.size).toBeGreaterThan(1);
+	});
+}
+
+// WCAG 2.4.1 Bypass Blocks: the first Tab stop on each kind of page skips the header and nav.
+const SKIP_PAGES: Pick<Screen, 'name' | 'path' | 'role'>[] = [
+	{ name: 'shop', path: '/shop' },
+	{ name: 'sign-in', path: '/signin' },
+	{ name: 'a page that is not there', path: '/no-such-page' },
+	{ name: 'workshop orders', path: '/workshop/orders', role: 'owner' },
+	{ name: 'booth', path: openFairPage('/booth'), role: 'helper' }
+];
+
+for (const screen of SKIP_PAGES) {
+	test(`skip link: ${screen.name}`, async ({ page }) => {
+		if (screen.role) await signInAs(page, screen.role);
+		await page.goto(typeof screen.path === 'string' ? screen.path : await screen.path(page));
+		await page.waitForLoadState('networkidle');
+		const skip = page.getByRole('link', { name: 'Skip to the main content' });
+		await expect(skip).not.toBeInViewport();
+		await page.keyboard.press('Tab');
+		await expect(skip).toBeFocused();
+		await expect(skip).toBeVisible();
+		await expect(skip).toBeInViewport();
+		const box = await skip.boundingBox();
+		expect(box!.width).toBeGreaterThan(40);
+		await page.keyboard.press('Enter');
+		await expect(page.locator('main#main')).toBeFocused();
+		// The next Tab continues inside the main content, not back in the header.
+		await page.keyboard.press('Tab');
+		const inMain = await page.evaluate(() => !!document.activeElement?.closest('main'));
+		expect(inMain, 'Tab after the skip link lands inside main').toBe(true);
 	});
 }
