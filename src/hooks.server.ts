@@ -8,6 +8,7 @@ import {
 } from '$lib/server/auth/lucia';
 import { toApiErrorResponse } from '$lib/server/api-errors';
 import { startHoldSweeper } from '$lib/server/orders/holds';
+import { startCheckoutDetailsSweeper } from '$lib/server/cart/checkout-details';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
@@ -23,6 +24,7 @@ export const init: ServerInit = () => {
 	refuseDefaultSecrets();
 	answerClientErrorsWithJson();
 	startHoldSweeper();
+	startCheckoutDetailsSweeper();
 	startOutboxDrainer();
 };
 
