@@ -124,13 +124,13 @@ describe('guest orders join an account once its address is proven', () => {
 		if (!made.ok) throw new Error('setup failed');
 		expect(await isEmailConfirmed(made.user.id)).toBe(false);
 		expect(await ownerOf(ref)).toBeNull();
-		expect(await confirmedAccountFor(db as never, email)).toBeNull();
+		expect(await confirmedAccountFor(db, email)).toBeNull();
 
 		const reset = await createResetToken(email);
 		expect(await completeReset(reset!.token, 'another long password')).toMatchObject({ ok: true });
 		expect(await ownerOf(ref)).toBe(made.user.id);
 		expect(await isEmailConfirmed(made.user.id)).toBe(true);
-		expect(await confirmedAccountFor(db as never, ` ${email.toUpperCase()}`)).toBe(made.user.id);
+		expect(await confirmedAccountFor(db, ` ${email.toUpperCase()}`)).toBe(made.user.id);
 	});
 
 	it('confirming twice at once attaches each order once and never moves an attached order', async () => {
@@ -184,12 +184,22 @@ describe("the checkout's details live with the basket", () => {
 		const now = new Date();
 		const ids = [crypto.randomUUID(), crypto.randomUUID()];
 		for (const id of ids) await db.insert(carts).values({ id, createdAt: now, updatedAt: now });
-		await saveCheckoutDetails(ids[0], details('Old'), new Date(now.getTime() - BASKET_LIFETIME_MS - 60_000));
-		await saveCheckoutDetails(ids[1], details('Recent'), new Date(now.getTime() - BASKET_LIFETIME_MS + 60_000));
+		await saveCheckoutDetails(
+			ids[0],
+			details('Old'),
+			new Date(now.getTime() - BASKET_LIFETIME_MS - 60_000)
+		);
+		await saveCheckoutDetails(
+			ids[1],
+			details('Recent'),
+			new Date(now.getTime() - BASKET_LIFETIME_MS + 60_000)
+		);
 		expect(await forgetStaleCheckoutDetails(now)).toBeGreaterThanOrEqual(1);
 		expect(await checkoutDetailsFor(ids[0])).toBeNull();
 		expect((await checkoutDetailsFor(ids[1]))?.name).toBe('Recent');
 		await db.delete(carts).where(inArray(carts.id, ids));
-		expect(await db.select().from(checkoutDetails).where(inArray(checkoutDetails.cartId, ids))).toHaveLength(0);
+		expect(
+			await db.select().from(checkoutDetails).where(inArray(checkoutDetails.cartId, ids))
+		).toHaveLength(0);
 	});
 });

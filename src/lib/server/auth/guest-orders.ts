@@ -4,7 +4,7 @@
  * with another person's address and read their orders.
  */
 import { and, eq, isNull, sql } from 'drizzle-orm';
-import { db, type Tx } from '../db';
+import { db, type Db, type Tx } from '../db';
 import { orders, users } from '../db/schema';
 
 /** The form of an address two orders or an order and an account are compared in. */
@@ -42,16 +42,11 @@ export async function confirmEmail(tx: Tx, userId: string, now = new Date()): Pr
 }
 
 /** The account whose address is proven for this e-mail, if any: later guest orders join it. */
-export async function confirmedAccountFor(tx: Tx, email: string): Promise<string | null> {
+export async function confirmedAccountFor(tx: Db | Tx, email: string): Promise<string | null> {
 	const [row] = await tx
 		.select({ id: users.id })
 		.from(users)
-		.where(
-			and(
-				eq(users.email, sameAddress(email)),
-				sql`${users.emailConfirmedAt} is not null`
-			)
-		)
+		.where(and(eq(users.email, sameAddress(email)), sql`${users.emailConfirmedAt} is not null`))
 		.limit(1);
 	return row?.id ?? null;
 }

@@ -9,7 +9,7 @@ import { parseForm } from '$lib/forms';
 import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
 import { throttles } from '$lib/server/throttles';
 
-export const load: PageServerLoad = async ({ cookies, locals }) => {
+export const load: PageServerLoad = async ({ cookies, locals, setHeaders }) => {
 	const cartId = cartIdFrom(cookies);
 	const summary = await cartSummary(cartId);
 	if (summary.lines.length === 0) redirect(303, '/cart');
@@ -17,6 +17,8 @@ export const load: PageServerLoad = async ({ cookies, locals }) => {
 	// country is the basket's destination, which the shipping charge shown is priced for.
 	const saved = await checkoutDetailsFor(cartId);
 	const a = saved?.address;
+	// The page carries a name and an address: no shared cache keeps it.
+	if (saved) setHeaders({ 'cache-control': 'private, no-store' });
 	return {
 		summary,
 		countries: COUNTRIES,
