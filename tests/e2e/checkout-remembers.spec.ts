@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
+import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
 
 /**
  * Coming back from the payment page unpaid finds the checkout form as the buyer left it, kept
@@ -26,14 +26,7 @@ test('a declined card keeping the address: back at checkout the form is filled, 
 	page
 }) => {
 	const email = `kept-${Date.now()}@example.test`;
-	await personaliseAndAdd(page, 'KA');
-	await page.getByTestId('cart-link').click();
-	await fillCheckout(page, email);
-
-	await payWith(page, '4000 0000 0000 0002');
-	await expect(page.getByRole('alert')).toContainText(/declined/i);
-	await page.getByRole('link', { name: 'Cancel and go back' }).click();
-	await expect(page).toHaveURL(/\/cart\?cancelled=1/);
+	await declinedAndBack(page, 'KA', email);
 	// Nothing personal travels in the address the payment page sends the buyer back to.
 	expect(page.url()).not.toContain(encodeURIComponent(email));
 	expect(page.url()).not.toContain('Alder');

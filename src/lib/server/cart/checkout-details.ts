@@ -7,6 +7,7 @@ import { eq, lt } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { carts, checkoutDetails, type Address } from '../db/schema';
 import { transact } from '../db/retry';
+import { lockCart } from './lock';
 import { startOncePerInterval } from '../jobs/once-per-interval';
 
 /** As long as the basket cookie lasts (set once, when the basket is made). */
@@ -30,12 +31,7 @@ export async function saveCheckoutDetails(
 	now = new Date()
 ): Promise<boolean> {
 	return transact(async (tx) => {
-		const [cart] = await tx
-			.select({ id: carts.id })
-			.from(carts)
-			.where(eq(carts.id, cartId))
-			.for('update');
-		if (!cart) return false;
+		if (!(await lockCart(tx, cartId))) return false;
 		const row = { ...details, savedAt: now };
 		await tx
 			.insert(checkoutDetails)

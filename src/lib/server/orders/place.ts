@@ -6,9 +6,10 @@ import { randomInt } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
-import { carts, orderLines, orders, type Address } from '../db/schema';
+import { orderLines, orders, type Address } from '../db/schema';
 import { leadDaysFor, priceCart, type PricedCart } from '../cart/pricing';
 import { saveCheckoutDetails } from '../cart/checkout-details';
+import { lockCart } from '../cart/lock';
 import { confirmedAccountFor } from '../auth/guest-orders';
 import { addDays } from '$lib/dates';
 import type { CheckoutInput } from '$lib/schemas/checkout';
@@ -81,12 +82,7 @@ export async function createPendingOrder(
 	now = new Date()
 ): Promise<PendingOrder> {
 	return transact(async (tx) => {
-		const [cart] = await tx
-			.select({ id: carts.id })
-			.from(carts)
-			.where(eq(carts.id, cartId))
-			.for('update');
-		if (!cart) throw new OrderError('Your basket is empty.', 409, 'empty');
+		if (!(await lockCart(tx, cartId))) throw new OrderError('Your basket is empty.', 409, 'empty');
 
 		const earlier = await tx
 			.select({ id: orders.id, sessionId: orders.checkoutSessionId })
