@@ -176,6 +176,19 @@ describe("the checkout's details live with the basket", () => {
 		expect(await checkoutDetailsFor(cartId)).toBeNull();
 	});
 
+	it('sent from two tabs at once leave one row, one of the versions sent', async () => {
+		const cartId = crypto.randomUUID();
+		const now = new Date();
+		await db.insert(carts).values({ id: cartId, createdAt: now, updatedAt: now });
+		const names = ['Tab One', 'Tab Two', 'Tab Three', 'Tab Four'];
+		const saved = await Promise.all(names.map((n) => saveCheckoutDetails(cartId, details(n))));
+		expect(saved).toEqual([true, true, true, true]);
+		const rows = await db.select().from(checkoutDetails).where(eq(checkoutDetails.cartId, cartId));
+		expect(rows).toHaveLength(1);
+		expect(names).toContain(rows[0].name);
+		await db.delete(carts).where(eq(carts.id, cartId));
+	});
+
 	it('are not stored for a basket that does not exist', async () => {
 		expect(await saveCheckoutDetails(crypto.randomUUID(), details('Nobody'))).toBe(false);
 	});
