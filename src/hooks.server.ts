@@ -8,6 +8,7 @@ import {
 } from '$lib/server/auth/lucia';
 import { toApiErrorResponse } from '$lib/server/api-errors';
 import { startHoldSweeper } from '$lib/server/orders/holds';
+import { startCheckoutDetailsSweeper } from '$lib/server/cart/checkout-details';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { addressHandle } from '$lib/server/handles/address';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
@@ -24,6 +25,7 @@ export const init: ServerInit = () => {
 	refuseDefaultSecrets();
 	answerClientErrorsWithJson();
 	startHoldSweeper();
+	startCheckoutDetailsSweeper();
 	startOutboxDrainer();
 };
 

@@ -23,7 +23,7 @@ async function fillSignUp(page: Page, name: string, email: string, password: str
 async function signUp(page: Page, name: string, email: string, password: string) {
 	await fillSignUp(page, name, email, password);
 	await expect(page.getByText('Open the link in it within a day')).toBeVisible();
-	const mail = await waitForMail(email, /Finish making/);
+	const mail = await waitForMail(email, /Welcome to Chipstall/);
 	const link = mail.text.match(/https?:\/\/\S+\/signup\/[a-z0-9]+/)?.[0];
 	expect(link, 'sign-up link in the e-mail text').toBeTruthy();
 	await page.goto(link!);

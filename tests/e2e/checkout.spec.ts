@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
+import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
 import { signInAs } from './helpers/auth';
 import { waitForMail } from './helpers/mail';
 
@@ -57,15 +57,7 @@ test('personalise, pay with the test card, e-mail and workshop see it paid', asy
 
 test('a declined card brings the buyer back to the basket with nothing paid', async ({ page }) => {
 	const email = `declined-${Date.now()}@example.test`;
-	await personaliseAndAdd(page, 'QZ');
-	await page.getByTestId('cart-link').click();
-	await fillCheckout(page, email);
-
-	await payWith(page, '4000 0000 0000 0002');
-	await expect(page.getByRole('alert')).toContainText(/declined/i);
-	await page.getByRole('link', { name: 'Cancel and go back' }).click();
-
-	await expect(page).toHaveURL(/\/cart\?cancelled=1/);
+	await declinedAndBack(page, 'QZ', email);
 	const notice = page.getByTestId('payment-not-completed');
 	await expect(notice).toContainText('Your card was declined');
 	await expect(notice).toContainText('Nothing was charged');

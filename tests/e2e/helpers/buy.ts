@@ -45,6 +45,20 @@ export async function payWith(page: Page, card: string) {
 	await page.getByRole('button', { name: /^Pay / }).click();
 }
 
+/**
+ * Personalises, checks out, is declined (4000 0000 0000 0002, Stripe's generic decline) and
+ * follows "Cancel and go back" to the basket.
+ */
+export async function declinedAndBack(page: Page, initials: string, email: string) {
+	await personaliseAndAdd(page, initials);
+	await page.getByTestId('cart-link').click();
+	await fillCheckout(page, email);
+	await payWith(page, '4000 0000 0000 0002');
+	await expect(page.getByRole('alert')).toContainText(/declined/i);
+	await page.getByRole('link', { name: 'Cancel and go back' }).click();
+	await expect(page).toHaveURL(/\/cart\?cancelled=1/);
+}
+
 /** Personalises, checks out and pays; returns the order reference and the total shown. */
 export async function buyPersonalised(page: Page, initials: string, email: string) {
 	await personaliseAndAdd(page, initials);

@@ -1,5 +1,6 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '../db';
+import { confirmEmail } from './guest-orders';
 import { passwordResets, sessions, users } from '../db/schema';
 import { hashPassword } from './password';
 import { generateToken, hashToken } from './token';
@@ -74,6 +75,8 @@ export async function completeReset(
 			.set({ usedAt: now })
 			.where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
 		await tx.delete(sessions).where(eq(sessions.userId, row.userId));
+		// The link reached the account's address, which proves it: guest orders join it now.
+		await confirmEmail(tx, row.userId, now);
 		return { ok: true as const, userId: row.userId };
 	});
 }

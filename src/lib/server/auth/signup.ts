@@ -1,11 +1,13 @@
 import { eq, lt } from 'drizzle-orm';
 import { config } from '../config';
 import { db } from '../db';
+import { transact } from '../db/retry';
 import { pendingSignups } from '../db/schema';
 import { sendMail } from '../mail';
 import { hashPassword } from './password';
 import { generateToken, hashToken } from './token';
 import { createAccountWithHash, findUserByEmail } from './users';
+import { attachGuestOrders } from './guest-orders';
 
 export const SIGNUP_LIFETIME_MS = 24 * 60 * 60 * 1000;
 
@@ -48,11 +50,15 @@ export async function requestSignUp(input: SignUpRequest, now = new Date()): Pro
 	const link = `${config.origin}/signup/${token}`;
 	await sendMail({
 		to: input.email,
-		subject: 'Finish making your Chipstall account',
+		subject: 'Welcome to Chipstall: confirm your address to open your account',
 		text: [
 			`Hello ${input.name},`,
 			'',
-			'Open this link within a day to finish making your Chipstall account:',
+			'Welcome to Chipstall. Your account keeps every order in one place, with its progress',
+			'from the carving bench to your door, and fills in your name and e-mail at checkout.',
+			'',
+			'Open this link within a day to confirm this e-mail address and open your account.',
+			'Orders you have already placed with this address as a guest will appear in it too.',
 			'',
 			link,
 			'',
@@ -78,25 +84,39 @@ export async function checkSignUpToken(token: string, now = new Date()): Promise
 	return row.expiresAt.getTime() <= now.getTime() ? 'expired' : 'valid';
 }
 
+export type SignUpDone =
+	| { ok: true; userId: string; attached: number }
+	| { ok: false; state: 'unknown' | 'expired' | 'taken' };
+
 /**
- * Makes the account from a pending sign-up and spends the link. When the address got an account
- * meanwhile (two links, or the owner added them), the link is spent and reports 'taken'.
+ * Makes the account from a pending sign-up and spends the link, in one transaction. Opening the
+ * link proves the address, so the account starts confirmed and the orders placed with that
+ * address as a guest join it. When the address got an account meanwhile (two links, or the owner
+ * added them), the link is spent and reports 'taken', and nothing is attached.
  */
-export async function completeSignUp(
-	token: string,
-	now = new Date()
-): Promise<{ ok: true; userId: string } | { ok: false; state: 'unknown' | 'expired' | 'taken' }> {
-	const row = await pendingRow(token);
-	if (!row) return { ok: false, state: 'unknown' };
-	// Deleting first makes the link single-use even when two clicks race.
-	const [res] = await db.delete(pendingSignups).where(eq(pendingSignups.id, row.id));
-	if (res.affectedRows !== 1) return { ok: false, state: 'unknown' };
-	if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, state: 'expired' };
-	const created = await createAccountWithHash({
-		name: row.name,
-		email: row.email,
-		passwordHash: row.passwordHash,
-		role: 'customer'
+export async function completeSignUp(token: string, now = new Date()): Promise<SignUpDone> {
+	return transact(async (tx): Promise<SignUpDone> => {
+		// Locked and deleted first: the link is single-use even when two clicks race.
+		const [row] = await tx
+			.select()
+			.from(pendingSignups)
+			.where(eq(pendingSignups.id, hashToken(token)))
+			.for('update');
+		if (!row) return { ok: false, state: 'unknown' };
+		await tx.delete(pendingSignups).where(eq(pendingSignups.id, row.id));
+		if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, state: 'expired' };
+		const created = await createAccountWithHash(
+			{
+				name: row.name,
+				email: row.email,
+				passwordHash: row.passwordHash,
+				role: 'customer',
+				emailConfirmedAt: now
+			},
+			tx
+		);
+		if (!created.ok) return { ok: false, state: 'taken' };
+		const attached = await attachGuestOrders(tx, created.user.id, row.email);
+		return { ok: true, userId: created.user.id, attached };
 	});
-	return created.ok ? { ok: true, userId: created.user.id } : { ok: false, state: 'taken' };
 }

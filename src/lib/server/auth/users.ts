@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import { db } from '../db';
+import { db, type Db, type Tx } from '../db';
 import { users, type Role } from '../db/schema';
 import { burnVerifyTime, hashPassword, verifyPassword } from './password';
 
@@ -54,9 +54,13 @@ export async function createAccount(
 	return createAccountWithHash({ ...rest, passwordHash: await hashPassword(password) });
 }
 
-/** As createAccount, with the password already hashed (a sign-up confirmed by e-mail). */
+/**
+ * As createAccount, with the password already hashed (a sign-up confirmed by e-mail, which
+ * passes when the address was proven and its own transaction).
+ */
 export async function createAccountWithHash(
-	input: Omit<NewAccount, 'password'> & { passwordHash: string }
+	input: Omit<NewAccount, 'password'> & { passwordHash: string; emailConfirmedAt?: Date },
+	conn: Db | Tx = db
 ): Promise<{ ok: true; user: AccountUser } | { ok: false; reason: 'email-taken' }> {
 	const user: AccountUser = {
 		id: crypto.randomUUID(),
@@ -65,9 +69,10 @@ export async function createAccountWithHash(
 		role: input.role ?? 'customer'
 	};
 	try {
-		await db.insert(users).values({
+		await conn.insert(users).values({
 			...user,
 			passwordHash: input.passwordHash,
+			emailConfirmedAt: input.emailConfirmedAt ?? null,
 			createdAt: new Date()
 		});
 	} catch (err) {

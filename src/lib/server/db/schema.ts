@@ -26,7 +26,13 @@ export const users = mysqlTable('users', {
 	name: varchar('name', { length: 120 }).notNull(),
 	passwordHash: varchar('password_hash', { length: 255 }).notNull(),
 	role: mysqlEnum('role', roles).notNull().default('customer'),
-	createdAt: datetime('created_at').notNull()
+	createdAt: datetime('created_at').notNull(),
+	/**
+	 * When the owner of the address opened a link we e-mailed to it (the sign-up link, a reset
+	 * link). Null for accounts made without one: guest orders gather into an account only once
+	 * its address is proven.
+	 */
+	emailConfirmedAt: datetime('email_confirmed_at')
 });
 
 /** Session id is the SHA-256 hex of the cookie token; the token itself is never stored. */
@@ -162,6 +168,23 @@ export const carts = mysqlTable('carts', {
 	destination: varchar('destination', { length: 2 }),
 	createdAt: datetime('created_at').notNull(),
 	updatedAt: datetime('updated_at').notNull()
+});
+
+/**
+ * The buyer's name, e-mail and address as last sent from this basket's checkout, so a declined
+ * card or a cancelled payment page brings the form back filled. Personal data: it lives only as
+ * long as the basket (deleted with it, when the order is paid, and by the sweep once the basket
+ * has lain untouched as long as its cookie lasts).
+ */
+export const checkoutDetails = mysqlTable('checkout_details', {
+	cartId: varchar('cart_id', { length: 36 })
+		.primaryKey()
+		.references(() => carts.id, { onDelete: 'cascade' }),
+	name: varchar('name', { length: 120 }).notNull(),
+	email: varchar('email', { length: 255 }).notNull(),
+	address: json('address').$type<Address>().notNull(),
+	giftNote: varchar('gift_note', { length: 500 }),
+	savedAt: datetime('saved_at').notNull()
 });
 
 export const cartLines = mysqlTable('cart_lines', {

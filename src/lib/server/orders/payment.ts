@@ -15,6 +15,7 @@ import { transact } from '../db/retry';
 import { cartLines, orderLines, orders, pieces, processedEvents } from '../db/schema';
 import { stripe, type Stripe } from '../payments';
 import type { PricedCart } from '../cart/pricing';
+import { forgetCheckoutDetails } from '../cart/checkout-details';
 import { addDays } from '$lib/dates';
 import { heldLines, releaseInTx, releaseOrder, takeStock } from './holds';
 import { moveOrder } from './status';
@@ -250,7 +251,11 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 			{ ...payment, readyBy: addDays(now, await madeToOrderLead(tx, order.id)) },
 			now
 		);
-		if (order.cartId) await tx.delete(cartLines).where(eq(cartLines.cartId, order.cartId));
+		if (order.cartId) {
+			await tx.delete(cartLines).where(eq(cartLines.cartId, order.cartId));
+			// The basket's work is done; the details live on in the order itself.
+			await forgetCheckoutDetails(tx, order.cartId);
+		}
 		return { kind: 'paid', orderId: order.id };
 	});
 }

@@ -6,8 +6,11 @@ import { randomInt } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
-import { carts, orderLines, orders, type Address } from '../db/schema';
+import { orderLines, orders, type Address } from '../db/schema';
 import { leadDaysFor, priceCart, type PricedCart } from '../cart/pricing';
+import { saveCheckoutDetails } from '../cart/checkout-details';
+import { lockCart } from '../cart/lock';
+import { confirmedAccountFor } from '../auth/guest-orders';
 import { addDays } from '$lib/dates';
 import type { CheckoutInput } from '$lib/schemas/checkout';
 import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from './holds';
@@ -79,12 +82,7 @@ export async function createPendingOrder(
 	now = new Date()
 ): Promise<PendingOrder> {
 	return transact(async (tx) => {
-		const [cart] = await tx
-			.select({ id: carts.id })
-			.from(carts)
-			.where(eq(carts.id, cartId))
-			.for('update');
-		if (!cart) throw new OrderError('Your basket is empty.', 409, 'empty');
+		if (!(await lockCart(tx, cartId))) throw new OrderError('Your basket is empty.', 409, 'empty');
 
 		const earlier = await tx
 			.select({ id: orders.id, sessionId: orders.checkoutSessionId })
@@ -126,7 +124,8 @@ export async function createPendingOrder(
 			.insert(orders)
 			.values({
 				ref,
-				userId,
+				// A guest order with an address a confirmed account has proven joins that account.
+				userId: userId ?? (await confirmedAccountFor(tx, buyer.email)),
 				cartId,
 				email: buyer.email,
 				buyerName: buyer.name,
@@ -188,6 +187,17 @@ export async function placeOrder(
 	origin: string,
 	now = new Date()
 ): Promise<{ ref: string; paymentUrl: string }> {
+	// Kept against the basket, so a buyer who comes back unpaid finds the form filled.
+	await saveCheckoutDetails(
+		cartId,
+		{
+			name: buyer.name,
+			email: buyer.email,
+			address: addressOf(buyer),
+			giftNote: buyer.giftNote || null
+		},
+		now
+	);
 	// Pieces held by checkouts that were never finished go back on the shelf first.
 	await releaseExpiredHolds(now);
 	const order = await createPendingOrder(cartId, buyer, userId, now);

@@ -1,5 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
+import { checkoutDetailsFor } from '$lib/server/cart/checkout-details';
 import { OrderError, placeOrder } from '$lib/server/orders/place';
 import { checkoutSchema } from '$lib/schemas/checkout';
 import { COUNTRIES } from '$lib/shipping';
@@ -8,13 +9,29 @@ import { parseForm } from '$lib/forms';
 import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
 import { throttles } from '$lib/server/throttles';
 
-export const load: PageServerLoad = async ({ cookies, locals }) => {
-	const summary = await cartSummary(cartIdFrom(cookies));
+export const load: PageServerLoad = async ({ cookies, locals, setHeaders }) => {
+	const cartId = cartIdFrom(cookies);
+	const summary = await cartSummary(cartId);
 	if (summary.lines.length === 0) redirect(303, '/cart');
+	// Back from the payment page unpaid: the form comes back as this basket last sent it. The
+	// country is the basket's destination, which the shipping charge shown is priced for.
+	const saved = await checkoutDetailsFor(cartId);
+	const a = saved?.address;
+	// The page carries a name and an address: no shared cache keeps it.
+	if (saved) setHeaders({ 'cache-control': 'private, no-store' });
 	return {
 		summary,
 		countries: COUNTRIES,
-		buyer: { name: locals.user?.name ?? '', email: locals.user?.email ?? '' }
+		buyer: {
+			name: saved?.name ?? locals.user?.name ?? '',
+			email: saved?.email ?? locals.user?.email ?? '',
+			line1: a?.line1 ?? '',
+			line2: a?.line2 ?? '',
+			city: a?.city ?? '',
+			region: a?.region ?? '',
+			postcode: a?.postcode ?? '',
+			giftNote: saved?.giftNote ?? ''
+		}
 	};
 };
 
