@@ -1,4 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
+import { signInAs } from './helpers/auth';
+import { fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
 
 /** "$1,234.50" → 123450 minor units (the shop shows US dollars with two decimals). */
 const cents = (text: string) => {
@@ -52,4 +54,97 @@ test('the "from" price on every piece is the cheapest choice offered, on the car
 		expect(from, `${href}: page "from" vs cheapest choice`).toBe(Math.min(...offered));
 		expect(from, `${href}: page "from" vs shop card`).toBe(price);
 	}
+});
+
+test('the nut-allergy caution and the footer lead to the contact page', async ({ page }) => {
+	// Walnut is a nut tree (Juglans nigra: common practice); this holder is offered in walnut.
+	await page.goto('/shop/rosette-bottle-holder');
+	const caution = page.getByRole('note').filter({ hasText: 'Oils and allergies' });
+	await caution.getByRole('link', { name: 'write to us before ordering' }).click();
+	await expect(page).toHaveURL(/\/contact$/);
+	await expect(page.getByRole('heading', { level: 1, name: 'Contact' })).toBeVisible();
+	const footer = page.getByRole('navigation', { name: 'Footer' });
+	await expect(footer.getByRole('link', { name: 'Contact' })).toHaveAttribute('href', '/contact');
+});
+
+test("buyers get care and materials; the carver's safety notes live in the workshop", async ({
+	page,
+	request
+}) => {
+	// The old address still works, permanently moved (RFC 9110 §15.4.9: 308 Permanent Redirect).
+	const old = await request.get('/safety', { maxRedirects: 0 });
+	expect(old.status()).toBe(308);
+	expect(old.headers()['location']).toBe('/care');
+
+	await page.goto('/shop');
+	await page
+		.getByRole('navigation', { name: 'Footer' })
+		.getByRole('link', { name: 'Care and materials' })
+		.click();
+	await expect(page.getByRole('heading', { level: 1, name: 'Care and materials' })).toBeVisible();
+	const care = page.locator('main');
+	await expect(care).toContainText('For food');
+	await expect(care).toContainText('walnut and butternut are nut trees');
+	// The carver's own hazards are not the buyer's page.
+	await expect(care).not.toContainText('Wood dust');
+	await expect(care).not.toContainText('Knives');
+
+	await page.goto('/signin');
+	await expect(page.getByRole('link', { name: 'Care and materials' })).toHaveAttribute(
+		'href',
+		'/care'
+	);
+
+	await signInAs(page, 'helper');
+	await page.getByRole('link', { name: 'working safely' }).click();
+	await expect(page).toHaveURL(/\/workshop\/safety$/);
+	const notes = page.locator('main');
+	for (const h of ['Oily finishing rags', 'Wood dust', 'Knives']) {
+		await expect(notes.getByRole('heading', { name: new RegExp(h) })).toBeVisible();
+	}
+	await expect(notes).toContainText('follow the local code');
+});
+
+test('a declined card is said once, in plain words', async ({ page }) => {
+	await personaliseAndAdd(page, 'NW');
+	await page.getByTestId('cart-link').click();
+	await fillCheckout(page, `funds-${Date.now()}@example.test`);
+	// Stripe's test card for "insufficient funds" (its testing docs; mocks/stripe/cards.ts).
+	await payWith(page, '4000 0000 0000 9995');
+	await expect(page.getByRole('alert')).toContainText(/insufficient funds/i);
+	await page.getByRole('link', { name: 'Cancel and go back' }).click();
+	const notice = page.getByTestId('payment-not-completed');
+	await expect(notice).toContainText('Your card has insufficient funds');
+	await expect(notice).toContainText('Nothing was charged');
+	const words = (await notice.innerText()).toLowerCase();
+	expect(words).not.toContain('not accepted');
+	// The reason appears once, not repeated in brackets after a sentence saying the same.
+	expect(words.split('insufficient funds').length - 1).toBe(1);
+});
+
+test('a personalised line set to 0 can be put back with its initials, wood and style', async ({
+	page
+}) => {
+	await personaliseAndAdd(page, 'UV');
+	await page.goto('/cart', { waitUntil: 'networkidle' });
+	const line = page.getByTestId('cart-line');
+	await expect(line).toHaveCount(1);
+	const before = await line.innerText();
+	expect(before).toContain('Black cherry');
+
+	const qty = page.getByRole('spinbutton', { name: /How many/ });
+	await qty.fill('0');
+	await qty.dispatchEvent('change');
+	await expect(line).toHaveCount(0);
+	const removed = page.getByTestId('removed-line');
+	await expect(removed).toContainText('UV');
+	await expect(page.getByTestId('cart-count')).toHaveText('0');
+
+	await removed.getByRole('button', { name: 'Put it back' }).click();
+	await expect(line).toHaveCount(1);
+	await expect(page.getByTestId('line-initials')).toHaveText('UV');
+	// Same wood, style and price as before it was taken out.
+	expect(await line.innerText()).toBe(before);
+	await expect(removed).toHaveCount(0);
+	await expect(page.getByTestId('cart-count')).toHaveText('1');
 });

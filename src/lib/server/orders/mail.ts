@@ -43,9 +43,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 		['Total paid', order.totalMinor]
 	];
 
-	const care = careForAll(
-		order.lines.map((l) => ({ ...l, personalised: !!l.personalisation }))
-	);
+	const care = careForAll(order.lines.map((l) => ({ ...l, personalised: !!l.personalisation })));
 	const careText = [
 		...care.notes.map((c) => `${c.title}: ${c.text}`),
 		...(care.letters ? [LETTERS_CARE] : []),

@@ -33,7 +33,11 @@ async function withDetails(order: typeof orders.$inferSelect) {
 	const [lines, ships] = await Promise.all([
 		// The piece's kind and food flag choose the care words the buyer is given (see $lib/care).
 		db
-			.select({ ...getTableColumns(orderLines), kind: pieces.kind, foodContact: pieces.foodContact })
+			.select({
+				...getTableColumns(orderLines),
+				kind: pieces.kind,
+				foodContact: pieces.foodContact
+			})
 			.from(orderLines)
 			.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
 			.where(eq(orderLines.orderId, order.id))
