@@ -4,7 +4,9 @@
  * a plate but never sees food), and whether it hangs (ornaments). The piece page and the
  * order e-mail both take their words from here, so a display piece is never sent food advice.
  */
-import type { PieceKind } from './kinds';
+
+/** What care depends on: the piece's kind (see $lib/kinds) and its food-contact flag. */
+type CarePiece = { kind: string; foodContact: boolean };
 
 export type CareKey = 'food' | 'hanging' | 'display';
 export type Care = { key: CareKey; title: string; text: string };
@@ -36,20 +38,21 @@ const CARE: Record<CareKey, Omit<Care, 'key'>> = {
 export const LETTERS_CARE =
 	'Your initials are cut as chips: a soft dry brush lifts the dust from them better than a cloth.';
 
-export function careKey(piece: { kind: PieceKind | string; foodContact: boolean }): CareKey {
+export function careKey(piece: CarePiece): CareKey {
 	if (piece.foodContact) return 'food';
 	return piece.kind === 'ornament' ? 'hanging' : 'display';
 }
 
-export function careFor(piece: { kind: PieceKind | string; foodContact: boolean }): Care {
+export function careFor(piece: CarePiece): Care {
 	const key = careKey(piece);
 	return { key, ...CARE[key] };
 }
 
 /** The care notes for a set of pieces (one order): each kind of advice once, food first. */
-export function careForAll(
-	items: { kind: PieceKind | string; foodContact: boolean; personalised?: boolean }[]
-): { notes: Care[]; letters: boolean } {
+export function careForAll(items: (CarePiece & { personalised?: boolean })[]): {
+	notes: Care[];
+	letters: boolean;
+} {
 	const keys = new Set(items.map(careKey));
 	const order: CareKey[] = ['food', 'hanging', 'display'];
 	return {
