@@ -48,15 +48,21 @@ export function careFor(piece: CarePiece): Care {
 	return { key, ...CARE[key] };
 }
 
-/** The care notes for a set of pieces (one order): each kind of advice once, food first. */
-export function careForAll(items: (CarePiece & { personalised?: boolean })[]): {
-	notes: Care[];
+/** The care notes for a set of pieces (one order): each kind of advice once, food first, with
+ * the titles of the pieces it is for, so a mixed order says which advice goes with which piece. */
+export function careForAll(items: (CarePiece & { title: string; personalised?: boolean })[]): {
+	notes: (Care & { pieces: string[] })[];
 	letters: boolean;
 } {
-	const keys = new Set(items.map(careKey));
 	const order: CareKey[] = ['food', 'hanging', 'display'];
 	return {
-		notes: order.filter((k) => keys.has(k)).map((key) => ({ key, ...CARE[key] })),
+		notes: order
+			.map((key) => ({
+				key,
+				...CARE[key],
+				pieces: [...new Set(items.filter((i) => careKey(i) === key).map((i) => i.title))]
+			}))
+			.filter((n) => n.pieces.length > 0),
 		letters: items.some((i) => i.personalised)
 	};
 }

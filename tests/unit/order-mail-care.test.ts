@@ -58,6 +58,14 @@ describe('confirmation e-mail care text', () => {
 		expect(text).not.toMatch(/initials are cut as chips/i);
 	});
 
+	it('says which advice goes with which piece in a mixed order', async () => {
+		// CS-1006: a bottle holder (display) and a coffee scoop (for food).
+		const { text } = await parsedConfirmation('CS-1006');
+		expect(text).toMatch(/For food \(Coffee scoop\): /);
+		expect(text).toMatch(/For display \([^)]*bottle holder[^)]*\): /i);
+		expect(text).not.toMatch(/For food \([^)]*bottle holder/i);
+	});
+
 	it('names the nut-tree woods for every order', async () => {
 		const { text } = await parsedConfirmation('CS-1005');
 		// Walnut and butternut are nut trees (Juglans nigra, Juglans cinerea: common practice).

@@ -45,7 +45,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 
 	const care = careForAll(order.lines.map((l) => ({ ...l, personalised: !!l.personalisation })));
 	const careText = [
-		...care.notes.map((c) => `${c.title}: ${c.text}`),
+		...care.notes.map((c) => `${c.title} (${c.pieces.join(', ')}): ${c.text}`),
 		...(care.letters ? [LETTERS_CARE] : []),
 		ALLERGY_LINE
 	];
@@ -96,7 +96,7 @@ ${order.lines
 ${order.giftNote ? `<p>Gift note: <em>${esc(order.giftNote)}</em></p>` : ''}
 <p><a href="${esc(link)}" style="display:inline-block;background:#9a4a22;color:#fffaf2;padding:10px 18px;border-radius:12px;text-decoration:none;font-weight:bold">See your order</a></p>
 <h2 style="font-size:19px;margin:20px 0 4px">Looking after your pieces</h2>
-${care.notes.map((c) => `<p style="font-size:15px;margin:4px 0"><strong>${esc(c.title)}:</strong> ${esc(c.text)}</p>`).join('\n')}
+${care.notes.map((c) => `<p style="font-size:15px;margin:4px 0"><strong>${esc(c.title)}</strong> (${esc(c.pieces.join(', '))}): ${esc(c.text)}</p>`).join('\n')}
 ${care.letters ? `<p style="font-size:15px;margin:4px 0">${esc(LETTERS_CARE)}</p>` : ''}
 <p style="font-size:15px;margin:4px 0;color:#5c4a3c">${esc(ALLERGY_LINE)}</p>
 </div></body></html>`;
