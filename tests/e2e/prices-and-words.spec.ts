@@ -137,7 +137,7 @@ test('a personalised line set to 0 can be put back with its initials, wood and s
 	await qty.dispatchEvent('change');
 	await expect(line).toHaveCount(0);
 	const removed = page.getByTestId('removed-line');
-	await expect(removed).toContainText('UV');
+	await expect(removed).toContainText('Took out Rosette bottle holder with the initials UV in');
 	await expect(page.getByTestId('cart-count')).toHaveText('0');
 
 	await removed.getByRole('button', { name: 'Put it back' }).click();
