@@ -289,7 +289,7 @@ test.describe('production refuses default secrets (ASVS V14.1)', () => {
 		try {
 			await expect.poll(output, { timeout: 20_000 }).toContain('Listening on');
 			// adapter-node takes the protocol from ORIGIN: this request counts as https.
-			const res = await fetch(`http://localhost:${port}/safety`);
+			const res = await fetch(`http://localhost:${port}/care`);
 			expect(res.headers.get('strict-transport-security')).toContain('max-age=');
 		} finally {
 			child.kill('SIGTERM');

@@ -42,7 +42,7 @@ export async function startApp(env: Record<string, string> = {}): Promise<AppPro
 	while (Date.now() < deadline) {
 		if (child.exitCode !== null) throw new Error(`app exited early:\n${stderr}`);
 		try {
-			await fetch(`${url}/safety`);
+			await fetch(`${url}/care`);
 			return { url, port, child, stop };
 		} catch {
 			await new Promise((r) => setTimeout(r, 150));

@@ -4,6 +4,7 @@ import { db } from './db';
 import { photos, pieces, pieceWoods, stock, woods, WORKSHOP } from './db/schema';
 import { cachedCatalogue } from './catalogue-cache';
 import type { ShopQuery } from '$lib/schemas/shop';
+import { fromPriceMinor } from '$lib/from-price';
 
 export type WoodChoice = {
 	id: number;
@@ -94,9 +95,7 @@ async function readPieceList(q: ShopQuery) {
 		const woodList = woodMap.get(r.id) ?? [];
 		const shown = q.wood ? woodList.filter((w) => w.slug === q.wood) : woodList;
 		const inStock = shown.reduce((n, w) => n + w.inStock, 0);
-		const fromMinor =
-			r.basePriceMinor +
-			Math.min(...(shown.length ? shown : [{ priceAddOnMinor: 0 }]).map((w) => w.priceAddOnMinor));
+		const fromMinor = fromPriceMinor(r, shown);
 		return {
 			slug: r.slug,
 			title: r.title,
@@ -178,6 +177,7 @@ async function readPiece(slug: string) {
 			.innerJoin(pieceWoods, and(eq(pieceWoods.woodId, woods.id), eq(pieceWoods.pieceId, p.id)))
 	]);
 	const factBySlug = new Map(facts.map((f) => [f.slug, f]));
+	const woodList = woodMap.get(p.id) ?? [];
 	return {
 		id: p.id,
 		slug: p.slug,
@@ -195,8 +195,9 @@ async function readPiece(slug: string) {
 		leadDays: p.leadDays,
 		careNotes: p.careNotes,
 		pattern: p.pattern,
+		fromMinor: fromPriceMinor(p, woodList),
 		photos: photoMap.get(p.id) ?? [],
-		woods: (woodMap.get(p.id) ?? []).map((w) => ({ ...w, ...factBySlug.get(w.slug)! }))
+		woods: woodList.map((w) => ({ ...w, ...factBySlug.get(w.slug)! }))
 	};
 }
 

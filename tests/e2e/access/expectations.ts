@@ -55,7 +55,9 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'GET /shop': every('ok'),
 	'GET /shop/[slug]': { ...every('ok'), url: '/shop/rosette-bottle-holder' },
 	'POST /shop/[slug]?/add': { ...every('allowed'), url: '/shop/rosette-bottle-holder?/add' },
-	'GET /safety': every('ok'),
+	'GET /care': every('ok'),
+	// The old buyer-notes address, kept working: a permanent redirect to /care.
+	'GET /safety': every('redirect'),
 	'GET /contact': every('ok'),
 	'GET /policies': every('ok'),
 	'GET /fairs': every('ok'),
@@ -119,6 +121,7 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 
 	// Workshop.
 	'GET /workshop': staff,
+	'GET /workshop/safety': staff,
 	'GET /workshop/orders': staff,
 	'GET /workshop/orders/[ref]': { ...staff, url: '/workshop/orders/CS-1001' },
 	'POST /workshop/orders?/move': staffAction,

@@ -5,6 +5,11 @@ import { sendMail } from '../mail';
 import { esc } from '../mail-html';
 import { orderLink } from './links';
 import type { OrderDetail } from './views';
+import { careForAll, LETTERS_CARE } from '$lib/care';
+
+/** Said to every buyer: finishes can come from nuts, and two of the woods are nut trees. */
+const ALLERGY_LINE =
+	'Some finishes are made from nut oils, and walnut and butternut are nut trees: if a nut allergy matters, reply to this e-mail and we will tell you exactly what was used.';
 
 export function readyByWords(iso: string | null) {
 	return formatDay(iso, 'weekdayLong', 'soon');
@@ -38,6 +43,13 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 		['Total paid', order.totalMinor]
 	];
 
+	const care = careForAll(order.lines.map((l) => ({ ...l, personalised: !!l.personalisation })));
+	const careText = [
+		...care.notes.map((c) => `${c.title} (${c.pieces.join(', ')}): ${c.text}`),
+		...(care.letters ? [LETTERS_CARE] : []),
+		ALLERGY_LINE
+	];
+
 	const text = [
 		`Thank you, ${order.buyerName}.`,
 		'',
@@ -54,7 +66,10 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 		addr,
 		...(order.giftNote ? ['', `Gift note: ${order.giftNote}`] : []),
 		'',
-		`See your order at any time: ${link}`
+		`See your order at any time: ${link}`,
+		'',
+		'Looking after your pieces',
+		...careText
 	].join('\n');
 
 	const row = (k: string, v: string, strong = false) =>
@@ -80,7 +95,10 @@ ${order.lines
 <p style="white-space:pre-line">Posting to:\n${esc(order.buyerName)}\n${esc(addr)}</p>
 ${order.giftNote ? `<p>Gift note: <em>${esc(order.giftNote)}</em></p>` : ''}
 <p><a href="${esc(link)}" style="display:inline-block;background:#9a4a22;color:#fffaf2;padding:10px 18px;border-radius:12px;text-decoration:none;font-weight:bold">See your order</a></p>
-<p style="font-size:14px;color:#5c4a3c">Wooden pieces for food are finished with a food-safe finish; wash by hand and oil now and then. If you have a nut allergy, ask us which oil we used.</p>
+<h2 style="font-size:19px;margin:20px 0 4px">Looking after your pieces</h2>
+${care.notes.map((c) => `<p style="font-size:15px;margin:4px 0"><strong>${esc(c.title)}</strong> (${esc(c.pieces.join(', '))}): ${esc(c.text)}</p>`).join('\n')}
+${care.letters ? `<p style="font-size:15px;margin:4px 0">${esc(LETTERS_CARE)}</p>` : ''}
+<p style="font-size:15px;margin:4px 0;color:#5c4a3c">${esc(ALLERGY_LINE)}</p>
 </div></body></html>`;
 
 	return { subject: `Order ${order.ref} is paid — thank you`, text, html };

@@ -3,7 +3,7 @@
  * its view of one order, with each personalised line's layout recomputed from its stored
  * snapshot (never a stored drawing), in the line's wood and on the piece's blank.
  */
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { snapshotInput } from '$lib/pattern/snapshot';
@@ -31,7 +31,17 @@ export async function orderBySession(sessionId: string) {
 
 async function withDetails(order: typeof orders.$inferSelect) {
 	const [lines, ships] = await Promise.all([
-		db.select().from(orderLines).where(eq(orderLines.orderId, order.id)).orderBy(orderLines.id),
+		// The piece's kind and food flag choose the care words the buyer is given (see $lib/care).
+		db
+			.select({
+				...getTableColumns(orderLines),
+				kind: pieces.kind,
+				foodContact: pieces.foodContact
+			})
+			.from(orderLines)
+			.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
+			.where(eq(orderLines.orderId, order.id))
+			.orderBy(orderLines.id),
 		db
 			.select()
 			.from(shipments)
