@@ -77,7 +77,7 @@ test.describe('letters that cannot be carved', () => {
 			data: { slug: 'rim-rosette-serving-plate', wood: 'cherry', initials: 'AB', style: 'classic' }
 		});
 		expect(res.status()).toBe(400);
-		const body = await res.json();
+		const body = (await res.json()) as { error: string };
 		expect(body.error).toMatch(/at least 4\.9 mm tall with strokes at least 1 mm wide/);
 		const ok = await request.post('/api/cart', {
 			data: { slug: 'rim-rosette-serving-plate', wood: 'cherry', initials: 'AB', style: 'open' }
