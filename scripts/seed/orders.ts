@@ -29,7 +29,7 @@ function cartLine(line: (typeof DEMO_ORDERS)[number]['lines'][number]) {
 	const blank = { pattern: piece.pattern, lengthMm, widthMm, thicknessMm };
 	let personalisation = null;
 	if (line.initials) {
-		const style = piece.pattern.split ? 'split' : 'classic';
+		const style = line.style ?? (piece.pattern.split ? 'split' : 'classic');
 		const run = personalise(blank, wood, { initials: line.initials, style });
 		if (!run.ok) throw new Error(`Demo initials refused: ${JSON.stringify(run.fields)}`);
 		personalisation = run.snapshot;

@@ -52,6 +52,14 @@ function openFairPage(sub: string) {
 const SCREENS: Screen[] = [
 	{ name: 'shop', path: '/shop' },
 	{ name: 'piece page with the personaliser', path: '/shop/rosette-bottle-holder' },
+	{
+		name: 'piece page, initials refused with the ways out',
+		path: '/shop/rim-rosette-serving-plate',
+		then: async (page) => {
+			await page.getByRole('textbox', { name: 'Initials' }).fill('AB');
+			await expect(page.getByTestId('letters-refused')).toBeVisible();
+		}
+	},
 	{ name: 'basket', path: '/cart', prepare: basketWithOnePiece },
 	{ name: 'checkout', path: '/checkout', prepare: basketWithOnePiece },
 	{ name: 'sign-in', path: '/signin' },

@@ -18,6 +18,8 @@ export type DemoOrder = {
 		wood: string;
 		quantity: number;
 		initials?: string;
+		/** Rosette style; the piece's own (classic or split) when missing. */
+		style?: string;
 	}[];
 	shipment?: { carrier: string; trackingNumber: string; daysAgo: number };
 	giftNote?: string;
@@ -86,7 +88,16 @@ export const DEMO_ORDERS: DemoOrder[] = [
 		address: addr('9 Kiln Road', 'Upper Sedge', 'NY', '12401'),
 		status: 'finishing',
 		daysAgo: 15,
-		lines: [{ piece: 'rim-rosette-serving-plate', wood: 'cherry', quantity: 1, initials: 'AB' }]
+		// Two letters on a 36 mm rosette need the open centre to carve cleanly in cherry.
+		lines: [
+			{
+				piece: 'rim-rosette-serving-plate',
+				wood: 'cherry',
+				quantity: 1,
+				initials: 'AB',
+				style: 'open'
+			}
+		]
 	},
 	{
 		ref: 'CS-1006',

@@ -16,6 +16,7 @@ import {
 import { clipOutsideDisc } from './clip';
 import { EFFORT_DEFAULTS, estimateMinutes } from './effort';
 import { LETTERING_DEFAULTS, setInitials } from './lettering';
+import { letterLimits } from './cuttable';
 import { chipKindAt, rosetteAt, rosetteCurves, type RosetteGeometry } from './rosette';
 import { edgesPath } from './paths';
 import { layoutSteps } from './steps';
@@ -44,7 +45,9 @@ export function computePattern(input: PatternInput, options: PatternOptions = {}
 	const rosettes = circles.map((c) => rosetteAt(c.x, c.y, c.r));
 
 	const initials = (input.initials ?? '').trim();
-	const rules = { ...LETTERING_DEFAULTS, ...input.lettering };
+	// The wood sets the smallest letters that carve cleanly (cuttable.ts); a layout may override.
+	const { minCapHeightMm, minStrokeMm } = letterLimits(wood.slug);
+	const rules = { ...LETTERING_DEFAULTS, minCapHeightMm, minStrokeMm, ...input.lettering };
 	const initialsOn = Math.min(
 		Math.max(0, input.initialsOn ?? Math.floor((input.count - 1) / 2)),
 		input.count - 1

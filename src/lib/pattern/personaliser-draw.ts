@@ -9,6 +9,7 @@ import { computePattern } from './index';
 import { letterFont } from './letter-font';
 import { ROSETTE_STYLES, type RosetteStyle } from './styles';
 import { snapshotInput, styledLayout, type PiecePattern } from './snapshot';
+import { waysOut, type LargerPiece, type WaysOut } from './ways-out';
 
 export type PreviewInput = {
 	pattern: PiecePattern;
@@ -21,6 +22,9 @@ export type PreviewInput = {
 	wood?: string;
 	style: RosetteStyle;
 	idPrefix: string;
+	/** The piece's woods and the server's larger pieces, for the ways out of a refusal. */
+	woods?: string[];
+	larger?: LargerPiece[];
 };
 
 export type Preview = {
@@ -30,6 +34,8 @@ export type Preview = {
 	letterCount: number;
 	estimateMinutes: number;
 	warnings: { code: string; message: string }[];
+	/** Set when the initials are too small to carve in this wood: the refusal and ways out. */
+	refusal: WaysOut | null;
 };
 
 export function drawPreview(p: PreviewInput): Preview {
@@ -37,8 +43,9 @@ export function drawPreview(p: PreviewInput): Preview {
 		.toUpperCase()
 		.replace(/[^A-Z]/g, '')
 		.slice(0, 3);
+	const style = ROSETTE_STYLES[p.style] ? p.style : 'classic';
 	const input = snapshotInput(
-		styledLayout(p.pattern, ROSETTE_STYLES[p.style] ? p.style : 'classic', initials),
+		styledLayout(p.pattern, style, initials),
 		{
 			widthMm: p.widthMm,
 			lengthMm: p.lengthMm,
@@ -57,6 +64,18 @@ export function drawPreview(p: PreviewInput): Preview {
 		chipCount: close.chipCount,
 		letterCount: close.letterCount,
 		estimateMinutes: close.estimateMinutes,
-		warnings: close.warnings.map((w) => ({ code: w.code, message: w.message }))
+		// The letters' size is the refusal below, not a warning beside it.
+		warnings: close.warnings
+			.filter((w) => w.code !== 'letters-small' && w.code !== 'strokes-thin')
+			.map((w) => ({ code: w.code, message: w.message })),
+		refusal: waysOut({
+			initials,
+			diameterMm: p.pattern.diameterMm,
+			style,
+			wood: input.woodSlug ?? '',
+			woods: p.woods ?? [],
+			larger: p.larger,
+			font
+		})
 	};
 }

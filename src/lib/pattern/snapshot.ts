@@ -24,6 +24,8 @@ export type Personalisation = {
 	count: number;
 	spacingMm: number;
 	split: boolean;
+	/** The style's medallion as a share of the radius; missing in older snapshots (0.42). */
+	medallionRatio?: number;
 	chipCount?: number;
 	cutLengthMm?: number;
 	estimateMinutes?: number;
@@ -43,7 +45,7 @@ export function spacingOf(layout: { diameterMm: number; spacingMm?: number | nul
 
 /** Engine input for a stored snapshot, or for a piece's layout with the buyer's initials. */
 export function snapshotInput(
-	snap: PiecePattern & { initials?: string },
+	snap: PiecePattern & { initials?: string; medallionRatio?: number },
 	blank: PieceBlank,
 	woodSlug?: string
 ): PatternInput {
@@ -57,7 +59,8 @@ export function snapshotInput(
 		widthMm: blank.widthMm,
 		lengthMm: blank.lengthMm,
 		thicknessMm: blank.thicknessMm,
-		curvedTop: blank.curvedTop
+		curvedTop: blank.curvedTop,
+		lettering: snap.medallionRatio ? { medallionRatio: snap.medallionRatio } : undefined
 	};
 }
 
@@ -68,6 +71,7 @@ export function styledLayout(layout: PiecePattern, style: RosetteStyle, initials
 		count: layout.count,
 		spacingMm: spacingOf(layout),
 		split: ROSETTE_STYLES[style].split,
+		medallionRatio: ROSETTE_STYLES[style].medallion,
 		initials
 	};
 }

@@ -1,13 +1,30 @@
 /**
  * The rosette styles a buyer can choose. Plain constants, apart from the schemas that check a
  * choice, so the browser's personaliser can list them without the validation library.
+ * `medallion` is the plain centre that carries the initials, as a share of the rosette radius:
+ * the open centre gives the letters about 1.6 times the room, for small rosettes.
  */
 export const ROSETTE_STYLES = {
-	classic: { split: false, label: 'Classic', hint: 'Six petals, twelve chips a rosette' },
+	classic: {
+		split: false,
+		medallion: 0.42,
+		label: 'Classic',
+		hint: 'Six petals, twelve chips a rosette'
+	},
 	split: {
 		split: true,
+		medallion: 0.42,
 		label: 'Split petals',
 		hint: 'Every chip halved: twenty-four smaller chips'
+	},
+	open: {
+		split: false,
+		medallion: 0.6,
+		label: 'Open centre',
+		hint: 'A wider plain centre: larger initials'
 	}
 } as const;
 export type RosetteStyle = keyof typeof ROSETTE_STYLES;
+
+export const isRosetteStyle = (s: unknown): s is RosetteStyle =>
+	typeof s === 'string' && Object.hasOwn(ROSETTE_STYLES, s);

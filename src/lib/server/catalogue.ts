@@ -202,3 +202,29 @@ async function readPiece(slug: string) {
 }
 
 export type PieceDetail = NonNullable<Awaited<ReturnType<typeof readPiece>>>;
+
+/**
+ * Personalisable pieces whose rosette is larger than `diameterMm`, smallest first, with their
+ * woods: where the personaliser sends a buyer whose initials do not fit a small rosette.
+ * Cached like the list.
+ */
+export function largerRosettePieces(diameterMm: number) {
+	return cachedCatalogue(`larger:${diameterMm}`, async () => {
+		const rows = await db
+			.select({ id: pieces.id, slug: pieces.slug, title: pieces.title, pattern: pieces.pattern })
+			.from(pieces)
+			.where(and(eq(pieces.active, true), eq(pieces.personalisable, true)));
+		const larger = rows
+			.filter((p) => p.pattern.diameterMm > diameterMm)
+			.sort(
+				(a, b) => a.pattern.diameterMm - b.pattern.diameterMm || a.title.localeCompare(b.title)
+			);
+		const woodMap = await woodsFor(larger.map((p) => p.id));
+		return larger.map((p) => ({
+			slug: p.slug,
+			title: p.title,
+			diameterMm: p.pattern.diameterMm,
+			woods: (woodMap.get(p.id) ?? []).map((w) => w.slug)
+		}));
+	});
+}

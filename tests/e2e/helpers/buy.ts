@@ -14,7 +14,8 @@ export async function personaliseAndAdd(page: Page, initials: string) {
 	await section.getByRole('textbox', { name: 'Initials' }).fill(initials);
 	// The live preview redraws with the typed initials inside the rosette (named in its title).
 	await expect(preview.locator('svg > title').first()).toContainText(`initials ${initials}`);
-	await section.getByText('Black cherry').click();
+	// The wood's own choice (a refusal of small letters may also offer a wood by name).
+	await section.locator('label', { hasText: 'Black cherry' }).click();
 	await expect(preview.locator('svg > title').first()).toContainText('black cherry');
 	await page.getByRole('button', { name: 'Add to basket with these initials' }).click();
 	await expect(page.getByTestId('added-notice')).toBeVisible();

@@ -12,7 +12,7 @@ import {
 } from '../db/schema';
 import { priceCart } from './pricing';
 import { stockOnHand } from '../orders/holds';
-import { personalise, previewSvg } from '../personalise';
+import { personalise, previewSvg, snapshotRefusal } from '../personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
 
 export const CART_COOKIE = 'cart';
@@ -93,7 +93,8 @@ export async function addLine(cartId: string, input: AddLineInput) {
 			});
 		}
 		const result = personalise(piece, wood.woods, { initials: input.initials, style: input.style });
-		if (!result.ok) throw new CartError('Check the initials.', 400, result.fields);
+		if (!result.ok)
+			throw new CartError(result.message ?? 'Check the initials.', 400, result.fields);
 		personalisation = result.snapshot;
 	}
 
@@ -153,6 +154,14 @@ async function lineOf(cartId: string, lineId: number) {
 export async function setQuantity(cartId: string, lineId: number, quantity: number) {
 	const line = await lineOf(cartId, lineId);
 	if (quantity === 0) return removeLine(cartId, lineId);
+	if (line.personalisation) {
+		const [wood] = await db
+			.select({ slug: woods.slug })
+			.from(woods)
+			.where(eq(woods.id, line.woodId));
+		const tooSmall = snapshotRefusal(line.personalisation, wood?.slug ?? '');
+		if (tooSmall) throw new CartError(tooSmall, 400, { quantity: [tooSmall] });
+	}
 	if (!line.personalisation) {
 		const onHand = await stockOnHand(line.pieceId, line.woodId);
 		if (onHand < quantity) {

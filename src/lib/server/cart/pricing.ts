@@ -8,6 +8,7 @@ import { standardMinutes } from '$lib/layout-minutes';
 import { lineTax, lineTotal } from '$lib/money';
 import { shippingCharge, zoneFor, type RateRow } from '$lib/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
+import { snapshotRefusal } from '../personalise';
 
 /**
  * Prices a cart from the database alone: unit prices, per-line tax, shipping by destination.
@@ -65,6 +66,8 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 		if (!l.active) problems.push({ lineId: l.id, message: `${l.title} is no longer offered.` });
 		if (l.currency !== currency)
 			problems.push({ lineId: l.id, message: `${l.title} is priced in another currency.` });
+		const tooSmall = l.personalisation && snapshotRefusal(l.personalisation, l.woodSlug);
+		if (tooSmall) problems.push({ lineId: l.id, message: `${l.title}: ${tooSmall}` });
 		if (l.fromStock && available < l.quantity) {
 			problems.push({
 				lineId: l.id,

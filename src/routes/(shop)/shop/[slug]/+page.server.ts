@@ -2,28 +2,31 @@ import { error, fail } from '@sveltejs/kit';
 import { readyByFor } from '$lib/carving-queue';
 import { standardMinutes } from '$lib/layout-minutes';
 import { queueOutlook } from '$lib/server/orders/carving-queue';
-import { getPiece } from '$lib/server/catalogue';
+import { getPiece, largerRosettePieces } from '$lib/server/catalogue';
 import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
 import { addLineSchema } from '$lib/schemas/cart';
 import { hardnessWords, weightWords } from '$lib/woods';
 import type { Actions, PageServerLoad } from './$types';
 import { fieldErrors, formTexts } from '$lib/forms';
 import { drawPreview } from '$lib/pattern/personaliser-draw';
-import type { RosetteStyle } from '$lib/pattern/styles';
+import { isRosetteStyle } from '$lib/pattern/styles';
+import type { LargerPiece } from '$lib/pattern/ways-out';
 
 /** The personaliser's first picture, for the props the page gives it (its id prefix is "pz"). */
 function previewFor(
 	piece: NonNullable<Awaited<ReturnType<typeof getPiece>>>,
-	chosen: { initials?: string; wood?: string; style?: string } = {}
+	chosen: { initials?: string; wood?: string; style?: string } = {},
+	larger: LargerPiece[] = []
 ) {
 	const wood = piece.woods.some((w) => w.slug === chosen.wood) ? chosen.wood : piece.woods[0]?.slug;
-	const style: RosetteStyle =
-		chosen.style === 'split' || chosen.style === 'classic'
-			? chosen.style
-			: piece.pattern.split
-				? 'split'
-				: 'classic';
+	const style = isRosetteStyle(chosen.style)
+		? chosen.style
+		: piece.pattern.split
+			? 'split'
+			: 'classic';
 	return drawPreview({
+		woods: piece.woods.map((w) => w.slug),
+		larger,
 		pattern: piece.pattern,
 		widthMm: piece.widthMm,
 		lengthMm: piece.lengthMm,
@@ -60,6 +63,8 @@ export const load: PageServerLoad = async ({ params }) => {
 			: null;
 	return {
 		preview: previewFor(piece),
+		// Where a buyer whose initials are too small here can go: chosen here, checked in the page.
+		larger: piece.personalisable ? await largerRosettePieces(piece.pattern.diameterMm) : [],
 		queue,
 		queueReadyBy,
 		piece: {
@@ -93,6 +98,13 @@ export const actions: Actions = {
 			style: form.style ?? '',
 			quantity: form.quantity ?? '1'
 		};
+		// Without JavaScript the page comes back drawn for what was typed, not the blank default,
+		// with the ways out when the letters are too small.
+		const redrawn = async () => {
+			const piece = personalised ? await getPiece(params.slug) : null;
+			if (!piece) return undefined;
+			return previewFor(piece, values, await largerRosettePieces(piece.pattern.diameterMm));
+		};
 		// Not parseForm: a personalised line also needs initials, and the answer carries a preview.
 		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
 		const errors = parsed.success ? {} : fieldErrors(parsed.error);
@@ -100,10 +112,7 @@ export const actions: Actions = {
 			errors.initials = ['Type one to three letters for the rosette.'];
 		}
 		if (!parsed.success || Object.keys(errors).length) {
-			// Without JavaScript the page comes back drawn for what was typed, not the blank default.
-			const piece = personalised ? await getPiece(params.slug) : null;
-			const preview = piece ? previewFor(piece, values) : undefined;
-			return fail(400, { errors, values, preview });
+			return fail(400, { errors, values, preview: await redrawn() });
 		}
 
 		const input = { ...parsed.data, initials: personalised ? parsed.data.initials : undefined };
@@ -115,7 +124,8 @@ export const actions: Actions = {
 			if (err instanceof CartError) {
 				return fail(err.status === 404 ? 404 : 400, {
 					errors: err.fields ?? { form: [err.message] },
-					values
+					values,
+					preview: err.fields?.initials ? await redrawn() : undefined
 				});
 			}
 			throw err;
