@@ -148,3 +148,14 @@ test('a personalised line set to 0 can be put back with its initials, wood and s
 	await expect(removed).toHaveCount(0);
 	await expect(page.getByTestId('cart-count')).toHaveText('1');
 });
+
+test('the basket dates a personalised line as the piece page did, from the carving queue', async ({
+	page
+}) => {
+	await personaliseAndAdd(page, 'QT');
+	// The personaliser's date for this layout in this wood, from the queue as it stands.
+	const promised = (await page.getByTestId('personaliser-ready').innerText()).trim();
+	expect(promised).toMatch(/^[A-Z][a-z]{2}, [A-Z][a-z]{2} \d{1,2}$/);
+	await page.goto('/cart', { waitUntil: 'networkidle' });
+	await expect(page.getByTestId('line-ready-by')).toHaveText(promised);
+});

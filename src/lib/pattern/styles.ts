@@ -28,3 +28,9 @@ export type RosetteStyle = keyof typeof ROSETTE_STYLES;
 
 export const isRosetteStyle = (s: unknown): s is RosetteStyle =>
 	typeof s === 'string' && Object.hasOwn(ROSETTE_STYLES, s);
+
+/** The style as words for a basket line, an e-mail or a slip: "open centre rosette". */
+export function styleWords(style: string | null | undefined): string {
+	const s = isRosetteStyle(style) ? style : 'classic';
+	return `${ROSETTE_STYLES[s].label.toLowerCase()} rosette`;
+}

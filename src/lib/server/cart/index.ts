@@ -14,6 +14,7 @@ import { priceCart } from './pricing';
 import { stockOnHand } from '../orders/holds';
 import { personalise, previewSvg, snapshotRefusal } from '../personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
+import { basketReadyBy } from '../orders/carving-queue';
 
 export const CART_COOKIE = 'cart';
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
@@ -222,6 +223,7 @@ export async function cartSummary(cartId: string | null, country?: string) {
 		: [];
 	const photoOf = (pieceId: number) =>
 		firstPhotos.find((p) => p.pieceId === pieceId)?.storageKey ?? null;
+	const readyBy = await basketReadyBy(priced.lines.filter((l) => !l.fromStock));
 	return {
 		country: destination,
 		zone: priced.zone,
@@ -247,6 +249,7 @@ export async function cartSummary(cartId: string | null, country?: string) {
 			fromStock: l.fromStock,
 			available: l.available,
 			leadDays: l.leadDays,
+			readyBy: readyBy[l.id] ?? null,
 			personalisation: l.personalisation,
 			previewSvg: l.personalisation
 				? previewSvg(

@@ -12,6 +12,7 @@ import {
 	daysBetween,
 	DEFAULT_SCHEDULE,
 	readyAfterCarving,
+	readyByFor,
 	scheduleQueue,
 	type CarvingSchedule
 } from '$lib/carving-queue';
@@ -190,3 +191,28 @@ export async function queueOutlook(now = new Date()) {
 	};
 }
 export type QueueOutlook = Awaited<ReturnType<typeof queueOutlook>>;
+
+/**
+ * The day each personalised basket line would be ready to post if ordered now: its layout's
+ * minutes (times the quantity) joining the queue as it stands, as the piece page dates it.
+ */
+export async function basketReadyBy(
+	lines: { id: number; quantity: number; personalisation: { estimateMinutes?: number } | null }[],
+	now = new Date()
+): Promise<Record<number, string | null>> {
+	const carved = lines.filter((l) => l.personalisation);
+	if (!carved.length) return {};
+	const q = await queueOutlook(now);
+	return Object.fromEntries(
+		carved.map((l) => [
+			l.id,
+			readyByFor(
+				q.minutesAhead,
+				(l.personalisation!.estimateMinutes ?? 0) * l.quantity,
+				q.schedule,
+				q.today,
+				q.extraDaysOff
+			)
+		])
+	);
+}

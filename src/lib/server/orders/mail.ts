@@ -1,4 +1,5 @@
 import { formatMoney } from '$lib/money';
+import { styleWords } from '$lib/pattern/styles';
 import { countryName } from '$lib/shipping';
 import { formatDay } from '$lib/dates';
 import { sendMail } from '../mail';
@@ -22,7 +23,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 	const lineText = order.lines.map((l) => {
 		const p = l.personalisation;
 		const detail = p
-			? `   Initials ${p.initials} · ${l.woodName} · ${p.style} rosette, ${p.diameterMm} mm${p.chipCount ? ` · ${p.chipCount} chips` : ''}`
+			? `   Initials ${p.initials} · ${l.woodName} · ${styleWords(p.style)}, ${p.diameterMm} mm${p.chipCount ? ` · ${p.chipCount} chips` : ''}`
 			: `   ${l.woodName} · ready now`;
 		return `${l.quantity} × ${l.title} — ${money(l.lineTotalMinor)}\n${detail}`;
 	});
@@ -84,7 +85,7 @@ ${order.lines
 		const p = l.personalisation;
 		return `<tr><td style="padding:10px 12px;border-bottom:1px solid #d9c8ae"><strong>${l.quantity} × ${esc(l.title)}</strong><br>${
 			p
-				? `Initials <strong>${esc(p.initials)}</strong> · ${esc(l.woodName)} · ${esc(p.style)} rosette, ${p.diameterMm} mm`
+				? `Initials <strong>${esc(p.initials)}</strong> · ${esc(l.woodName)} · ${esc(styleWords(p.style))}, ${p.diameterMm} mm`
 				: `${esc(l.woodName)} · ready now`
 		}</td><td style="padding:10px 12px;border-bottom:1px solid #d9c8ae;text-align:right;white-space:nowrap">${esc(money(l.lineTotalMinor))}</td></tr>`;
 	})

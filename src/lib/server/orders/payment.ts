@@ -8,6 +8,7 @@
  * retried on deadlock. Mail and refunds go out only after that commit.
  */
 import { and, eq } from 'drizzle-orm';
+import { styleWords } from '$lib/pattern/styles';
 import { z } from 'zod';
 import { countryName } from '$lib/shipping';
 import type { Tx } from '../db';
@@ -36,7 +37,7 @@ type SessionOrder = { ref: string; holdExpiresAt: Date; priced: PricedCart };
 function describe(l: PricedCart['lines'][number]) {
 	const p = l.personalisation;
 	return p
-		? `${l.woodName}, initials ${p.initials}, ${p.style} rosette`
+		? `${l.woodName}, initials ${p.initials}, ${styleWords(p.style)}`
 		: `${l.woodName}, ready now`;
 }
 

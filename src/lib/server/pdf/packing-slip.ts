@@ -13,6 +13,7 @@ import {
 	type PDFPage
 } from 'pdf-lib';
 import QRCode from 'qrcode';
+import { styleWords } from '../../pattern/styles';
 import { formatMoney } from '../../money';
 import { ansi, wrap } from './template';
 import type { SlipOrder, SlipShop } from './slip-data';
@@ -130,7 +131,7 @@ async function drawOrder(
 		c.text(`${l.quantity} × ${l.title}, ${l.woodName}${price}`, fonts.bold, size);
 		if (l.initials)
 			c.text(
-				`Personalised: initials "${l.initials}"${l.style ? ` (${l.style})` : ''}`,
+				`Personalised: initials "${l.initials}"${l.style ? ` (${styleWords(l.style)})` : ''}`,
 				fonts.regular,
 				size,
 				{ x: 10 }
