@@ -1,14 +1,6 @@
 import { z } from 'zod';
+import { emailAddress } from './email';
 import { plain } from './plain-text';
-
-/** Stored lower-cased and trimmed, so "Juniper@Example.test " finds the same account. */
-const email = z
-	.string({ error: 'Enter your e-mail address.' })
-	.trim()
-	.toLowerCase()
-	.min(1, 'Enter your e-mail address.')
-	.max(255, 'That e-mail address is too long.')
-	.pipe(z.email('That does not look like an e-mail address.'));
 
 const newPassword = z
 	.string({ error: 'Choose a password.' })
@@ -24,7 +16,7 @@ export const accountFields = z.object({
 			.min(1, 'Tell us your name.')
 			.max(120, 'Keep the name under 120 characters.')
 	),
-	email,
+	email: emailAddress,
 	password: newPassword,
 	confirm: z.string({ error: 'Type the password again.' }).min(1, 'Type the password again.')
 });

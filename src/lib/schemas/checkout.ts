@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { emailAddress } from './email';
 import { COUNTRIES } from '$lib/shipping';
 import { plain } from './plain-text';
 
@@ -25,13 +26,7 @@ const POSTCODE: Record<string, [RegExp, string]> = {
 export const checkoutSchema = z
 	.object({
 		name: text('your name', 120),
-		email: z
-			.string({ error: 'Enter your e-mail address.' })
-			.trim()
-			.toLowerCase()
-			.min(1, 'Enter your e-mail address.')
-			.max(255)
-			.pipe(z.email('That does not look like an e-mail address.')),
+		email: emailAddress,
 		line1: text('the street address', 120),
 		line2: plain(z.string().trim().max(120, 'Keep this line under 120 characters.')).optional(),
 		city: text('the town or city', 80),

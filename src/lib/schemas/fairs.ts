@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { emailAddress } from './email';
 import { parseMajor } from '$lib/money';
 
 const text = (label: string, max: number) =>
@@ -152,11 +153,7 @@ export const boothOrderSchema = z.object({
 		.max(3, 'At most three initials.')
 		.regex(/^[A-Za-z&]+$/, 'Initials are letters (and &).'),
 	name: text('the buyer’s name', 120),
-	email: z
-		.string()
-		.trim()
-		.toLowerCase()
-		.pipe(z.email('That does not look like an e-mail address.')),
+	email: emailAddress,
 	line1: text('the street address', 120),
 	city: text('the town', 80),
 	region: z.string().trim().max(80).optional(),

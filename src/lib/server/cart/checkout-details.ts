@@ -10,7 +10,7 @@ import { transact } from '../db/retry';
 import { lockCart } from './lock';
 import { startOncePerInterval } from '../jobs/once-per-interval';
 
-/** As long as the basket cookie lasts (set once, when the basket is made). */
+/** How long the basket cookie lasts (set once, when the basket is made): the details no longer. */
 export const BASKET_LIFETIME_MS = 30 * 24 * 60 * 60 * 1000;
 
 export type CheckoutDetails = {

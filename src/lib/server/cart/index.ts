@@ -15,6 +15,7 @@ import { stockOnHand } from '../orders/holds';
 import { personalise, previewSvg, snapshotRefusal } from '../personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
 import { basketReadyBy } from '../orders/carving-queue';
+import { BASKET_LIFETIME_MS } from './checkout-details';
 
 export const CART_COOKIE = 'cart';
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
@@ -50,7 +51,7 @@ export async function ensureCart(cookies: Cookies, userId: string | null, secure
 		httpOnly: true,
 		sameSite: 'lax',
 		secure,
-		maxAge: 60 * 60 * 24 * 30
+		maxAge: BASKET_LIFETIME_MS / 1000
 	});
 	return id;
 }
