@@ -33,10 +33,17 @@ function arraysFrom(value: FormValue): FormValue {
 		.map((i) => out[String(i)]);
 }
 
+/**
+ * Keys that would reach an object's prototype instead of a property of its own. A body such as
+ * `__proto__[x]=y` must not set `Object.prototype.x` in the stand-in's process.
+ */
+const UNSAFE_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
+
 export function parseForm(text: string): Form {
 	const root: Record<string, FormValue> = {};
 	for (const [rawKey, value] of new URLSearchParams(text)) {
 		const path = pathOf(rawKey);
+		if (path.some((seg) => UNSAFE_KEYS.has(seg))) continue;
 		let node: Record<string, FormValue> = root;
 		for (let i = 0; i < path.length; i++) {
 			let seg = path[i];

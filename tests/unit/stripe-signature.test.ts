@@ -1,6 +1,7 @@
+import crypto from 'node:crypto';
 import Stripe from 'stripe';
 import { describe, expect, it } from 'vitest';
-import { signatureHeader, signatureV1 } from '../../mocks/stripe/signature';
+import { signatureHeader } from '../../mocks/stripe/signature';
 
 // The official `stripe` SDK's verifier is the reference for the signature scheme: what our
 // stand-in signs must pass `stripe.webhooks.constructEvent`, and a tampered payload must not.
@@ -8,9 +9,17 @@ const sdk = new Stripe('sk_test_unused');
 
 describe('stand-in webhook signatures', () => {
 	it('reproduces the published check vector (TRADE.md, computed with the SDK verifier)', () => {
-		// Source: Stripe docs "Check the webhook signatures" scheme; vector from TRADE.md.
-		expect(signatureV1('{"id":"evt_test","object":"event"}', 'whsec_test_secret', 1700000000)).toBe(
-			'8042376f6ca064adbe037642a718227dfd59047137eb49497a54c49eb0cfb724'
+		// Source: Stripe docs "Check the webhook signatures" scheme (v1 = HMAC-SHA256 of
+		// `${t}.${payload}`, hex); vector from TRADE.md.
+		const vector = '8042376f6ca064adbe037642a718227dfd59047137eb49497a54c49eb0cfb724';
+		const payload = '{"id":"evt_test","object":"event"}';
+		const hmac = crypto
+			.createHmac('sha256', 'whsec_test_secret')
+			.update(`1700000000.${payload}`, 'utf8')
+			.digest('hex');
+		expect(hmac).toBe(vector);
+		expect(signatureHeader(payload, 'whsec_test_secret', 1700000000)).toBe(
+			`t=1700000000,v1=${vector}`
 		);
 	});
 

@@ -45,6 +45,13 @@ describe('stand-in card checks', () => {
 });
 
 describe('stand-in form parser', () => {
+	it('ignores prototype keys, so a body cannot pollute Object.prototype (OWASP Prototype Pollution Prevention Cheat Sheet)', () => {
+		const form = parseForm('__proto__[polluted]=yes&a[constructor][prototype][b]=1&ok=1');
+		expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+		expect((Object.prototype as Record<string, unknown>).b).toBeUndefined();
+		expect(form).toEqual({ ok: '1' });
+	});
+
 	it('reads the bracket keys the SDK writes into nested objects and arrays', () => {
 		const body =
 			'mode=payment&line_items[0][quantity]=2&line_items[0][price_data][unit_amount]=4500' +
