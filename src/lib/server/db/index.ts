@@ -1,15 +1,10 @@
 import { drizzle } from 'drizzle-orm/mysql2';
-import mysql from 'mysql2/promise';
 import * as schema from './schema';
 import { config } from '../config';
+import { openPool } from './pool';
 
 /** One pooled client per process; closed on shutdown so `node build` exits on SIGTERM. */
-const pool = mysql.createPool({
-	uri: config.db.url,
-	connectionLimit: 10,
-	timezone: 'Z',
-	dateStrings: false
-});
+const pool = openPool({ url: config.db.url, wsrepSyncWait: config.db.wsrepSyncWait });
 
 export const db = drizzle(pool, { schema, mode: 'default' });
 export type Db = typeof db;

@@ -470,7 +470,8 @@ export const outbox = mysqlTable(
 
 /**
  * One row per run of a job that must happen once per interval across all app processes (the hold
- * sweeper): the runner checks here, under a database lock, when the job last ran anywhere.
+ * sweeper). A process claims an interval by inserting its row: the unique (name, turn) key lets
+ * exactly one insert win, on one server or on every node of a cluster.
  */
 export const jobRuns = mysqlTable(
 	'job_runs',
@@ -481,9 +482,14 @@ export const jobRuns = mysqlTable(
 		/** Which process ran it ("host:pid"), for the record. */
 		ranBy: varchar('ran_by', { length: 120 }).notNull(),
 		/** What the run did, e.g. orders released. */
-		count: int('count').notNull().default(0)
+		count: int('count').notNull().default(0),
+		/** Which interval this run claimed: the database clock's milliseconds ÷ the interval. */
+		turn: bigint('turn', { mode: 'number' })
 	},
-	(t) => [index('job_runs_name_ran_at').on(t.name, t.ranAt)]
+	(t) => [
+		index('job_runs_name_ran_at').on(t.name, t.ranAt),
+		uniqueIndex('job_runs_name_turn').on(t.name, t.turn)
+	]
 );
 
 export const refundStatuses = ['pending', 'succeeded', 'failed', 'canceled'] as const;
