@@ -1,19 +1,12 @@
 import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
+import { isDuplicateKey } from '../db/retry';
 import { users, type Role } from '../db/schema';
 import { burnVerifyTime, hashPassword, verifyPassword } from './password';
 
 export type AccountUser = { id: string; email: string; name: string; role: Role };
 
 const publicColumns = { id: users.id, email: users.email, name: users.name, role: users.role };
-
-/** MySQL/MariaDB "duplicate entry" on a unique index (ER_DUP_ENTRY). */
-export function isDuplicateKey(err: unknown): boolean {
-	for (let e = err; e && typeof e === 'object'; e = (e as { cause?: unknown }).cause) {
-		if ((e as { errno?: number }).errno === 1062) return true;
-	}
-	return false;
-}
 
 export async function findUserByEmail(email: string): Promise<AccountUser | null> {
 	const [row] = await db.select(publicColumns).from(users).where(eq(users.email, email)).limit(1);

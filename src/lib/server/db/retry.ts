@@ -8,19 +8,14 @@ export function isRetryable(err: unknown): boolean {
 	return RETRYABLE.has(e?.errno ?? -1) || RETRYABLE.has(e?.cause?.errno ?? -1);
 }
 
-/** Duplicate key (1062): another request stored the same row first. */
+/** Duplicate key (1062, ER_DUP_ENTRY): another request stored the same row first. Drizzle and
+ * mysql2 wrap errors, so the whole `cause` chain is read. */
 export function isDuplicateKey(err: unknown): boolean {
-	const e = err as {
-		errno?: number;
-		code?: string;
-		cause?: { errno?: number; code?: string };
-	} | null;
-	return (
-		e?.errno === 1062 ||
-		e?.cause?.errno === 1062 ||
-		e?.code === 'ER_DUP_ENTRY' ||
-		e?.cause?.code === 'ER_DUP_ENTRY'
-	);
+	for (let e = err; e && typeof e === 'object'; e = (e as { cause?: unknown }).cause) {
+		const { errno, code } = e as { errno?: number; code?: string };
+		if (errno === 1062 || code === 'ER_DUP_ENTRY') return true;
+	}
+	return false;
 }
 
 /**
