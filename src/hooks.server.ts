@@ -19,6 +19,10 @@ import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/bo
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
+import { usePlainMessages } from '$lib/schemas/plain-messages';
+
+// Before any request is parsed: plain sentences for checks written without their own message.
+usePlainMessages();
 
 export const init: ServerInit = () => {
 	// Before anything else: a production start with the README's secrets stops here.

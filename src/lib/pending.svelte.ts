@@ -9,9 +9,15 @@ import type { ActionResult, SubmitFunction } from '@sveltejs/kit';
  */
 export async function revealAnswer(formElement: HTMLElement): Promise<void> {
 	await tick();
+	const said = (root: ParentNode, selector: string) =>
+		Array.from(root.querySelectorAll<HTMLElement>(selector)).find(
+			(el) => el.getAttribute('aria-invalid') === 'true' || el.textContent?.trim()
+		);
 	const target =
-		formElement.querySelector<HTMLElement>('[aria-invalid="true"], [role="alert"]') ??
-		formElement.querySelector<HTMLElement>('[data-answer]:not(:empty)');
+		said(formElement, '[aria-invalid="true"], [role="alert"]') ??
+		said(formElement, '[role="status"]') ??
+		// A page that says it above the form (a banner) rather than inside it.
+		said(document, 'main [role="alert"]');
 	if (!target) return;
 	const box = target.getBoundingClientRect();
 	const inView = box.top >= 0 && box.bottom <= window.innerHeight;

@@ -52,8 +52,13 @@ export function checkRegion(
 	return { ok: true, region: found ? regionForAddress(country, found) : text };
 }
 
+/** Letters that Unicode does not split into a base letter and a mark (Ł is not L + stroke). */
+const LONE: Record<string, string> = { ł: 'l', ø: 'o', đ: 'd', ß: 'ss', æ: 'ae', œ: 'oe' };
+
 const fold = (s: string) =>
 	s
+		.toLowerCase()
+		.replace(/[łøđßæœ]/g, (c) => LONE[c])
 		.normalize('NFD')
 		.replace(/\p{M}/gu, '')
 		.replace(/[^\p{L}\p{N}]+/gu, ' ')
