@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test, type Locator, type Page } from '@playwright/test';
 import net from 'node:net';
 import { randomBytes } from 'node:crypto';
 import sharp from 'sharp';
@@ -576,10 +576,11 @@ test.describe('photos as phones take them', () => {
 		await expect(refused.getByRole('alert')).toContainText(/notes\.jpg: /);
 		const redBar = refused.getByRole('progressbar');
 		await expect(redBar).toHaveAttribute('data-state', 'refused');
-		const colour = await redBar.evaluate(
-			(el) => getComputedStyle(el, '::-webkit-progress-value').backgroundColor
-		);
-		expect(colour).toBe('rgb(163, 39, 27)'); // --c-danger #a3271b
+		// The bar is painted in its accent colour: red (--c-danger #a3271b) for a refusal, the
+		// green of "go" (--c-moss #4f6b3a) for a stored photo.
+		const accent = (bar: Locator) => bar.evaluate((el) => getComputedStyle(el).accentColor);
+		expect(await accent(redBar)).toBe('rgb(163, 39, 27)');
+		expect(await accent(bar)).toBe('rgb(79, 107, 58)');
 		await cdp.send('Network.emulateNetworkConditions', {
 			offline: false,
 			latency: 0,
