@@ -10,6 +10,7 @@ import { z } from 'zod';
 import {
 	API_BODY_LIMIT,
 	DRAIN_LIMIT,
+	TOO_LARGE,
 	bodyLimitFor,
 	readJsonObject,
 	settleUnreadBody
@@ -80,7 +81,8 @@ describe('an answer given before the body was read', () => {
 	});
 	it('a JSON body over its cap is refused with 413 after reading it through', async () => {
 		const r = await readJsonObject(post(200 * 1024));
-		expect(r).toEqual({ ok: false, status: 413, message: expect.stringMatching(/64 KB/) });
+		expect(r.ok).toBe(false);
+		if (!r.ok) expect([r.status, r.message]).toEqual([413, TOO_LARGE]);
 	});
 });
 
