@@ -541,8 +541,9 @@ test.describe('photos as phones take them', () => {
 			.png()
 			.toBuffer();
 
+		// Not the welcome plate, whose photos tests/e2e/photos.spec.ts counts.
 		await signInAs(page, 'owner', '/workshop/pieces');
-		await page.getByRole('link', { name: 'Welcome plate' }).click();
+		await page.getByRole('link', { name: 'Keepsake box' }).click();
 		// A phone's upload speed (about 8 Mbit/s), so the bar moves as a person would see it.
 		const cdp = await page.context().newCDPSession(page);
 		await cdp.send('Network.enable');
@@ -592,7 +593,7 @@ test.describe('photos as phones take them', () => {
 		});
 
 		// The shop serves it upright (portrait, from orientation 6) and with no EXIF, GPS included.
-		await page.goto('/shop/welcome-plate');
+		await page.goto('/shop/keepsake-box');
 		await page.getByRole('button', { name: /Show photo \d: .*IMG_2041/ }).click();
 		const main = page.getByRole('img', { name: /IMG_2041/ });
 		const srcset = (await main.getAttribute('srcset'))!;
