@@ -15,10 +15,14 @@ import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availa
 import { httpCacheHandle } from '$lib/server/handles/http-cache';
 import { pageCacheHandle } from '$lib/server/handles/page-cache';
 import { photoCacheHandle } from '$lib/server/handles/photo-cache';
-import { declaredTooLarge } from '$lib/server/body-limit';
+import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/body-limit';
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
+import { usePlainMessages } from '$lib/schemas/plain-messages';
+
+// Before any request is parsed: plain sentences for checks written without their own message.
+usePlainMessages();
 
 export const init: ServerInit = () => {
 	// Before anything else: a production start with the README's secrets stops here.
@@ -49,7 +53,10 @@ const sessionHandle: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-/** Security headers on every response; `Retry-After` when a throttle said no (RFC 6585 §4). */
+/**
+ * Security headers on every response; `Retry-After` when a throttle said no (RFC 6585 §4); a body
+ * left unread by an early answer is drained or the connection closed (body-limit.ts).
+ */
 const headers: Handle = async ({ event, resolve }) => {
 	let resolved: Response;
 	try {
@@ -65,13 +72,15 @@ const headers: Handle = async ({ event, resolve }) => {
 	const response = withSecurityHeaders(resolved, event.url.protocol === 'https:');
 	if (event.locals.retryAfterS)
 		response.headers.set('retry-after', String(event.locals.retryAfterS));
+	await settleUnreadBody(event.request, response);
 	return response;
 };
 
 /** Every error under /api/ answers JSON `{ error, fields? }`, whatever threw it. */
 const apiErrors: Handle = async ({ event, resolve }) => {
 	if (event.url.pathname.startsWith('/api/')) {
-		const tooLarge = declaredTooLarge(event.request);
+		const limit = bodyLimitFor(event.url.pathname, event.request.headers.get('content-type'));
+		const tooLarge = declaredTooLarge(event.request, limit);
 		if (tooLarge) return tooLarge;
 	}
 	const response = await resolve(event);

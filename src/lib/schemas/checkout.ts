@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { emailAddress } from './email';
 import { COUNTRIES } from '$lib/shipping';
 import { plain } from './plain-text';
+import { checkRegion } from '$lib/regions';
 
 const text = (label: string, max: number) =>
 	plain(
@@ -55,13 +56,13 @@ export const checkoutSchema = z
 				message: 'Use letters, digits and spaces only.'
 			});
 		}
-		if (v.country === 'US' && !/^[A-Za-z]{2}$/.test(v.region ?? '')) {
-			ctx.addIssue({
-				code: 'custom',
-				path: ['region'],
-				message: 'Enter the two-letter state, like CO.'
-			});
-		}
+		// A region by name or code ("Vermont" or "VT"): checked here, kept as the address writes it.
+		const region = checkRegion(v.country, v.region);
+		if (!region.ok) ctx.addIssue({ code: 'custom', path: ['region'], message: region.message });
+	})
+	.transform((v) => {
+		const region = checkRegion(v.country, v.region);
+		return { ...v, region: region.ok ? region.region : v.region };
 	});
 
 export type CheckoutInput = z.infer<typeof checkoutSchema>;

@@ -1,13 +1,10 @@
 import { BOOTH_MAX_BYTES } from '$lib/schemas/fairs';
 import { FairError } from './errors';
+import { BOOTH_TOO_LARGE } from '../body-limit';
 
 /** Reads a JSON body of at most BOOTH_MAX_BYTES, with a plain reason when it is too big or broken. */
 export async function readBoothJson(request: Request): Promise<unknown> {
-	const tooBig = () =>
-		new FairError(
-			`A batch may be at most ${BOOTH_MAX_BYTES / 1_000_000} MB; send the sales in smaller batches (nothing was stored).`,
-			413
-		);
+	const tooBig = () => new FairError(BOOTH_TOO_LARGE, 413);
 	const declared = Number(request.headers.get('content-length') ?? '0');
 	if (declared > BOOTH_MAX_BYTES) throw tooBig();
 	const text = await request.text();

@@ -4,6 +4,8 @@ import { apiError, apiInvalid } from '$lib/server/api-errors';
 import { addPhoto, PhotoNotFound } from '$lib/server/catalogue/photos';
 import { PhotoRejected } from '$lib/server/storage';
 import { uploadFields } from '$lib/schemas/photo';
+import { MAX_PHOTO_BYTES } from '$lib/photo-limits';
+import { UPLOAD_TOO_LARGE } from '$lib/server/body-limit';
 import type { RequestHandler } from './$types';
 
 /**
@@ -16,7 +18,9 @@ export const POST: RequestHandler = async (event) => {
 	let form: FormData;
 	try {
 		form = await event.request.formData();
-	} catch {
+	} catch (err) {
+		// A body sent without a length that passed adapter-node's BODY_SIZE_LIMIT while read.
+		if ((err as { status?: number }).status === 413) return apiError(413, UPLOAD_TOO_LARGE);
 		return apiError(400, 'Send the photo as a multipart form with a file field.');
 	}
 	const fields = uploadFields.safeParse({ pieceId: form.get('pieceId'), alt: form.get('alt') });
@@ -24,6 +28,7 @@ export const POST: RequestHandler = async (event) => {
 	const file = form.get('file');
 	if (!(file instanceof File))
 		return apiError(400, 'Choose a photo to send.', { file: ['Missing'] });
+	if (file.size > MAX_PHOTO_BYTES) return apiError(413, `${file.name}: ${UPLOAD_TOO_LARGE}`);
 	try {
 		const photo = await addPhoto(
 			fields.data.pieceId,
