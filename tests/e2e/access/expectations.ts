@@ -141,6 +141,13 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/returned'
 	},
+	// Cancel and a step back are the owner's; an empty form (no reason) changes nothing.
+	'POST /workshop/orders/[ref]?/cancel': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/cancel'
+	},
+	'POST /workshop/orders/[ref]?/back': { ...ownerAction, url: '/workshop/orders/CS-1001?/back' },
+	'GET /workshop/orders/orders.csv': staff,
 	'GET /workshop/queue': staff,
 	'POST /workshop/queue?/hours': ownerAction,
 	'POST /workshop/queue?/alerts': staffAction,
