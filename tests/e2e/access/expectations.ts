@@ -77,6 +77,16 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		owner: 'notfound',
 		url: '/orders/CS-1001'
 	},
+	// Writing to the shop about an order: the same key or account as the page (an empty form: 400).
+	'POST /orders/[ref]?/message': {
+		anonymous: 'notfound',
+		customer: 'allowed',
+		helper: 'notfound',
+		owner: 'notfound',
+		url: '/orders/CS-1001?/message'
+	},
+	'GET /robots.txt': every('ok'),
+	'GET /sitemap.xml': every('ok'),
 	'GET /account': { anonymous: 'signin', customer: 'ok', helper: 'ok', owner: 'ok' },
 
 	// Signing in and out.
