@@ -69,3 +69,8 @@ export function scriptJson(value: unknown): string {
 		.replace(/\u2028/g, '\\u2028')
 		.replace(/\u2029/g, '\\u2029');
 }
+
+/** The data block for a page's head: not run as a script (its type is not JavaScript). */
+export function jsonLdTag(value: unknown): string {
+	return `<script type="application/ld+json">${scriptJson(value)}</script>`;
+}

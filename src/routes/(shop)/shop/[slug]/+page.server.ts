@@ -15,7 +15,7 @@ import { config } from '$lib/server/config';
 import { getShopInfo } from '$lib/server/shop-settings';
 import { photoUrl } from '$lib/photos';
 import { metaDescription } from '$lib/seo/describe';
-import { productJsonLd, scriptJson } from '$lib/seo/product-ld';
+import { jsonLdTag, productJsonLd } from '$lib/seo/product-ld';
 
 /** The preview card (Open Graph) and the structured data for search engines. */
 async function sharing(piece: NonNullable<Awaited<ReturnType<typeof getPiece>>>) {
@@ -36,7 +36,7 @@ async function sharing(piece: NonNullable<Awaited<ReturnType<typeof getPiece>>>)
 					height: Math.round((lead.height * Math.min(1600, lead.width)) / lead.width)
 				}
 			: null,
-		jsonLd: scriptJson(
+		jsonLdTag: jsonLdTag(
 			productJsonLd({
 				slug: piece.slug,
 				title: piece.title,
