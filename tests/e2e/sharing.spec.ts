@@ -22,7 +22,7 @@ test('a piece page carries its preview card and its product data', async ({ page
 
 	const ld = JSON.parse(
 		(await page.locator('script[type="application/ld+json"]').textContent())!
-	) as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+	) as { '@type': string; name: string; offers: Record<string, string> };
 	expect(ld['@type']).toBe('Product');
 	expect(ld.offers['@type']).toBe('Offer');
 	expect(ld.offers.price).toMatch(/^\d+(\.\d+)?$/);
