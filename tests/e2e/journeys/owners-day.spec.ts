@@ -76,12 +76,19 @@ test('from the new-order alert to the shipping e-mail, with a step back and a no
 		await expect(desk.getByTestId('order-history')).toContainText(move);
 		expect(await historyCount(desk, move)).toBe(1);
 	}
-	// A stale tab sending the old move again changes nothing and says why.
+	// A stale tab sending the old move again (as the enhanced form does) changes nothing and
+	// says why.
 	const again = await desk.request.post(`/workshop/orders/${ref}?/move`, {
 		form: { to: 'finishing', expect: 'carving' },
-		headers: { origin: new URL(desk.url()).origin }
+		headers: {
+			origin: new URL(desk.url()).origin,
+			accept: 'application/json',
+			'x-sveltekit-action': 'true'
+		}
 	});
-	expect(again.status()).toBe(409);
+	const answer = (await again.json()) as { type: string; status: number; data: string };
+	expect([answer.type, answer.status]).toEqual(['failure', 409]);
+	expect(answer.data).toContain('already');
 	await desk.reload();
 	await noErrorPage(desk);
 	expect(await historyCount(desk, 'Carving → Finishing')).toBe(1);
