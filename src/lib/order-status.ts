@@ -57,6 +57,42 @@ export function canMove(from: OrderStatus, to: OrderStatus, opts: { needsCarving
 	return nextStatuses(from, opts).includes(to);
 }
 
+/**
+ * One step back, for a move made too soon; only the owner takes it, with a reason. Kept apart
+ * from `transitions` so a bench move or a bulk move can never walk an order backwards. A shipped
+ * order does not step back: the buyer already has the tracking e-mail (refund it instead).
+ */
+export const backSteps: Readonly<Partial<Record<OrderStatus, readonly Edge[]>>> = {
+	carving: [{ to: 'paid' }],
+	finishing: [{ to: 'carving' }],
+	packed: [
+		{ to: 'finishing', carvingOnly: true },
+		{ to: 'paid', readyMadeOnly: true }
+	]
+};
+
+/** The status one step back from `from`, or null when there is none. */
+export function stepBackTo(from: OrderStatus, opts: { needsCarving: boolean }): OrderStatus | null {
+	const edge = (backSteps[from] ?? []).find((e) =>
+		opts.needsCarving ? !e.readyMadeOnly : !e.carvingOnly
+	);
+	return edge?.to ?? null;
+}
+
+/** Paid and not yet shipped: cancelling means refunding what was paid. */
+export const CANCEL_WITH_REFUND: readonly OrderStatus[] = [
+	'paid',
+	'carving',
+	'finishing',
+	'packed',
+	'piece_gone'
+];
+
+/** Whether the owner may cancel an order in this status (unpaid checkouts, or paid and unshipped). */
+export function canCancel(s: OrderStatus): boolean {
+	return s === 'pending' || CANCEL_WITH_REFUND.includes(s);
+}
+
 /** Plain words for each status, for buyers and the workshop alike. */
 export const statusLabels: Readonly<Record<OrderStatus, string>> = {
 	pending: 'Waiting for payment',

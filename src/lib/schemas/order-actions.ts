@@ -4,7 +4,9 @@ import { orderStatuses } from '$lib/order-status';
 /** A status move from the order page: where to, and (optionally) why. */
 export const moveSchema = z.object({
 	to: z.enum(orderStatuses, { error: 'Choose a status.' }),
-	why: z.string().trim().max(300, 'Keep the reason under 300 characters.').optional().default('')
+	why: z.string().trim().max(300, 'Keep the reason under 300 characters.').optional().default(''),
+	/** The status the page showed: a second click of the same button finds it moved already. */
+	expect: z.enum(orderStatuses).optional()
 });
 
 /** An internal note on an order. */
@@ -14,4 +16,14 @@ export const noteSchema = z.object({
 		.trim()
 		.min(1, 'Write the note first.')
 		.max(2000, 'Keep a note under 2,000 characters.')
+});
+
+/** Cancelling an order or taking it a step back: a reason is required, kept in the history. */
+export const steerSchema = z.object({
+	reason: z
+		.string({ error: 'Say why, in a few words.' })
+		.trim()
+		.min(3, 'Say why, in a few words.')
+		.max(300, 'Keep the reason under 300 characters.'),
+	expect: z.enum(orderStatuses, { error: 'Reload the page: the order’s status is missing.' })
 });

@@ -14,6 +14,28 @@ export const orderSortKeys = [
 export type OrderSortKey = (typeof orderSortKeys)[number];
 export const pageSizes = [10, 25, 50, 100] as const;
 
+/**
+ * Which orders the table starts from. `action`: the ones the workshop has to do something about
+ * (paid through packed, and paid orders whose piece sold meanwhile). `closed`: shipped, refunded,
+ * or cancelled after a payment. `abandoned`: checkouts never paid (waiting, or cancelled unpaid),
+ * shown only when asked for. `all`: action and closed, still without abandoned checkouts.
+ */
+export const orderViews = ['action', 'closed', 'abandoned', 'all'] as const;
+export type OrderView = (typeof orderViews)[number];
+export const orderViewLabels: Record<OrderView, string> = {
+	action: 'Needs doing',
+	closed: 'Shipped and closed',
+	abandoned: 'Unpaid checkouts',
+	all: 'All paid orders'
+};
+/** The statuses each view can hold, for the status boxes the page offers under it. */
+export const viewStatuses: Record<OrderView, readonly OrderStatus[]> = {
+	action: ['paid', 'carving', 'finishing', 'packed', 'piece_gone'],
+	closed: ['shipped', 'refunded', 'cancelled'],
+	abandoned: ['pending', 'cancelled'],
+	all: ['paid', 'carving', 'finishing', 'packed', 'piece_gone', 'shipped', 'refunded', 'cancelled']
+};
+
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-07.');
 
 /**
@@ -22,6 +44,7 @@ const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03
  */
 export const orderTableQuery = z
 	.object({
+		view: z.enum(orderViews, { error: 'Unknown view.' }).default('action'),
 		sort: z.enum(orderSortKeys).default('createdAt'),
 		dir: z.enum(['asc', 'desc']).default('desc'),
 		status: z
@@ -77,6 +100,7 @@ export function tableStateToParams(s: OrderTableQuery): URLSearchParams {
 		const d = DEFAULTS[k];
 		if (v !== (Array.isArray(d) ? d.join(',') : String(d))) out.set(k, v);
 	};
+	put('view', s.view);
 	put('sort', s.sort);
 	put('dir', s.dir);
 	put('status', s.status.join(','));
@@ -100,6 +124,7 @@ export type WorkshopOrderRow = {
 	totalMinor: number;
 	refundedMinor: number;
 	currency: string;
+	city: string;
 	personalised: number;
 	toCarve: number;
 	pieces: number;

@@ -2,7 +2,8 @@
  * The limits themselves, one place for all of them. Window: `config.throttleWindowS` (15 min).
  * Sign-in counts every attempt per account and per client address; a successful sign-in clears
  * the account's count. Reset and sign-up count per e-mail and per address; checkout counts the
- * pieces held per basket and per address. The pattern API has its own per-minute limit.
+ * pieces held per basket and per address; a buyer's message about an order counts per order
+ * and per address. The pattern API has its own per-minute limit.
  */
 import { config } from './config';
 import { Limiter } from './rate-limit';
@@ -18,6 +19,9 @@ export const throttles = {
 	signUpAddress: new Limiter({ prefix: 'signup-ip', points: 30, durationS: w() }),
 	checkoutBasket: new Limiter({ prefix: 'hold-basket', points: 10, durationS: w() }),
 	checkoutAddress: new Limiter({ prefix: 'hold-ip', points: 40, durationS: w() }),
+	/** A buyer writing to the shop about an order: per order and per client address. */
+	orderMessage: new Limiter({ prefix: 'order-msg', points: 5, durationS: w() }),
+	orderMessageAddress: new Limiter({ prefix: 'order-msg-ip', points: 20, durationS: w() }),
 	/** Generous for a person or a page; a flood is refused from memory after the first second. */
 	pattern: new Limiter({ prefix: 'pattern-ip', points: 600, durationS: 60 })
 };

@@ -4,5 +4,5 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'owner', 'helper');
-	return { name: user.name, summary: await todaySummary() };
+	return { name: user.name, role: user.role, summary: await todaySummary() };
 };

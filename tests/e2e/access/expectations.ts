@@ -77,6 +77,16 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		owner: 'notfound',
 		url: '/orders/CS-1001'
 	},
+	// Writing to the shop about an order: the same key or account as the page (an empty form: 400).
+	'POST /orders/[ref]?/message': {
+		anonymous: 'notfound',
+		customer: 'allowed',
+		helper: 'notfound',
+		owner: 'notfound',
+		url: '/orders/CS-1001?/message'
+	},
+	'GET /robots.txt': every('ok'),
+	'GET /sitemap.xml': every('ok'),
 	'GET /account': { anonymous: 'signin', customer: 'ok', helper: 'ok', owner: 'ok' },
 
 	// Signing in and out.
@@ -141,6 +151,13 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...ownerAction,
 		url: '/workshop/orders/CS-1001?/returned'
 	},
+	// Cancel and a step back are the owner's; an empty form (no reason) changes nothing.
+	'POST /workshop/orders/[ref]?/cancel': {
+		...ownerAction,
+		url: '/workshop/orders/CS-1001?/cancel'
+	},
+	'POST /workshop/orders/[ref]?/back': { ...ownerAction, url: '/workshop/orders/CS-1001?/back' },
+	'GET /workshop/orders/orders.csv': staff,
 	'GET /workshop/queue': staff,
 	'POST /workshop/queue?/hours': ownerAction,
 	'POST /workshop/queue?/alerts': staffAction,

@@ -119,7 +119,12 @@ export async function heldLines(tx: Tx, orderId: number): Promise<Want[]> {
  * Cancels a still-pending order and puts its held pieces back, inside the caller's transaction.
  * False (and nothing changed) when the order is not pending.
  */
-export async function releaseInTx(tx: Tx, orderId: number, why: string): Promise<boolean> {
+export async function releaseInTx(
+	tx: Tx,
+	orderId: number,
+	why: string,
+	userId: string | null = null
+): Promise<boolean> {
 	const [order] = await tx
 		.select({ status: orders.status, ref: orders.ref })
 		.from(orders)
@@ -127,7 +132,7 @@ export async function releaseInTx(tx: Tx, orderId: number, why: string): Promise
 		.for('update');
 	if (!order || order.status !== 'pending') return false;
 	await putBackStock(tx, await heldLines(tx, orderId), `Hold of ${order.ref} released: ${why}`);
-	await moveOrder(orderId, 'cancelled', { userId: null, why }, tx, { holdExpiresAt: null });
+	await moveOrder(orderId, 'cancelled', { userId, why }, tx, { holdExpiresAt: null });
 	return true;
 }
 

@@ -2,7 +2,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { inTx } from '../db/retry';
 import { orderHistory, orderLines, orders } from '../db/schema';
-import { canMove, statusLabel, type OrderStatus } from '$lib/order-status';
+import { canMove, statusLabel, stepBackTo, type OrderStatus } from '$lib/order-status';
 import { orderBalance } from '$lib/order-balance';
 import { formatMoney } from '$lib/money';
 
@@ -14,7 +14,12 @@ export class StatusMoveError extends Error {
 	}
 }
 
-export type MovedBy = { userId: string | null; why: string };
+/**
+ * Who moves the order and why. `back` asks for one step back (see `backSteps`), which needs a
+ * reason; `expect` is the status the person saw, so a second click of the same button (or a
+ * stale tab) is refused instead of moving the order a second time.
+ */
+export type MovedBy = { userId: string | null; why: string; back?: boolean; expect?: OrderStatus };
 
 /** True when the order has a line made to order (not taken finished from the shelf). */
 export async function needsCarving(tx: Tx, orderId: number): Promise<boolean> {
@@ -56,7 +61,15 @@ export async function moveOrder(
 			.for('update');
 		if (!order) throw new StatusMoveError('There is no such order.');
 		const from = order.status;
-		if (!canMove(from, to, { needsCarving: await needsCarving(t, orderId) })) {
+		if (by.expect && by.expect !== from) {
+			throw new StatusMoveError(
+				`Order ${order.ref} is already “${statusLabel(from)}”; nothing was changed.`
+			);
+		}
+		const carve = { needsCarving: await needsCarving(t, orderId) };
+		if (by.back && !by.why.trim()) throw new StatusMoveError('Say why the order goes back a step.');
+		const allowed = by.back ? stepBackTo(from, carve) === to : canMove(from, to, carve);
+		if (!allowed) {
 			throw new StatusMoveError(
 				`Order ${order.ref} is “${statusLabel(from)}” and cannot move to “${statusLabel(to)}”.`
 			);

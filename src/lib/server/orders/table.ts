@@ -30,9 +30,30 @@ export const lineCounts = db
 /** `%`, `_` and `\` typed in the search box are meant literally. */
 const likeText = (s: string) => `%${s.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
-export async function listWorkshopOrders(q: OrderTableQuery) {
+/** The buyer's town, from the address JSON, compared without regard to case. */
+export const cityOf = sql<string>`convert(json_unquote(json_extract(${orders.address}, '$.city')) using utf8mb4) collate utf8mb4_unicode_ci`;
+
+const unpaidCancel = sql`(${orders.status} = 'cancelled' and ${orders.paidAt} is null)`;
+
+/** The view's own condition (see `orderViews`): abandoned checkouts only under their filter. */
+function viewCondition(view: OrderTableQuery['view']): SQL {
+	const abandoned = sql`(${orders.status} = 'pending' or ${unpaidCancel})`;
+	switch (view) {
+		case 'action':
+			return inArray(orders.status, ['paid', 'carving', 'finishing', 'packed', 'piece_gone']);
+		case 'closed':
+			return sql`(${orders.status} in ('shipped', 'refunded') or (${orders.status} = 'cancelled' and ${orders.paidAt} is not null))`;
+		case 'abandoned':
+			return abandoned;
+		case 'all':
+			return sql`not ${abandoned}`;
+	}
+}
+
+/** The table's filters and search as one condition, shared by the page and the CSV export. */
+export function orderTableWhere(q: OrderTableQuery) {
 	const personalised = sql<number>`coalesce(${lineCounts.personalised}, 0)`;
-	const where: SQL[] = [];
+	const where: SQL[] = [viewCondition(q.view)];
 	if (q.status.length) where.push(inArray(orders.status, q.status));
 	if (q.from) where.push(gte(orders.createdAt, new Date(`${q.from}T00:00:00Z`)));
 	if (q.to) where.push(lt(orders.createdAt, new Date(`${addIsoDays(q.to, 1)}T00:00:00Z`)));
@@ -40,9 +61,24 @@ export async function listWorkshopOrders(q: OrderTableQuery) {
 	if (q.personalised === 'no') where.push(sql`${personalised} = 0`);
 	if (q.q) {
 		const t = likeText(q.q);
-		where.push(or(like(orders.ref, t), like(orders.buyerName, t), like(orders.email, t))!);
+		// The initials carved on any line of the order, as stored in its personalisation snapshot.
+		const initials = sql`exists (select 1 from ${orderLines} where ${orderLines.orderId} = ${orders.id}
+			and convert(json_unquote(json_extract(${orderLines.personalisation}, '$.initials')) using utf8mb4) collate utf8mb4_unicode_ci like ${t})`;
+		where.push(
+			or(
+				like(orders.ref, t),
+				like(orders.buyerName, t),
+				like(orders.email, t),
+				sql`${cityOf} like ${t}`,
+				initials
+			)!
+		);
 	}
-	const cond = where.length ? and(...where) : undefined;
+	return { cond: and(...where), personalised };
+}
+
+export async function listWorkshopOrders(q: OrderTableQuery) {
+	const { cond, personalised } = orderTableWhere(q);
 
 	const sortCol = {
 		ref: orders.ref,
@@ -67,6 +103,7 @@ export async function listWorkshopOrders(q: OrderTableQuery) {
 				totalMinor: orders.totalMinor,
 				refundedMinor: orders.refundedMinor,
 				currency: orders.currency,
+				city: sql<string>`coalesce(${cityOf}, '')`,
 				personalised: sql<number>`${personalised}`.mapWith(Number),
 				toCarve: sql<number>`coalesce(${lineCounts.toCarve}, 0)`.mapWith(Number),
 				pieces: sql<number>`coalesce(${lineCounts.pieces}, 0)`.mapWith(Number)

@@ -11,6 +11,7 @@ import { db } from '../db';
 import { orderLines, orders, pieces, shipments, woods } from '../db/schema';
 import { previewSvg } from '../personalise';
 import { orderPath } from './links';
+import { trackingLink } from './tracking';
 
 /** The order with its lines and shipments, for the buyer's page and the e-mail. */
 export async function orderByRef(ref: string) {
@@ -146,6 +147,8 @@ export async function buyerOrderView(order: OrderDetail) {
 		shipments: order.shipments.map((s) => ({
 			carrier: s.carrier,
 			trackingNumber: s.trackingNumber,
+			// The carrier's own tracking page; null for a local courier with no public one.
+			trackingUrl: trackingLink(s.carrier, s.trackingNumber),
 			shippedAt: s.shippedAt
 		})),
 		lines: order.lines.map((l) => {

@@ -12,10 +12,10 @@ import {
 } from '$lib/server/shop-settings';
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
 import { away, policies, rateLine, shopInfo } from '$lib/schemas/settings';
-import { formatRates, parseRates } from './rates-text';
+import { parseRateInputs, rateInputs, rateInputsFromForm } from './rates-table';
 import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
-import { formText, parseForm } from '$lib/forms';
+import { parseForm } from '$lib/forms';
 
 /** The rate as typed, in percent with up to two decimals (7.25 → 725 basis points). */
 const taxSchema = z.object({
@@ -40,7 +40,7 @@ export const load: PageServerLoad = async (event) => {
 		getPolicies(),
 		readShippingRates()
 	]);
-	return { rateBp, shop, away: awayNow, policies: policy, ratesText: formatRates(rates) };
+	return { rateBp, shop, away: awayNow, policies: policy, rates: rateInputs(rates) };
 };
 
 export const actions: Actions = {
@@ -84,9 +84,15 @@ export const actions: Actions = {
 	},
 	rates: async (event) => {
 		requireRole(event, 'owner');
-		const raw = formText((await event.request.formData()).get('rates'));
-		const parsed = parseRates(raw, rateLine);
-		if (!parsed.ok) return fail(400, { section: 'rates', errors: { rates: [parsed.error] }, raw });
+		const typed = rateInputsFromForm(await event.request.formData());
+		const parsed = parseRateInputs(typed, rateLine);
+		if (!parsed.ok)
+			return fail(400, {
+				section: 'rates',
+				errors: { rates: [parsed.error] },
+				rateRow: parsed.row ?? null,
+				rates: typed
+			});
 		await replaceShippingRates(parsed.rows);
 		return { saved: 'rates' };
 	}

@@ -11,6 +11,47 @@ import { fieldErrors, formTexts } from '$lib/forms';
 import { drawPreview } from '$lib/pattern/personaliser-draw';
 import { isRosetteStyle } from '$lib/pattern/styles';
 import type { LargerPiece } from '$lib/pattern/ways-out';
+import { config } from '$lib/server/config';
+import { getShopInfo } from '$lib/server/shop-settings';
+import { photoUrl } from '$lib/photos';
+import { metaDescription } from '$lib/seo/describe';
+import { jsonLdTag, productJsonLd } from '$lib/seo/product-ld';
+
+/** The preview card (Open Graph) and the structured data for search engines. */
+async function sharing(piece: NonNullable<Awaited<ReturnType<typeof getPiece>>>) {
+	const shop = await getShopInfo();
+	const url = `${config.origin}/shop/${piece.slug}`;
+	// JPEG, since not every preview-card reader takes WebP.
+	const images = piece.photos.map((p) => `${config.origin}${photoUrl(p.storageKey, 1600, 'jpg')}`);
+	const lead = piece.photos[0];
+	return {
+		description: metaDescription(piece.summary || piece.description || piece.title),
+		url,
+		siteName: shop.name,
+		image: lead
+			? {
+					url: images[0],
+					alt: lead.alt,
+					width: Math.min(1600, lead.width),
+					height: Math.round((lead.height * Math.min(1600, lead.width)) / lead.width)
+				}
+			: null,
+		jsonLdTag: jsonLdTag(
+			productJsonLd({
+				slug: piece.slug,
+				title: piece.title,
+				summary: piece.summary || piece.title,
+				currency: piece.currency,
+				fromMinor: piece.fromMinor,
+				personalisable: piece.personalisable,
+				inStock: piece.woods.reduce((n, w) => n + w.inStock, 0),
+				images,
+				url,
+				shop: shop.name
+			})
+		)
+	};
+}
 
 /** The personaliser's first picture, for the props the page gives it (its id prefix is "pz"). */
 function previewFor(
@@ -62,6 +103,7 @@ export const load: PageServerLoad = async ({ params }) => {
 				)
 			: null;
 	return {
+		sharing: await sharing(piece),
 		preview: previewFor(piece),
 		// Where a buyer whose initials are too small here can go: chosen here, checked in the page.
 		larger: piece.personalisable ? await largerRosettePieces(piece.pattern.diameterMm) : [],

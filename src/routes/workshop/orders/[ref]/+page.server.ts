@@ -2,10 +2,10 @@ import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { firstError, formTexts, parseForm } from '$lib/forms';
 import { workshopOrderDetail } from '$lib/server/orders/views';
-import { nextStatuses, statusLabel } from '$lib/order-status';
+import { canCancel, nextStatuses, statusLabel, stepBackTo } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
 import { isBenchMove } from '$lib/bench-moves';
-import { moveSchema, noteSchema } from '$lib/schemas/order-actions';
+import { moveSchema, noteSchema, steerSchema } from '$lib/schemas/order-actions';
 import { shipmentSchema } from '$lib/schemas/shipment';
 import { refundFormSchema } from '$lib/schemas/refund';
 import { balanceSchema } from '$lib/schemas/balance';
@@ -14,6 +14,7 @@ import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
 import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
 import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
 import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
+import { cancelOrder, stepBackOrder } from '$lib/server/orders/steer';
 import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/orders/workbench';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -26,6 +27,8 @@ export const load: PageServerLoad = async (event) => {
 		order,
 		role: user.role,
 		next: nextStatuses(order.status, { needsCarving }),
+		back: stepBackTo(order.status, { needsCarving }),
+		cancellable: canCancel(order.status),
 		...(await orderWorkbench(await orderIdOf(order.ref)))
 	};
 };
@@ -43,7 +46,7 @@ export const actions: Actions = {
 		const user = requireRole(event, 'owner', 'helper');
 		const parsed = await parseForm(event.request, moveSchema);
 		if (!parsed.ok) return fail(400, { form: 'move', error: firstError(parsed.errors) });
-		const { to, why } = parsed.data;
+		const { to, why, expect } = parsed.data;
 		if (!isBenchMove(to)) {
 			return fail(400, {
 				form: 'move',
@@ -52,7 +55,11 @@ export const actions: Actions = {
 		}
 		try {
 			const id = await orderIdOf(event.params.ref);
-			await moveOrder(id, to, { userId: user.id, why: why || `Moved to ${statusLabel(to)}` });
+			await moveOrder(id, to, {
+				userId: user.id,
+				why: why || `Moved to ${statusLabel(to)}`,
+				expect
+			});
 			await recomputeReadyBy();
 			return { form: 'move', done: `Moved to ${statusLabel(to)}.` };
 		} catch (err) {
@@ -127,6 +134,42 @@ export const actions: Actions = {
 			return { form: 'balance', done: 'Balance recorded as paid. The order can ship.' };
 		} catch (err) {
 			return refused(err, 'balance');
+		}
+	},
+
+	/** Owner only, with a reason: a paid order is refunded in full through the refund code. */
+	cancel: async (event) => {
+		const user = requireRole(event, 'owner');
+		const parsed = await parseForm(event.request, steerSchema, { extra: { form: 'cancel' } });
+		if (!parsed.ok) return parsed.failure;
+		try {
+			const r = await cancelOrder(
+				event.params.ref,
+				parsed.data,
+				{ userId: user.id },
+				event.url.origin
+			);
+			return {
+				form: 'cancel',
+				done:
+					r.refundedMinor === null
+						? 'Cancelled. The pieces it held are back on the shelf.'
+						: 'Cancelled and refunded in full. The buyer has an e-mail.'
+			};
+		} catch (err) {
+			return refused(err, 'cancel');
+		}
+	},
+
+	back: async (event) => {
+		const user = requireRole(event, 'owner');
+		const parsed = await parseForm(event.request, steerSchema, { extra: { form: 'back' } });
+		if (!parsed.ok) return parsed.failure;
+		try {
+			const m = await stepBackOrder(event.params.ref, parsed.data, { userId: user.id });
+			return { form: 'back', done: `Back to ${statusLabel(m.to)}.` };
+		} catch (err) {
+			return refused(err, 'back');
 		}
 	},
 

@@ -1,0 +1,293 @@
+/**
+ * The owner steering orders, against the real MariaDB and the running payment and mail
+ * stand-ins: one step back and cancel each need a reason and write it to the history through
+ * `moveOrder`; a paid order is refunded in full by the refund code when cancelled; two clicks at
+ * once record one move. The table's views keep unpaid checkouts apart, search finds an order by
+ * town and by the initials carved, and the CSV export applies the same filters.
+ */
+import { eq, like } from 'drizzle-orm';
+import Papa from 'papaparse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { db } from '../../src/lib/server/db';
+import * as s from '../../src/lib/server/db/schema';
+import { stripe } from '../../src/lib/server/payments';
+import { cancelOrder, stepBackOrder } from '../../src/lib/server/orders/steer';
+import { orderHistoryOf, StatusMoveError } from '../../src/lib/server/orders/status';
+import { listWorkshopOrders } from '../../src/lib/server/orders/table';
+import { EXPORT_COLUMNS, ordersCsv } from '../../src/lib/server/orders/export';
+import { orderTableQuery } from '../../src/lib/schemas/workshop-orders';
+import { steerSchema } from '../../src/lib/schemas/order-actions';
+import { stepBackTo } from '../../src/lib/order-status';
+import { csvAmount, csvText } from '../../src/lib/csv-safe';
+import { mailTo } from './helpers/fixtures';
+
+const tag = `st${process.pid % 1000}${Date.now() % 10000}`;
+let owner = '';
+let pieceId = 0;
+let woodId = 0;
+let n = 0;
+
+/** A real payment at the stand-in: a session made with the SDK, paid on its card page. */
+async function paidIntent(amount: number) {
+	const sdk = stripe();
+	const session = await sdk.checkout.sessions.create({
+		mode: 'payment',
+		line_items: [
+			{
+				quantity: 1,
+				price_data: { currency: 'usd', unit_amount: amount, product_data: { name: 'Plate' } }
+			}
+		],
+		success_url: 'http://localhost/done?session_id={CHECKOUT_SESSION_ID}'
+	});
+	await fetch(session.url!, {
+		method: 'POST',
+		body: new URLSearchParams({
+			number: '4242 4242 4242 4242',
+			expiry: '12/39',
+			cvc: '123',
+			name: 'Test Buyer'
+		}),
+		redirect: 'manual'
+	});
+	return (await sdk.checkout.sessions.retrieve(session.id)).payment_intent as string;
+}
+
+type Opts = { paid?: boolean; city?: string; initials?: string; refunded?: number; name?: string };
+
+async function newOrder(status: s.OrderStatus, o: Opts = {}) {
+	const paid = o.paid ?? status !== 'pending';
+	const ref = `${tag}-${++n}`.slice(0, 16);
+	const total = 4200;
+	const [{ id }] = await db
+		.insert(s.orders)
+		.values({
+			ref,
+			email: `steer-${ref.toLowerCase()}@example.test`,
+			buyerName: o.name ?? `Steer ${tag}`,
+			address: { line1: '2 Quay', city: o.city ?? 'Marrow', postcode: '05001', country: 'US' },
+			currency: 'USD',
+			subtotalMinor: total,
+			shippingMinor: 0,
+			totalMinor: total,
+			refundedMinor: o.refunded ?? 0,
+			status,
+			paymentIntentId: paid && status !== 'cancelled' ? await paidIntent(total) : null,
+			createdAt: new Date(),
+			paidAt: paid ? new Date() : null
+		})
+		.$returningId();
+	await db.insert(s.orderLines).values({
+		orderId: id,
+		pieceId,
+		woodId,
+		title: 'Plate',
+		woodName: 'Basswood',
+		quantity: 1,
+		unitPriceMinor: total,
+		lineTotalMinor: total,
+		fromStock: !o.initials,
+		personalisation: o.initials
+			? {
+					initials: o.initials,
+					style: 'classic',
+					diameterMm: 60,
+					count: 1,
+					spacingMm: 0,
+					split: false,
+					estimateMinutes: 40
+				}
+			: null
+	});
+	return { id, ref };
+}
+
+const statusOf = async (id: number) =>
+	(await db.select({ s: s.orders.status }).from(s.orders).where(eq(s.orders.id, id)))[0].s;
+
+beforeAll(async () => {
+	[{ id: owner }] = await db
+		.select({ id: s.users.id })
+		.from(s.users)
+		.where(eq(s.users.role, 'owner'))
+		.limit(1);
+	[{ id: pieceId }] = await db.select({ id: s.pieces.id }).from(s.pieces).limit(1);
+	[{ id: woodId }] = await db.select({ id: s.woods.id }).from(s.woods).limit(1);
+});
+
+afterAll(async () => {
+	await db.delete(s.orders).where(like(s.orders.ref, `${tag}-%`));
+});
+
+describe('one step back', () => {
+	it('follows the flow backwards, carved and ready-made (DESIGN.md order status flow)', () => {
+		const carved = { needsCarving: true };
+		const ready = { needsCarving: false };
+		expect(stepBackTo('carving', carved)).toBe('paid');
+		expect(stepBackTo('finishing', carved)).toBe('carving');
+		expect(stepBackTo('packed', carved)).toBe('finishing');
+		// A ready-made order went paid → packed, so packed goes back to paid.
+		expect(stepBackTo('packed', ready)).toBe('paid');
+		for (const st of ['pending', 'paid', 'shipped', 'cancelled', 'refunded'] as const)
+			expect(stepBackTo(st, carved), st).toBeNull();
+	});
+
+	it('writes the reason, who and the move to the history; a reason is required', async () => {
+		const o = await newOrder('finishing', { initials: 'QV' });
+		expect(steerSchema.safeParse({ reason: '  ', expect: 'finishing' }).success).toBe(false);
+		await stepBackOrder(
+			o.ref,
+			{ reason: 'Oil went on blotchy', expect: 'finishing' },
+			{ userId: owner }
+		);
+		expect(await statusOf(o.id)).toBe('carving');
+		const h = (await orderHistoryOf(o.id)).at(-1)!;
+		expect([h.fromStatus, h.toStatus, h.userId]).toEqual(['finishing', 'carving', owner]);
+		expect(h.reason).toContain('Oil went on blotchy');
+	});
+
+	it('two clicks at once move the order back once', async () => {
+		const o = await newOrder('packed', { initials: 'RT' });
+		const go = () =>
+			stepBackOrder(o.ref, { reason: 'Packed too soon', expect: 'packed' }, { userId: owner });
+		const results = await Promise.allSettled([go(), go()]);
+		expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
+		const refused = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
+		expect(refused.reason).toBeInstanceOf(StatusMoveError);
+		expect(await statusOf(o.id)).toBe('finishing');
+		expect((await orderHistoryOf(o.id)).filter((h) => h.fromStatus === 'packed')).toHaveLength(1);
+	});
+
+	it('a shipped order does not step back', async () => {
+		const o = await newOrder('shipped');
+		await expect(
+			stepBackOrder(o.ref, { reason: 'Wrong parcel', expect: 'shipped' }, { userId: owner })
+		).rejects.toBeInstanceOf(StatusMoveError);
+		expect(await statusOf(o.id)).toBe('shipped');
+	});
+});
+
+describe('cancel', () => {
+	it('an unpaid checkout is cancelled with the owner and reason in the history', async () => {
+		const o = await newOrder('pending');
+		const r = await cancelOrder(
+			o.ref,
+			{ reason: 'Buyer asked by phone', expect: 'pending' },
+			{ userId: owner }
+		);
+		expect(r.refundedMinor).toBeNull();
+		expect(await statusOf(o.id)).toBe('cancelled');
+		const h = (await orderHistoryOf(o.id)).at(-1)!;
+		expect([h.toStatus, h.userId]).toEqual(['cancelled', owner]);
+		expect(h.reason).toContain('Buyer asked by phone');
+	});
+
+	it('a paid order is refunded in full at the payment server and the buyer told', async () => {
+		const o = await newOrder('carving', { initials: 'MW' });
+		const r = await cancelOrder(
+			o.ref,
+			{ reason: 'The blank cracked', expect: 'carving' },
+			{ userId: owner },
+			'http://localhost:5400'
+		);
+		expect(r.refundedMinor).toBe(4200);
+		const [row] = await db.select().from(s.orders).where(eq(s.orders.id, o.id));
+		expect([row.status, row.refundedMinor]).toEqual(['refunded', 4200]);
+		// The stand-in holds the refund the SDK made, for the whole amount paid.
+		const [mine] = await db.select().from(s.orderRefunds).where(eq(s.orderRefunds.orderId, o.id));
+		const refund = await stripe().refunds.retrieve(mine.providerRefundId!);
+		expect([refund.amount, refund.payment_intent]).toEqual([4200, row.paymentIntentId]);
+		expect((await orderHistoryOf(o.id)).at(-1)!.reason).toContain('The blank cracked');
+		const mail = await mailTo(row.email, /refund/i);
+		expect(mail.text).toContain('The blank cracked');
+	});
+
+	it('two cancels at once refund once', async () => {
+		const o = await newOrder('paid');
+		const go = () =>
+			cancelOrder(o.ref, { reason: 'Double click', expect: 'paid' }, { userId: owner });
+		const results = await Promise.allSettled([go(), go()]);
+		expect(results.filter((x) => x.status === 'fulfilled')).toHaveLength(1);
+		const rows = await db.select().from(s.orderRefunds).where(eq(s.orderRefunds.orderId, o.id));
+		expect(rows).toHaveLength(1);
+		expect(rows[0].amountMinor).toBe(4200);
+	});
+
+	it('a shipped order is refunded, not cancelled', async () => {
+		const o = await newOrder('shipped');
+		await expect(
+			cancelOrder(o.ref, { reason: 'Changed mind', expect: 'shipped' }, { userId: owner })
+		).rejects.toThrow(/refund it instead/);
+	});
+});
+
+describe('the table’s views, search and export', () => {
+	const refsOf = async (over: Record<string, string>) =>
+		(await listWorkshopOrders(orderTableQuery.parse({ q: tag, size: '100', ...over }))).rows
+			.map((r) => r.ref)
+			.sort();
+
+	it('opens on what needs doing; unpaid checkouts only under their own view', async () => {
+		const a = await newOrder('paid', { paid: false });
+		await db.update(s.orders).set({ paidAt: new Date() }).where(eq(s.orders.id, a.id));
+		const gone = await newOrder('piece_gone', { paid: false });
+		const waiting = await newOrder('pending');
+		const lapsed = await newOrder('cancelled', { paid: false });
+		const shipped = await newOrder('shipped', { paid: false });
+		const mine = (refs: string[]) =>
+			refs.filter((r) => [a, gone, waiting, lapsed, shipped].some((o) => o.ref === r));
+		expect(mine(await refsOf({}))).toEqual([a.ref, gone.ref].sort());
+		expect(mine(await refsOf({ view: 'abandoned' }))).toEqual([waiting.ref, lapsed.ref].sort());
+		expect(mine(await refsOf({ view: 'closed' }))).toEqual([shipped.ref]);
+		const all = mine(await refsOf({ view: 'all' }));
+		expect(all).not.toContain(waiting.ref);
+		expect(all).not.toContain(lapsed.ref);
+	});
+
+	it('finds an order by the buyer’s town (any case, accents kept) and by the initials carved', async () => {
+		const lodz = await newOrder('paid', { city: 'Łódź', paid: false });
+		const carved = await newOrder('carving', { initials: 'ZQX', paid: false });
+		const find = async (q: string) =>
+			(await listWorkshopOrders(orderTableQuery.parse({ q, size: '100' }))).rows.map((r) => r.ref);
+		expect(await find('łódź')).toContain(lodz.ref);
+		expect(await find('zqx')).toEqual([carved.ref]);
+		const row = (await listWorkshopOrders(orderTableQuery.parse({ q: lodz.ref }))).rows[0];
+		expect(row.city).toBe('Łódź');
+	});
+
+	it('shows a part refund in the row', async () => {
+		const part = await newOrder('carving', { refunded: 1250, paid: false });
+		const row = (await listWorkshopOrders(orderTableQuery.parse({ q: part.ref }))).rows[0];
+		expect([row.refundedMinor, row.totalMinor]).toEqual([1250, 4200]);
+	});
+
+	it('exports the filtered orders as CSV with a BOM, read back by papaparse', async () => {
+		await newOrder('packed', { name: '=HYPERLINK("x")', city: 'São Paulo', paid: false });
+		const csv = await ordersCsv(orderTableQuery.parse({ q: tag, status: 'packed' }));
+		// Excel takes a CSV as UTF-8 only with the byte-order mark EF BB BF (U+FEFF) first.
+		expect(Buffer.from(csv, 'utf8').subarray(0, 3)).toEqual(Buffer.from([0xef, 0xbb, 0xbf]));
+		// RFC 4180 line ends; checked with papaparse (a general-purpose CSV parser).
+		expect(csv).toContain('\r\n');
+		const parsed = Papa.parse<Record<string, string>>(csv.slice(1), {
+			header: true,
+			skipEmptyLines: true
+		});
+		expect(parsed.errors).toEqual([]);
+		expect(parsed.meta.fields).toEqual(EXPORT_COLUMNS);
+		expect(parsed.data.length).toBeGreaterThan(0);
+		expect(parsed.data.every((r) => r.status === 'Packed')).toBe(true);
+		const sp = parsed.data.find((r) => r.town === 'São Paulo')!;
+		expect(sp.total).toBe('42.00');
+		// OWASP CSV injection: a formula a buyer typed is kept as text.
+		expect(sp.buyer).toBe(`'=HYPERLINK("x")`);
+	});
+
+	it('writes amounts with the currency’s own digits (ISO 4217: USD 2, JPY 0, KWD 3)', () => {
+		expect(csvAmount(4200, 2)).toBe('42.00');
+		expect(csvAmount(5, 2)).toBe('0.05');
+		expect(csvAmount(1500, 0)).toBe('1500');
+		expect(csvAmount(1234, 3)).toBe('1.234');
+		expect(csvText('-1+2')).toBe(`'-1+2`);
+		expect(csvText('Anna')).toBe('Anna');
+	});
+});
