@@ -19,10 +19,13 @@ import { declaredTooLarge } from '$lib/server/body-limit';
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
+import { loadShopProfile } from '$lib/server/shop-settings';
 
-export const init: ServerInit = () => {
+export const init: ServerInit = async () => {
 	// Before anything else: a production start with the README's secrets stops here.
 	refuseDefaultSecrets();
+	// The shop's zone, locale, currency and words, held for every formatter in this process.
+	await loadShopProfile().catch(() => undefined);
 	answerClientErrorsWithJson();
 	startHoldSweeper();
 	startCheckoutDetailsSweeper();

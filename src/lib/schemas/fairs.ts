@@ -9,14 +9,14 @@ const text = (label: string, max: number) =>
 		.min(1, `Enter ${label}.`)
 		.max(max, `Keep ${label} under ${max} characters.`);
 
-/** A typed amount like "120" or "120.50" → whole cents; empty counts as nothing. */
+/** A typed amount like "120" or "120.50" in the shop's currency → minor units; empty is nothing. */
 export const moneyField = (label: string) =>
 	z
 		.string()
 		.trim()
 		.transform((v, ctx) => {
 			if (v === '') return 0;
-			const minor = parseMajor(v, 'USD');
+			const minor = parseMajor(v);
 			if (minor === null || minor > 100_000_000) {
 				ctx.addIssue({ code: 'custom', message: `Enter ${label} as an amount like 120.00.` });
 				return z.NEVER;

@@ -1,3 +1,4 @@
+import { majorText } from '$lib/money';
 import type { z } from 'zod';
 import { ZONES } from '$lib/shipping';
 import type { RateLine } from '$lib/schemas/settings';
@@ -8,7 +9,7 @@ import type { RateRow } from '$lib/shipping';
  * `domestic 500 8.95`. Easier to scan and change than a grid of inputs.
  */
 export function formatRates(rows: RateRow[]) {
-	return rows.map((r) => `${r.zone} ${r.upToGrams} ${(r.priceMinor / 100).toFixed(2)}`).join('\n');
+	return rows.map((r) => `${r.zone} ${r.upToGrams} ${majorText(r.priceMinor)}`).join('\n');
 }
 
 type Parsed = { ok: true; rows: RateLine[] } | { ok: false; error: string };
