@@ -166,9 +166,15 @@ export function formatMoment(d: Date | string, timeZone = shopFormat().timeZone)
 	});
 }
 
-/** The clock time alone on the shop's clock: "3:05 PM" (the settings page's "now there"). */
-export function formatClock(d: Date, timeZone = shopFormat().timeZone): string {
-	return d.toLocaleTimeString(shopFormat().locale, {
+/** The clock time in a zone: "3:05 PM", or "Saturday 3:05 PM" (the settings' "now there"). */
+export function formatClock(
+	d: Date,
+	timeZone = shopFormat().timeZone,
+	locale = shopFormat().locale,
+	withWeekday = false
+): string {
+	return d.toLocaleString(locale, {
+		...(withWeekday ? { weekday: 'long' } : {}),
 		hour: 'numeric',
 		minute: '2-digit',
 		timeZone

@@ -1,4 +1,4 @@
-import { majorText } from './money';
+import { majorText, percentText } from './money';
 
 /** A stored fair as the strings its edit form shows (amounts as 120.00, rates as 7.25). */
 export function fairFormValues(f: {
@@ -17,8 +17,6 @@ export function fairFormValues(f: {
 	notes: string | null;
 	currency?: string;
 }): Record<string, string> {
-	// Basis points as a percentage with two decimals (725 → 7.25).
-	const percent = (bp: number) => `${Math.trunc(bp / 100)}.${String(bp % 100).padStart(2, '0')}`;
 	return {
 		name: f.name,
 		place: f.place,
@@ -26,11 +24,11 @@ export function fairFormValues(f: {
 		endsOn: f.endsOn,
 		boothFee: majorText(f.boothFeeMinor, f.currency),
 		otherCosts: majorText(f.otherCostsMinor, f.currency),
-		salesTax: percent(f.salesTaxBp),
+		salesTax: percentText(f.salesTaxBp),
 		pricesIncludeTax: f.pricesIncludeTax ? 'on' : '',
 		cashFloat: majorText(f.cashFloatMinor, f.currency),
-		cardFee: percent(f.cardFeeBp),
-		helperDiscount: percent(f.helperDiscountBp),
+		cardFee: percentText(f.cardFeeBp),
+		helperDiscount: percentText(f.helperDiscountBp),
 		openHours: String(f.openMinutes / 60),
 		notes: f.notes ?? ''
 	};

@@ -98,6 +98,28 @@ export function parseMajor(text: string, currency: string = shopFormat().currenc
 	return Number(m[1]) * 10 ** digits + Number(frac.padEnd(digits, '0') || '0');
 }
 
+/** Basis points as a plain percentage for a form box: 725 → "7.25". */
+export function percentText(bp: number): string {
+	assertMinor(bp);
+	return majorText(bp, 'USD'); // two decimals, like cents: the same digits
+}
+
+/** A typed percentage ("7.25", "7,25", "7") as basis points (725); null when not one. */
+export function parsePercent(text: string): number | null {
+	if (!/^\s*\d{1,3}([.,]\d{1,2})?\s*$/.test(text)) return null;
+	return parseMajor(text, 'USD'); // two decimals, like cents: the same digits
+}
+
+/** A rate in basis points the way the shop's locale writes a percentage: 725 → "7.25%". */
+export function formatRate(bp: number, locale: string = shopFormat().locale): string {
+	assertMinor(bp);
+	return new Intl.NumberFormat(locale, {
+		style: 'percent',
+		minimumFractionDigits: 0,
+		maximumFractionDigits: 2
+	}).format(bp / 10_000);
+}
+
 /** Line total: unit price × quantity, exact in minor units. */
 export function lineTotal(unitMinor: number, quantity: number): number {
 	assertMinor(unitMinor);

@@ -1,5 +1,5 @@
 import { formatDay } from '$lib/dates';
-import { formatMoney } from '$lib/money';
+import { formatMoney, formatRate } from '$lib/money';
 import { eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { boothSales, type Role } from '../db/schema';
@@ -48,7 +48,7 @@ function priceEntry(
 			error:
 				seller.role === 'owner'
 					? 'The discount is larger than the sale.'
-					: `The discount is above the helpers’ limit of ${fair.helperDiscountBp / 100} % (${formatMoney(limit, fair.currency)} here).`
+					: `The discount is above the helpers’ limit of ${formatRate(fair.helperDiscountBp)} (${formatMoney(limit, fair.currency)} here).`
 		};
 	}
 	const priced = priceSale(

@@ -15,7 +15,7 @@ import {
 	setShopWords
 } from '$lib/server/shop-settings';
 import { formatClock, timeZoneNames } from '$lib/dates';
-import { MINOR_DIGITS } from '$lib/money';
+import { MINOR_DIGITS, parsePercent } from '$lib/money';
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
 import {
 	away,
@@ -36,8 +36,8 @@ const taxSchema = z.object({
 	rate: z
 		.string()
 		.trim()
-		.regex(/^\d{1,2}(\.\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
-		.transform((s) => Math.round(Number(s) * 100))
+		.regex(/^\d{1,2}([.,]\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
+		.transform((s) => parsePercent(s) ?? -1)
 		.pipe(
 			z.number().int().min(0).max(2500, 'That is higher than any sales tax we know of; check it.')
 		)
