@@ -48,6 +48,19 @@ export function wallClock(d: Date, timeZone = shopFormat().timeZone) {
 	};
 }
 
+/** Formatters kept by locale and options: the settings list alone formats 400-odd zones. */
+const formats = new Map<string, Intl.DateTimeFormat>();
+function formatter(locale: string, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+	const key = `${locale}|${JSON.stringify(options)}`;
+	let f = formats.get(key);
+	if (!f) {
+		if (formats.size > 2000) formats.clear();
+		f = new Intl.DateTimeFormat(locale, options);
+		formats.set(key, f);
+	}
+	return f;
+}
+
 const pad = (n: number, w = 2) => String(Math.abs(n)).padStart(w, '0');
 
 /** The shop's calendar day of a moment, as 'YYYY-MM-DD'. */
@@ -144,26 +157,25 @@ export function formatDay(
 	const { locale, timeZone } = shopFormat();
 	if (typeof d === 'string' && (ISO_DAY.test(d) || /^\d{4}-\d{2}$/.test(d))) {
 		const day = d.length === 7 ? `${d}-15` : d;
-		return new Date(`${day}T12:00:00Z`).toLocaleDateString(locale, {
-			...STYLES[style],
-			timeZone: 'UTC'
-		});
+		return formatter(locale, { ...STYLES[style], timeZone: 'UTC' }).format(
+			new Date(`${day}T12:00:00Z`)
+		);
 	}
 	const at = typeof d === 'string' ? new Date(d) : d;
 	if (Number.isNaN(at.getTime())) return empty;
-	return at.toLocaleDateString(locale, { ...STYLES[style], timeZone });
+	return formatter(locale, { ...STYLES[style], timeZone }).format(at);
 }
 
 /** A moment with its clock time on the shop's clock: "Mar 4, 3:05 PM". */
 export function formatMoment(d: Date | string, timeZone = shopFormat().timeZone): string {
 	const at = typeof d === 'string' ? new Date(d) : d;
-	return at.toLocaleString(shopFormat().locale, {
+	return formatter(shopFormat().locale, {
 		month: 'short',
 		day: 'numeric',
 		hour: 'numeric',
 		minute: '2-digit',
 		timeZone
-	});
+	}).format(at);
 }
 
 /** The clock time in a zone: "3:05 PM", or "Saturday 3:05 PM" (the settings' "now there"). */
@@ -173,12 +185,12 @@ export function formatClock(
 	locale = shopFormat().locale,
 	withWeekday = false
 ): string {
-	return d.toLocaleString(locale, {
+	return formatter(locale, {
 		...(withWeekday ? { weekday: 'long' } : {}),
 		hour: 'numeric',
 		minute: '2-digit',
 		timeZone
-	});
+	}).format(d);
 }
 
 /** Every IANA zone this runtime knows, for the settings list (UTC first). */

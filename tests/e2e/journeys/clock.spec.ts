@@ -28,6 +28,8 @@ async function saveFormat(page: Page, locale: string, currency: string) {
 
 test.describe('the shop clock and money', () => {
 	test.use({ viewport: { width: 1280, height: 800 } });
+	// Many pages in one walk, on a machine shared by several builds.
+	test.setTimeout(120_000);
 
 	test('no workshop page shows UTC; the zone is picked from a list with the time there', async ({
 		page
