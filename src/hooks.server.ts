@@ -19,7 +19,7 @@ import { declaredTooLarge } from '$lib/server/body-limit';
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
-import { loadShopProfile } from '$lib/server/shop-settings';
+import { freshShopProfile, loadShopProfile } from '$lib/server/shop-settings';
 
 export const init: ServerInit = async () => {
 	// Before anything else: a production start with the README's secrets stops here.
@@ -30,6 +30,12 @@ export const init: ServerInit = async () => {
 	startHoldSweeper();
 	startCheckoutDetailsSweeper();
 	startOutboxDrainer();
+};
+
+/** The shop's zone, locale, currency and words as saved, even when another process saved them. */
+const shopProfileHandle: Handle = async ({ event, resolve }) => {
+	await freshShopProfile();
+	return resolve(event);
 };
 
 /** Loads the signed-in user from the session cookie; renews or clears the cookie as needed. */
@@ -89,6 +95,7 @@ export const handle = sequence(
 	addressHandle,
 	photoCacheHandle,
 	availabilityHandle,
+	shopProfileHandle,
 	pageCacheHandle,
 	httpCacheHandle,
 	sessionHandle,

@@ -83,6 +83,26 @@ export async function loadShopProfile(conn: Db | Tx = db) {
  * yet begun (the numbers stay: prices are not converted); orders and past fairs keep the
  * currency they were taken in.
  */
+const PROFILE_CHECK_MS = 1000;
+let profileCheckedAt = 0;
+let profileLoading: Promise<unknown> | null = null;
+
+/**
+ * Reloads the shop's clock, money and words at most once a second, so a save made through another
+ * app process (or by hand) reaches this one within about a second. Never fails a request: on a
+ * database error the values held stay.
+ */
+export async function freshShopProfile(now = Date.now()) {
+	if (now - profileCheckedAt < PROFILE_CHECK_MS) return;
+	profileLoading ??= loadShopProfile()
+		.catch(() => undefined)
+		.finally(() => {
+			profileCheckedAt = Date.now();
+			profileLoading = null;
+		});
+	await profileLoading;
+}
+
 export async function setShopFormat(v: ShopFormat) {
 	await withRetry(() =>
 		db.transaction(async (tx) => {
