@@ -19,18 +19,27 @@ import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/bo
 import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
 import { refuseDefaultSecrets } from '$lib/server/secrets-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
+import { freshShopProfile, loadShopProfile } from '$lib/server/shop-settings';
 import { usePlainMessages } from '$lib/schemas/plain-messages';
 
 // Before any request is parsed: plain sentences for checks written without their own message.
 usePlainMessages();
 
-export const init: ServerInit = () => {
+export const init: ServerInit = async () => {
 	// Before anything else: a production start with the README's secrets stops here.
 	refuseDefaultSecrets();
+	// The shop's zone, locale, currency and words, held for every formatter in this process.
+	await loadShopProfile().catch(() => undefined);
 	answerClientErrorsWithJson();
 	startHoldSweeper();
 	startCheckoutDetailsSweeper();
 	startOutboxDrainer();
+};
+
+/** The shop's zone, locale, currency and words as saved, even when another process saved them. */
+const shopProfileHandle: Handle = async ({ event, resolve }) => {
+	await freshShopProfile();
+	return resolve(event);
 };
 
 /** Loads the signed-in user from the session cookie; renews or clears the cookie as needed. */
@@ -95,6 +104,7 @@ export const handle = sequence(
 	addressHandle,
 	photoCacheHandle,
 	availabilityHandle,
+	shopProfileHandle,
 	pageCacheHandle,
 	httpCacheHandle,
 	sessionHandle,

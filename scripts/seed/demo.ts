@@ -17,7 +17,8 @@ import { DEMO_ACCOUNTS } from './data/accounts';
 import { DEMO_PIECES, DEMO_SHIPPING_RATES } from './data/pieces';
 import { WOOD_ADD_ON } from './data/woods';
 import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
-import { seedSettings } from './settings';
+import { DEMO_FORMAT, DEMO_WORDS, seedSettings } from './settings';
+import { useShopFormat, useShopWords } from '../../src/lib/shop-format';
 import { seedDemoFairs } from './fairs';
 import { daysFromNow, seedOrders } from './orders';
 
@@ -30,6 +31,10 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 
 	// Hashing is slow on purpose; do it before the transaction holds any locks.
 	const hashes = await Promise.all(DEMO_ACCOUNTS.map((a) => hashPassword(a.password)));
+
+	// The demo shop's clock and words, for the days and e-mails the seed itself works out.
+	useShopFormat(DEMO_FORMAT);
+	useShopWords(DEMO_WORDS);
 
 	const seeded = await db.transaction(async (tx) => {
 		const [{ n: again }] = await tx.select({ n: count() }).from(schema.pieces).for('update');
@@ -123,8 +128,7 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 		await tx.insert(schema.shippingRates).values(DEMO_SHIPPING_RATES);
 		await tx.insert(schema.settings).values([
 			{ key: 'salesTax', value: { rateBp: 0 } },
-			{ key: 'shopName', value: 'Chipstall' },
-			{ key: 'workshop', value: { owner: 'Hollis Marsh', town: 'Linden Ford', country: 'US' } }
+			{ key: 'shopName', value: 'Chipstall' }
 		]);
 
 		await seedSettings(tx);

@@ -2,12 +2,12 @@
  * The carving queue: paid made-to-order lines waiting for the knife, fitted into the carver's
  * weekly hours, give each line the day it should be carved and each new order its ready-by date.
  * Pure and dependency-free so the personaliser can run it in the browser with the figures the
- * server sends. Dates are ISO calendar days (`YYYY-MM-DD`) with UTC day arithmetic, so the same
- * day comes out whatever the machine's time zone.
+ * server sends. Dates are the shop's calendar days (`YYYY-MM-DD`, "today" from `$lib/dates` in
+ * the shop's zone); adding to them is plain calendar arithmetic, the same on every machine.
  */
-import { addIsoDays } from './dates';
+import { addIsoDays, weekdayOf } from './dates';
 
-/** Carving minutes available on each weekday, Sunday first (JavaScript's getUTCDay order). */
+/** Carving minutes available on each weekday, Sunday first (JavaScript's getDay order). */
 export type WeekHours = [number, number, number, number, number, number, number];
 
 export type CarvingSchedule = {
@@ -42,9 +42,7 @@ export type ScheduledLine<K = string> = QueueLine<K> & {
 /** Far enough ahead for any real queue; stops the walk when no weekday has hours. */
 const HORIZON_DAYS = 366;
 
-function weekday(iso: string): number {
-	return new Date(`${iso}T00:00:00Z`).getUTCDay();
-}
+const weekday = weekdayOf;
 
 /** Every ISO day from `from` to `to` inclusive (a fair's days, a holiday). */
 export function daysBetween(from: string, to: string): string[] {

@@ -1,3 +1,5 @@
+import { majorText, percentText } from './money';
+
 /** A stored fair as the strings its edit form shows (amounts as 120.00, rates as 7.25). */
 export function fairFormValues(f: {
 	name: string;
@@ -13,20 +15,20 @@ export function fairFormValues(f: {
 	helperDiscountBp: number;
 	openMinutes: number;
 	notes: string | null;
+	currency?: string;
 }): Record<string, string> {
-	const two = (n: number) => (n / 100).toFixed(2);
 	return {
 		name: f.name,
 		place: f.place,
 		startsOn: f.startsOn,
 		endsOn: f.endsOn,
-		boothFee: two(f.boothFeeMinor),
-		otherCosts: two(f.otherCostsMinor),
-		salesTax: two(f.salesTaxBp),
+		boothFee: majorText(f.boothFeeMinor, f.currency),
+		otherCosts: majorText(f.otherCostsMinor, f.currency),
+		salesTax: percentText(f.salesTaxBp),
 		pricesIncludeTax: f.pricesIncludeTax ? 'on' : '',
-		cashFloat: two(f.cashFloatMinor),
-		cardFee: two(f.cardFeeBp),
-		helperDiscount: two(f.helperDiscountBp),
+		cashFloat: majorText(f.cashFloatMinor, f.currency),
+		cardFee: percentText(f.cardFeeBp),
+		helperDiscount: percentText(f.helperDiscountBp),
 		openHours: String(f.openMinutes / 60),
 		notes: f.notes ?? ''
 	};

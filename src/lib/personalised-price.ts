@@ -13,7 +13,7 @@ export function personalisedPriceMinor(basePriceMinor: number, woodAddOnMinor = 
 	return basePriceMinor + woodAddOnMinor;
 }
 
-/** The day ('YYYY-MM-DD', UTC: see $lib/dates) a piece ordered at `from` is ready. */
+/** The shop's day ('YYYY-MM-DD', see $lib/dates) a piece ordered at `from` is ready. */
 export function readyBy(leadDays: number, from: Date = new Date()): string {
 	return addDays(from, leadDays);
 }

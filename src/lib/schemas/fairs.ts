@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { emailAddress } from './email';
-import { parseMajor } from '$lib/money';
+import { parseMajor, parsePercent } from '$lib/money';
 
 const text = (label: string, max: number) =>
 	z
@@ -9,14 +9,14 @@ const text = (label: string, max: number) =>
 		.min(1, `Enter ${label}.`)
 		.max(max, `Keep ${label} under ${max} characters.`);
 
-/** A typed amount like "120" or "120.50" → whole cents; empty counts as nothing. */
+/** A typed amount like "120" or "120.50" in the shop's currency → minor units; empty is nothing. */
 export const moneyField = (label: string) =>
 	z
 		.string()
 		.trim()
 		.transform((v, ctx) => {
 			if (v === '') return 0;
-			const minor = parseMajor(v, 'USD');
+			const minor = parseMajor(v);
 			if (minor === null || minor > 100_000_000) {
 				ctx.addIssue({ code: 'custom', message: `Enter ${label} as an amount like 120.00.` });
 				return z.NEVER;
@@ -31,9 +31,8 @@ const percentField = (label: string, maxPercent: number) =>
 		.trim()
 		.transform((v, ctx) => {
 			if (v === '') return 0;
-			const m = /^(\d{1,3})(?:\.(\d{1,2}))?$/.exec(v);
-			const bp = m ? Number(m[1]) * 100 + Number((m[2] ?? '').padEnd(2, '0')) : NaN;
-			if (!m || bp > maxPercent * 100) {
+			const bp = parsePercent(v);
+			if (bp === null || bp > maxPercent * 100) {
 				ctx.addIssue({
 					code: 'custom',
 					message: `Enter ${label} as a percentage from 0 to ${maxPercent}, like 7.25.`

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pieceKinds } from '$lib/kinds';
+import { parseMajor } from '$lib/money';
 
 const int = (label: string, min: number, maxValue: number) =>
 	z.coerce
@@ -17,12 +18,21 @@ const checkbox = z
 export const priceMinor = z
 	.string()
 	.trim()
-	.regex(/^\d{1,6}(\.\d{1,2})?$/, 'Type a price like 48 or 48.50.')
-	.transform((s) => {
-		const [whole, frac = ''] = s.split('.');
-		return Number(whole) * 100 + Number(frac.padEnd(2, '0'));
+	.transform((s, ctx) => {
+		const minor = s.length <= 12 ? parseMajor(s) : null;
+		if (minor === null) {
+			ctx.addIssue({ code: 'custom', message: 'Type a price like 48 or 48.50.' });
+			return z.NEVER;
+		}
+		return minor;
 	})
-	.pipe(z.number().int().min(100, 'A piece costs at least 1.00.'));
+	.pipe(
+		z
+			.number()
+			.int()
+			.min(100, 'A piece costs at least 1.00.')
+			.max(99_999_999, 'A piece costs at most 999999.99.')
+	);
 
 /** One piece as the owner edits it: dimensions in mm, price in minor units, rosette layout. */
 export const pieceForm = z

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { ZONES } from '$lib/shipping';
 import { priceMinor } from './piece';
+import { isTimeZone } from '$lib/dates';
+import { MINOR_DIGITS } from '$lib/money';
 
 const line = (label: string, maxLen = 120) =>
 	z.string().trim().min(1, `${label} is needed.`).max(maxLen);
@@ -61,3 +63,56 @@ export const rateLine = z.object({
 	priceMinor
 });
 export type RateLine = z.infer<typeof rateLine>;
+
+/** The shop's clock, language and currency (see `$lib/shop-format`). */
+export const shopFormat = z.object({
+	timeZone: z
+		.string()
+		.trim()
+		.refine(isTimeZone, 'Pick a time zone from the list, e.g. America/New_York.'),
+	locale: z
+		.string()
+		.trim()
+		.refine(isLocale, 'Pick a language and region from the list, e.g. en-US.'),
+	currency: z
+		.string()
+		.trim()
+		.toUpperCase()
+		.refine((c) => c in MINOR_DIGITS, `Pick one of ${Object.keys(MINOR_DIGITS).join(', ')}.`)
+});
+
+/** The shop's words: who carves, where, and how e-mails end. */
+export const shopWords = z.object({
+	owner: z.string().trim().max(60, 'Keep the name under 60 characters.').default(''),
+	town: z.string().trim().max(80, 'Keep the town under 80 characters.').default(''),
+	signOff: z.string().trim().max(200, 'Keep the sign-off under 200 characters.').default('')
+});
+
+/** Locales offered in settings: each writes dates and amounts its own way. */
+export const LOCALES = [
+	'en-US',
+	'en-CA',
+	'en-GB',
+	'en-AU',
+	'en-NZ',
+	'en-IE',
+	'fr-CA',
+	'fr-FR',
+	'de-DE',
+	'de-AT',
+	'de-CH',
+	'nl-NL',
+	'sv-SE',
+	'nb-NO',
+	'da-DK',
+	'fi-FI',
+	'it-IT',
+	'es-ES',
+	'es-MX',
+	'pt-PT',
+	'ja-JP'
+] as const;
+
+function isLocale(tag: string): boolean {
+	return (LOCALES as readonly string[]).includes(tag);
+}

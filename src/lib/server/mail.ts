@@ -1,6 +1,8 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { config } from './config';
 import { enqueueMail, sendNow } from './mail/outbox';
+import { esc } from './mail-html';
+import { shopWords } from '$lib/shop-format';
 
 export type OutgoingMail = {
 	to: string | string[];
@@ -40,7 +42,8 @@ export async function deliverMail(mail: OutgoingMail): Promise<string> {
  * sends it later (null is returned then). Only if the database itself is unreachable is the
  * message handed straight to SMTP, so a password reset still works without MariaDB.
  */
-export async function sendMail(mail: OutgoingMail): Promise<string | null> {
+export async function sendMail(unsigned: OutgoingMail): Promise<string | null> {
+	const mail = withSignOff(unsigned);
 	let id: number;
 	try {
 		id = await enqueueMail(mail);
@@ -48,6 +51,22 @@ export async function sendMail(mail: OutgoingMail): Promise<string | null> {
 		return deliverMail(mail);
 	}
 	return sendNow(id, deliverMail);
+}
+
+/**
+ * Ends a message with the shop's sign-off from settings (nothing when it is empty): the last
+ * paragraph of the HTML and the last line of the text.
+ */
+export function withSignOff(mail: OutgoingMail, signOff = shopWords().signOff): OutgoingMail {
+	const line = signOff.trim();
+	if (!line) return mail;
+	const para = `<p style="margin-top:20px">${esc(line)}</p>`;
+	const html = mail.html
+		? /<\/body>/i.test(mail.html)
+			? mail.html.replace(/(<\/div>\s*)?<\/body>/i, (end) => `${para}${end}`)
+			: `${mail.html}${para}`
+		: undefined;
+	return { ...mail, text: `${mail.text.trimEnd()}\n\n${line}\n`, ...(html ? { html } : {}) };
 }
 
 /** Drops the cached transport (tests that change SMTP settings between runs). */

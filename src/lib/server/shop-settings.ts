@@ -1,21 +1,32 @@
 /**
  * The shop's own details kept in the settings table: name, contact e-mail and return address,
- * closed dates, and the policies page. Each read falls back to a safe default when unset or
+ * closed dates, the policies page, and the shop's clock, money and words. Each read falls back to a safe default when unset or
  * malformed, so a page never fails on a missing setting.
  */
-import { today as todayIso } from '$lib/dates';
-import { eq } from 'drizzle-orm';
+import { isoDay, today as todayIso } from '$lib/dates';
+import { and, eq, gt, isNull, ne } from 'drizzle-orm';
 import { db, type Db, type Tx } from './db';
-import { settings, type Address } from './db/schema';
+import { withRetry } from './db/retry';
+import { fairs, pieces, settings, type Address } from './db/schema';
 import {
 	away as awaySchema,
 	policies as policiesSchema,
+	shopFormat as shopFormatSchema,
 	shopInfo as shopInfoSchema,
+	shopWords as shopWordsSchema,
 	type Away,
 	type Policies,
 	type ShopInfo
 } from '$lib/schemas/settings';
 import type { z } from 'zod';
+import {
+	DEFAULT_FORMAT,
+	DEFAULT_WORDS,
+	useShopFormat,
+	useShopWords,
+	type ShopFormat,
+	type ShopWords
+} from '$lib/shop-format';
 
 export const DEFAULT_SHOP: ShopInfo = {
 	name: 'Chipstall',
@@ -49,7 +60,75 @@ export const getAway = (conn: Db | Tx = db) => read('away', awaySchema, DEFAULT_
 export const getPolicies = (conn: Db | Tx = db) =>
 	read('policies', policiesSchema, DEFAULT_POLICIES, conn);
 
+export const getShopFormat = (conn: Db | Tx = db) =>
+	read('format', shopFormatSchema, DEFAULT_FORMAT, conn);
+export const getShopWords = (conn: Db | Tx = db) =>
+	read('workshop', shopWordsSchema, DEFAULT_WORDS, conn);
+
 export const setShopInfo = (v: ShopInfo) => write('shop', v);
+
+/**
+ * Loads the shop's clock, money and words into this process (`$lib/shop-format`): once at start
+ * and after every save, so formatters never read the database. Defaults when unreachable.
+ */
+export async function loadShopProfile(conn: Db | Tx = db) {
+	const [format, words] = await Promise.all([getShopFormat(conn), getShopWords(conn)]);
+	useShopFormat(format);
+	useShopWords(words);
+	return { format, words };
+}
+
+/**
+ * Saves the clock, locale and currency. A new currency relabels the catalogue and the fairs not
+ * yet begun (the numbers stay: prices are not converted); orders and past fairs keep the
+ * currency they were taken in.
+ */
+const PROFILE_CHECK_MS = 1000;
+let profileCheckedAt = 0;
+let profileLoading: Promise<unknown> | null = null;
+
+/**
+ * Reloads the shop's clock, money and words at most once a second, so a save made through another
+ * app process (or by hand) reaches this one within about a second. Never fails a request: on a
+ * database error the values held stay.
+ */
+export async function freshShopProfile(now = Date.now()) {
+	if (now - profileCheckedAt < PROFILE_CHECK_MS) return;
+	profileLoading ??= loadShopProfile()
+		.catch(() => undefined)
+		.finally(() => {
+			profileCheckedAt = Date.now();
+			profileLoading = null;
+		});
+	await profileLoading;
+}
+
+export async function setShopFormat(v: ShopFormat) {
+	await withRetry(() =>
+		db.transaction(async (tx) => {
+			await tx
+				.insert(settings)
+				.values({ key: 'format', value: v })
+				.onDuplicateKeyUpdate({ set: { value: v } });
+			await tx.update(pieces).set({ currency: v.currency }).where(ne(pieces.currency, v.currency));
+			await tx
+				.update(fairs)
+				.set({ currency: v.currency })
+				.where(
+					and(
+						ne(fairs.currency, v.currency),
+						isNull(fairs.closedAt),
+						gt(fairs.startsOn, isoDay(new Date(), v.timeZone))
+					)
+				);
+		})
+	);
+	useShopFormat(v);
+}
+export async function setShopWords(v: ShopWords) {
+	await write('workshop', v);
+	useShopWords(v);
+}
 export const setAway = (v: Away) => write('away', v);
 export const setPolicies = (v: Policies) => write('policies', v);
 

@@ -5,7 +5,7 @@ import { getSalesTaxBp } from '../settings';
 import { getCarvingSchedule } from '../orders/carving-queue';
 import { surchargeMinor, type CarvingSchedule } from '$lib/carving-queue';
 import { standardMinutes } from '$lib/layout-minutes';
-import { lineTax, lineTotal } from '$lib/money';
+import { lineTax, lineTotal, shopCurrency } from '$lib/money';
 import { shippingCharge, zoneFor, type RateRow } from '$lib/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
 import { snapshotRefusal } from '../personalise';
@@ -57,7 +57,7 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 	const rateBp = await getSalesTaxBp(conn);
 	const schedule = await getCarvingSchedule(conn);
 	const rates = await conn.select().from(shippingRates);
-	const currency = rows[0]?.currency ?? 'USD';
+	const currency = rows[0]?.currency ?? shopCurrency();
 	const priced = priceLines(rows, { rateBp, schedule, rates, country });
 
 	const problems: { lineId: number; message: string }[] = [];

@@ -1,3 +1,4 @@
+import { majorText, shopCurrency } from '$lib/money';
 /**
  * The owner's side of the catalogue: every piece (retired ones too), create, edit, retire.
  * A retired piece leaves the shop (the shop reads active pieces only) but its row stays, so the
@@ -58,7 +59,7 @@ export async function pieceForEdit(id: number) {
 			lengthMm: String(p.lengthMm),
 			widthMm: String(p.widthMm),
 			thicknessMm: String(p.thicknessMm),
-			price: (p.basePriceMinor / 100).toFixed(2),
+			price: majorText(p.basePriceMinor, p.currency),
 			leadDays: String(p.leadDays),
 			diameterMm: String(pattern.diameterMm),
 			count: String(pattern.count),
@@ -112,7 +113,7 @@ export async function createPiece(f: PieceForm): Promise<number> {
 		db.transaction(async (tx) => {
 			const [{ id }] = await tx
 				.insert(pieces)
-				.values({ ...columns(f), currency: 'USD', createdAt: new Date() })
+				.values({ ...columns(f), currency: shopCurrency(), createdAt: new Date() })
 				.$returningId();
 			await tx.insert(pieceWoods).values(f.woodIds.map((woodId) => ({ pieceId: id, woodId })));
 			return id;

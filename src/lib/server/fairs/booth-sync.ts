@@ -1,4 +1,5 @@
-import { isoDay } from '$lib/dates';
+import { formatDay } from '$lib/dates';
+import { formatMoney, formatRate } from '$lib/money';
 import { eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { boothSales, type Role } from '../db/schema';
@@ -21,7 +22,7 @@ type Seller = { id: string; role: Role };
 export function assertOpen(fair: Fair) {
 	if (fair.closedAt) {
 		throw new FairError(
-			`${fair.name} was closed on ${isoDay(fair.closedAt)}; it takes no more sales.`,
+			`${fair.name} was closed on ${formatDay(fair.closedAt, 'medium')}; it takes no more sales.`,
 			409
 		);
 	}
@@ -47,7 +48,7 @@ function priceEntry(
 			error:
 				seller.role === 'owner'
 					? 'The discount is larger than the sale.'
-					: `The discount is above the helpers’ limit of ${fair.helperDiscountBp / 100} % (${(limit / 100).toFixed(2)} here).`
+					: `The discount is above the helpers’ limit of ${formatRate(fair.helperDiscountBp)} (${formatMoney(limit, fair.currency)} here).`
 		};
 	}
 	const priced = priceSale(

@@ -1,4 +1,5 @@
 import { today as todayIso } from '$lib/dates';
+import { shopCurrency } from '$lib/money';
 import { and, asc, desc, eq, gte, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
@@ -34,7 +35,10 @@ export function fairValues(f: FairForm) {
 }
 
 export async function createFair(f: FairForm): Promise<number> {
-	const [{ id }] = await db.insert(fairs).values(fairValues(f)).$returningId();
+	const [{ id }] = await db
+		.insert(fairs)
+		.values({ ...fairValues(f), currency: shopCurrency() })
+		.$returningId();
 	return id;
 }
 

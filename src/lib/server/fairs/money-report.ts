@@ -1,3 +1,4 @@
+import { isoMonth } from '$lib/dates';
 import { isNotNull } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
@@ -6,7 +7,7 @@ import { decimal } from './report';
 import { fairTally } from './tally';
 
 const PAID = new Set(['paid', 'carving', 'finishing', 'packed', 'shipped', 'refunded']);
-const month = (d: Date) => d.toISOString().slice(0, 7);
+const month = (d: Date) => isoMonth(d);
 
 export type MoneyRow = {
 	month: string;

@@ -1,3 +1,5 @@
+import { localHour, localIso } from '$lib/dates';
+import { majorText } from '$lib/money';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { fairs } from '../db/schema';
@@ -5,10 +7,9 @@ import { netPerHour } from '$lib/reconcile';
 import { fairTally } from './tally';
 
 /** Minor units as a plain decimal for the bookkeeper's spreadsheet (no currency sign). */
-export const decimal = (minor: number) =>
-	(minor < 0 ? '-' : '') + (Math.abs(minor) / 100).toFixed(2);
+export const decimal = (minor: number, currency?: string) => majorText(minor, currency);
 
-/** Takings by method, by piece and by hour (UTC), plus the tally: the owner's fair report. */
+/** Takings by method, by piece and by hour on the shop's clock, plus the tally: the fair report. */
 export async function fairReport(fairId: number) {
 	const t = await fairTally(fairId);
 	const sales = t.entries.filter((e) => e.kind === 'sale');
@@ -36,8 +37,10 @@ export async function fairReport(fairId: number) {
 		});
 	}
 	const hours = new Map<number, number>();
-	for (const s of sales)
-		hours.set(s.soldAt.getUTCHours(), (hours.get(s.soldAt.getUTCHours()) ?? 0) + s.totalMinor);
+	for (const s of sales) {
+		const hour = localHour(s.soldAt);
+		hours.set(hour, (hours.get(hour) ?? 0) + s.totalMinor);
+	}
 	const byHour = [...hours.entries()]
 		.sort((a, b) => a[0] - b[0])
 		.map(([hour, totalMinor]) => ({ hour, totalMinor }));
@@ -69,28 +72,31 @@ export async function fairsCompared() {
 	return out;
 }
 
-/** One row per booth entry (RFC 4180: CRLF line ends, quotes doubled); amounts in plain decimals. */
+/**
+ * One row per booth entry (RFC 4180: CRLF line ends, quotes doubled); amounts in plain decimals;
+ * the time on the shop's clock with its offset (ISO 8601), so it still says the exact moment.
+ */
 export function fairCsv(r: FairReport): string {
 	const label = (pieceId: number, woodId: number) => {
 		const p = r.pieces.find((x) => x.pieceId === pieceId && x.woodId === woodId);
 		return p ? `${p.title} (${p.woodName})` : `piece ${pieceId}`;
 	};
 	const rows = r.entries.map((e) => [
-		e.soldAt.toISOString(),
+		localIso(e.soldAt),
 		e.id,
 		e.kind,
 		e.method,
 		e.lines.map((l) => `${l.quantity} × ${label(l.pieceId, l.woodId)}`).join('; '),
-		decimal(e.kind === 'sale' ? e.subtotalMinor : 0),
-		decimal(e.discountMinor),
-		decimal(e.taxMinor),
-		decimal(e.totalMinor),
+		decimal(e.kind === 'sale' ? e.subtotalMinor : 0, r.fair.currency),
+		decimal(e.discountMinor, r.fair.currency),
+		decimal(e.taxMinor, r.fair.currency),
+		decimal(e.totalMinor, r.fair.currency),
 		e.flagged ? 'yes' : ''
 	]);
 	return stringify(rows, {
 		header: true,
 		columns: [
-			'sold_at_utc',
+			'sold_at',
 			'id',
 			'kind',
 			'method',

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import type { Handle } from '@sveltejs/kit';
 import { catalogueVersion } from '$lib/server/catalogue-cache';
+import { today } from '$lib/dates';
 import { isPublicPage } from './public-pages';
 import { scriptPreloadsIntoHead } from './link-preloads';
 
@@ -12,7 +13,7 @@ import { scriptPreloadsIntoHead } from './link-preloads';
  * the shop's settings, yet each request ran the loads, the queries and the server render (the
  * piece page draws its rosettes twice). The key is the URL plus the catalogue version — the
  * MariaDB checksum of the catalogue and settings tables, asked at most once a second — plus the
- * day (the away notice and "ready to ship by" move with the date). An edit made through any app
+ * shop's day, in its zone (the away notice and "ready to ship by" move with the date). An edit made through any app
  * process, a script or by hand changes the checksum, so every process drops its pages within a
  * second. Anyone with a cookie (signed in, or with a basket) is rendered afresh, as before.
  *
@@ -124,7 +125,7 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	}
 	let v: string;
 	try {
-		v = `${await catalogueVersion()}|${new Date().toDateString()}`;
+		v = `${await catalogueVersion()}|${today()}`;
 	} catch {
 		// No version, no cache: the page renders as if uncached, so its loads meet the same error
 		// inside SvelteKit (a 503 while the database is down) and every outer handle still runs.

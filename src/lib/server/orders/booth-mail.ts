@@ -1,3 +1,4 @@
+import { carverSubject } from '$lib/shop-format';
 /**
  * The buyer's confirmation for an order taken at a fair: what will be carved, the deposit taken,
  * what is left to pay before it ships, and the signed link to follow it. Plain text and HTML carry
@@ -32,7 +33,7 @@ export function boothOrderMail(order: OrderDetail, where: string, origin?: strin
 	const text = [
 		`Thank you, ${order.buyerName}.`,
 		'',
-		`Hollis took your order ${order.ref} at ${where}:`,
+		`${carverSubject()} took your order ${order.ref} at ${where}:`,
 		...lines.map((l) => `   ${l}`),
 		'',
 		...facts.map(([k, v]) => `${k}: ${v}`),
@@ -42,7 +43,7 @@ export function boothOrderMail(order: OrderDetail, where: string, origin?: strin
 		`See your order at any time: ${link}`
 	].join('\n');
 	const html = mailPage(`<p>Thank you, ${esc(order.buyerName)}.</p>
-<p>Hollis took your order <strong>${esc(order.ref)}</strong> at ${esc(where)}:</p>
+<p>${esc(carverSubject())} took your order <strong>${esc(order.ref)}</strong> at ${esc(where)}:</p>
 <ul>${lines.map((l) => `<li>${esc(l)}</li>`).join('')}</ul>
 <table>${facts.map(([k, v]) => `<tr><td style="padding:2px 12px 2px 0">${esc(k)}</td><td style="text-align:right"><strong>${esc(v)}</strong></td></tr>`).join('')}</table>
 <p>It should be ready to post by <strong>${esc(readyByWords(order.readyBy))}</strong>. ${esc(rest)}</p>

@@ -1,3 +1,4 @@
+import { carverObject, carverSubject, workshopWords } from '$lib/shop-format';
 import { formatMoney } from '$lib/money';
 import { styleWords } from '$lib/pattern/styles';
 import { countryName } from '$lib/shipping';
@@ -54,7 +55,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 	const text = [
 		`Thank you, ${order.buyerName}.`,
 		'',
-		`Your order ${order.ref} is paid. Hollis will carve it in the Linden Ford workshop.`,
+		`Your order ${order.ref} is paid. ${carverSubject()} will carve it in ${workshopWords()}.`,
 		'',
 		...lineText,
 		'',
@@ -78,7 +79,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 	const html = `<!doctype html><html><body style="margin:0;background:#f6efe3;color:#2e2118;font-family:Nunito,Segoe UI,sans-serif;font-size:17px;line-height:1.5">
 <div style="max-width:560px;margin:0 auto;padding:24px">
 <h1 style="font-size:26px;margin:0 0 8px">Thank you, ${esc(order.buyerName)}.</h1>
-<p>Your order <strong>${esc(order.ref)}</strong> is paid. Hollis will carve it in the Linden Ford workshop.</p>
+<p>Your order <strong>${esc(order.ref)}</strong> is paid. ${esc(carverSubject())} will carve it in ${esc(workshopWords())}.</p>
 <table style="width:100%;border-collapse:collapse;background:#fffaf2;border:1px solid #d9c8ae;border-radius:12px">
 ${order.lines
 	.map((l) => {
@@ -122,7 +123,7 @@ export function pieceGoneMail(order: OrderDetail, origin?: string) {
 	const refund =
 		order.refundedMinor >= order.totalMinor
 			? `We have refunded the full ${money} to your card. Banks usually show it within 5 to 10 working days.`
-			: `We will refund the full ${money}; Hollis will confirm by e-mail once it is done.`;
+			: `We will refund the full ${money}; ${carverSubject()} will confirm by e-mail once it is done.`;
 	const text = [
 		`Dear ${order.buyerName},`,
 		'',
@@ -132,7 +133,7 @@ export function pieceGoneMail(order: OrderDetail, origin?: string) {
 		'We are sorry. Nothing will be posted for this order.',
 		refund,
 		'',
-		'If you would like Hollis to carve another one for you, reply to this e-mail.',
+		`If you would like ${carverObject()} to carve another one for you, reply to this e-mail.`,
 		'',
 		`Your order: ${orderLink(order.ref, origin)}`
 	].join('\n');
@@ -142,7 +143,7 @@ export function pieceGoneMail(order: OrderDetail, origin?: string) {
 <ul>${pieces.map((p) => `<li>${esc(p)}</li>`).join('')}</ul>
 <p>We are sorry. Nothing will be posted for this order.</p>
 <p><strong>${esc(refund)}</strong></p>
-<p>If you would like Hollis to carve another one for you, reply to this e-mail.</p>
+<p>If you would like ${esc(carverObject())} to carve another one for you, reply to this e-mail.</p>
 </body></html>`;
 	return {
 		subject: `Order ${order.ref}: the piece was sold before your payment arrived`,

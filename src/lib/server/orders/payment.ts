@@ -8,6 +8,7 @@
  * retried on deadlock. Mail and refunds go out only after that commit.
  */
 import { and, eq } from 'drizzle-orm';
+import { formatRate } from '$lib/money';
 import { styleWords } from '$lib/pattern/styles';
 import { z } from 'zod';
 import { countryName } from '$lib/shipping';
@@ -67,7 +68,7 @@ export async function createCheckoutSession(
 	if (priced.shippingMinor > 0)
 		items.push(item(`Shipping to ${countryName(priced.country)}`, priced.shippingMinor));
 	if (priced.taxMinor > 0)
-		items.push(item(`Sales tax (${(priced.rateBp / 100).toFixed(2)} %)`, priced.taxMinor));
+		items.push(item(`Sales tax (${formatRate(priced.rateBp)})`, priced.taxMinor));
 	return stripe().checkout.sessions.create({
 		mode: 'payment',
 		line_items: items,

@@ -1,3 +1,4 @@
+import { workshopWords } from '$lib/shop-format';
 /**
  * The e-mails the workshop's order work sends: the buyer's "on its way" and "refunded" letters,
  * and the workshop's own alert for each paid order. Each has a text and an HTML part carrying
@@ -29,7 +30,7 @@ export function shippingMail(
 	const text = [
 		`Hello ${order.buyerName},`,
 		'',
-		`Your order ${order.ref} left the Linden Ford workshop today.`,
+		`Your order ${order.ref} left ${workshopWords()} today.`,
 		'',
 		...order.lines.map(lineWords),
 		'',
@@ -42,7 +43,7 @@ export function shippingMail(
 		'Oil the piece now and then and wash it by hand; never leave it to soak.'
 	].join('\n');
 	const html = mailPage(`<h1 style="font-size:24px;margin:0 0 8px">Your order is on its way</h1>
-<p>Hello ${esc(order.buyerName)}, your order <strong>${esc(order.ref)}</strong> left the Linden Ford workshop today.</p>
+<p>Hello ${esc(order.buyerName)}, your order <strong>${esc(order.ref)}</strong> left ${esc(workshopWords())} today.</p>
 <ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
 <p>Carrier: <strong>${esc(shipment.carrier)}</strong><br>Tracking number: <strong>${esc(shipment.trackingNumber)}</strong></p>
 ${track ? `<p><a href="${esc(track)}">Follow the parcel with ${esc(shipment.carrier)}</a></p>` : ''}

@@ -5,13 +5,27 @@ import { getSalesTaxBp, setSalesTaxBp } from '$lib/server/settings';
 import {
 	getAway,
 	getPolicies,
+	getShopFormat,
 	getShopInfo,
+	getShopWords,
 	setAway,
 	setPolicies,
-	setShopInfo
+	setShopFormat,
+	setShopInfo,
+	setShopWords
 } from '$lib/server/shop-settings';
+import { formatClock, timeZoneNames } from '$lib/dates';
+import { MINOR_DIGITS, parsePercent } from '$lib/money';
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
-import { away, policies, rateLine, shopInfo } from '$lib/schemas/settings';
+import {
+	away,
+	LOCALES,
+	policies,
+	rateLine,
+	shopFormat,
+	shopInfo,
+	shopWords
+} from '$lib/schemas/settings';
 import { parseRateInputs, rateInputs, rateInputsFromForm } from './rates-table';
 import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
@@ -22,8 +36,8 @@ const taxSchema = z.object({
 	rate: z
 		.string()
 		.trim()
-		.regex(/^\d{1,2}(\.\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
-		.transform((s) => Math.round(Number(s) * 100))
+		.regex(/^\d{1,2}([.,]\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
+		.transform((s) => parsePercent(s) ?? -1)
 		.pipe(
 			z.number().int().min(0).max(2500, 'That is higher than any sales tax we know of; check it.')
 		)
@@ -33,14 +47,29 @@ const ADDRESS_KEYS = ['name', 'line1', 'line2', 'city', 'region', 'postcode', 'c
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'owner');
-	const [rateBp, shop, awayNow, policy, rates] = await Promise.all([
+	const [rateBp, shop, awayNow, policy, rates, format, words] = await Promise.all([
 		getSalesTaxBp(),
 		getShopInfo(),
 		getAway(),
 		getPolicies(),
-		readShippingRates()
+		readShippingRates(),
+		getShopFormat(),
+		getShopWords()
 	]);
-	return { rateBp, shop, away: awayNow, policies: policy, rates: rateInputs(rates) };
+	const now = new Date();
+	return {
+		rateBp,
+		shop,
+		away: awayNow,
+		policies: policy,
+		rates: rateInputs(rates),
+		format,
+		words,
+		// Each zone with the time it is there now, so the owner can tell theirs at a glance.
+		zones: timeZoneNames().map((name) => ({ name, now: formatClock(now, name) })),
+		locales: [...LOCALES],
+		currencies: Object.keys(MINOR_DIGITS)
+	};
 };
 
 export const actions: Actions = {
@@ -74,6 +103,22 @@ export const actions: Actions = {
 		// Away days are days off for the carving queue: every queued order's date moves.
 		await recomputeReadyBy();
 		return { saved: 'away' };
+	},
+	format: async (event) => {
+		requireRole(event, 'owner');
+		const parsed = await parseForm(event.request, shopFormat, { extra: { section: 'format' } });
+		if (!parsed.ok) return parsed.failure;
+		await setShopFormat(parsed.data);
+		// "Today" may now be another day: every queued order's date is worked out again.
+		await recomputeReadyBy();
+		return { saved: 'format' };
+	},
+	words: async (event) => {
+		requireRole(event, 'owner');
+		const parsed = await parseForm(event.request, shopWords, { extra: { section: 'words' } });
+		if (!parsed.ok) return parsed.failure;
+		await setShopWords(parsed.data);
+		return { saved: 'words' };
 	},
 	policies: async (event) => {
 		requireRole(event, 'owner');

@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import { ZONES, type RateRow, type Zone } from '$lib/shipping';
 import type { RateLine } from '$lib/schemas/settings';
 import { formText } from '$lib/forms';
+import { majorText } from '$lib/money';
 
 /** The zones as the owner reads them. */
 export const ZONE_LABELS: Record<Zone, string> = {
@@ -23,7 +24,7 @@ export function rateInputs(rows: RateRow[]): RateInput[] {
 		.map((r) => ({
 			zone: r.zone,
 			upToGrams: String(r.upToGrams),
-			price: (r.priceMinor / 100).toFixed(2)
+			price: majorText(r.priceMinor)
 		}));
 }
 

@@ -1,0 +1,133 @@
+/**
+ * Booth sales near midnight on the real database: the booth's "today", the report by hour and the
+ * CSV all use the shop's zone (America/New_York, the demo's; EDT is UTC−4 in June per the IANA tz
+ * database), and the CSV's times are ISO 8601 local time with offset.
+ */
+import Papa from 'papaparse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { db } from '../../src/lib/server/db';
+import * as s from '../../src/lib/server/db/schema';
+import { createFair } from '../../src/lib/server/fairs/fairs';
+import { loadOut } from '../../src/lib/server/fairs/load-out';
+import { syncSales } from '../../src/lib/server/fairs/booth-sync';
+import { boothView } from '../../src/lib/server/fairs/booth-view';
+import { fairCsv, fairReport } from '../../src/lib/server/fairs/report';
+import { fairFormSchema } from '../../src/lib/schemas/fairs';
+import { DEFAULT_FORMAT, useShopFormat } from '../../src/lib/shop-format';
+
+const tag = `clk${process.pid}${Date.now() % 100000}`;
+const pieceSlug = `${tag}-orn`;
+const woodSlug = `${tag}-wood`;
+let fairId = 0;
+let owner: { id: string; role: 'owner' };
+
+const sale = (n: number, at: string) => ({
+	id: `${tag}-sale-${n}`,
+	at,
+	lines: [{ pieceSlug, woodSlug, quantity: 1 }],
+	discountMinor: 0,
+	method: 'cash',
+	tenderedMinor: 5000
+});
+
+beforeAll(async () => {
+	useShopFormat({ timeZone: 'America/New_York', locale: 'en-US', currency: 'USD' });
+	const [{ id: woodId }] = await db
+		.insert(s.woods)
+		.values({
+			slug: woodSlug,
+			name: 'Test basswood',
+			botanicalName: 'Tilia americana',
+			specificGravityMilli: 370,
+			densityKgM3: 414,
+			sideHardnessN: 1800,
+			priceAddOnMinor: 0,
+			toneLight: '#f1e4c8',
+			toneDark: '#c9ae82',
+			character: 'test'
+		})
+		.$returningId();
+	const [{ id: pieceId }] = await db
+		.insert(s.pieces)
+		.values({
+			slug: pieceSlug,
+			title: 'Test ornament',
+			kind: 'ornament',
+			summary: 'test',
+			description: 'test',
+			lengthMm: 75,
+			widthMm: 75,
+			thicknessMm: 6,
+			basePriceMinor: 2000,
+			personalisable: false,
+			leadDays: 10,
+			pattern: { diameterMm: 50, count: 1 },
+			createdAt: new Date()
+		})
+		.$returningId();
+	await db.insert(s.pieceWoods).values({ pieceId, woodId });
+	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 10 });
+	const users = await db.select({ id: s.users.id, role: s.users.role }).from(s.users);
+	owner = { id: users.find((u) => u.role === 'owner')!.id, role: 'owner' };
+	fairId = await createFair(
+		fairFormSchema.parse({
+			name: `${tag} night market`,
+			place: 'Test Hall',
+			startsOn: '2026-06-06',
+			endsOn: '2026-06-07',
+			boothFee: '0',
+			otherCosts: '',
+			salesTax: '0',
+			cashFloat: '50',
+			cardFee: '0',
+			helperDiscount: '10',
+			openHours: '8'
+		})
+	);
+	await loadOut(fairId, [{ pieceId, woodId, quantity: 5 }], owner.id);
+	const r = await syncSales(
+		fairId,
+		[
+			// Saturday June 6, 22:10 and 23:30 EDT; then Sunday June 7, 00:30 EDT.
+			sale(1, '2026-06-07T02:10:00Z'),
+			sale(2, '2026-06-07T03:30:00Z'),
+			sale(3, '2026-06-07T04:30:00Z')
+		],
+		owner
+	);
+	expect(r.rejected).toEqual([]);
+});
+afterAll(() => useShopFormat(DEFAULT_FORMAT));
+
+describe('a booth sale at 23:30 in the workshop zone', () => {
+	it("counts on that day in the booth's today", async () => {
+		const sat = await boothView(fairId, true, '2026-06-06');
+		const sun = await boothView(fairId, true, '2026-06-07');
+		const cash = (v: typeof sat) => v.day.find((d) => d.method === 'cash')!;
+		expect(cash(sat)).toMatchObject({ count: 2, totalMinor: 4000 });
+		expect(cash(sun)).toMatchObject({ count: 1, totalMinor: 2000 });
+	});
+
+	it('charts by the hour on the shop clock and exports local time with its offset', async () => {
+		const r = await fairReport(fairId);
+		expect(r.byHour).toEqual([
+			{ hour: 0, totalMinor: 2000 },
+			{ hour: 22, totalMinor: 2000 },
+			{ hour: 23, totalMinor: 2000 }
+		]);
+		const rows = Papa.parse<Record<string, string>>(fairCsv(r), { header: true }).data.filter(
+			(row) => row.id
+		);
+		expect(rows.map((row) => row.sold_at).sort()).toEqual([
+			'2026-06-06T22:10:00-04:00',
+			'2026-06-06T23:30:00-04:00',
+			'2026-06-07T00:30:00-04:00'
+		]);
+		// Still the same moments: the offset gets back to the stored UTC time.
+		expect(rows.map((row) => new Date(row.sold_at).toISOString()).sort()).toEqual([
+			'2026-06-07T02:10:00.000Z',
+			'2026-06-07T03:30:00.000Z',
+			'2026-06-07T04:30:00.000Z'
+		]);
+	});
+});
