@@ -15,6 +15,8 @@ export type CacheRequest = {
 	key: string;
 	/** A client-navigation data request (`…/__data.json`), answered with JSON, never HTML. */
 	data: boolean;
+	/** A piece page: its ready-by date follows the carving queue, which orders move. */
+	piece: boolean;
 };
 
 const DATA_SUFFIX = '/__data.json';
@@ -61,7 +63,8 @@ export function pageCacheKey(url: URL, knownWoods: ReadonlySet<string>): CacheRe
 	if (!isPublicPage(page) || page.includes('__data.json')) return null;
 	const query = page === '/shop' ? canonicalShopQuery(url.searchParams, knownWoods) : '';
 	const flags = data ? ` ${nodeFlags(url.searchParams.get(INVALIDATED))}` : '';
-	return { key: `${data ? 'data' : 'page'} ${page}?${query}${flags}`, data };
+	const piece = /^\/shop\/[^/]+\/?$/.test(page);
+	return { key: `${data ? 'data' : 'page'} ${page}?${query}${flags}`, data, piece };
 }
 
 /** Whether a stored answer's content type fits the request: JSON for data, HTML for a page. */

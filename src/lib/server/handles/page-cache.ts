@@ -44,6 +44,12 @@ type Stored = {
 	notModified: Headers;
 };
 
+/**
+ * How long a piece page is kept: its "ready by" date comes from the carving queue, and order
+ * moves are kept out of the catalogue version so they do not drop every page.
+ */
+const QUEUE_DATE_MS = 60_000;
+
 let version = '';
 const pages = new LRUCache<string, Stored>({
 	maxSize: MAX_BYTES,
@@ -181,7 +187,10 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	const bytes = new Uint8Array(await response.arrayBuffer());
 	// Only keep what was rendered under the version we looked up; a page begun before an edit
 	// and finished after it would otherwise outlive the edit.
-	if (v === version) pages.set(target.key, store(response, bytes, target.data));
+	if (v === version) {
+		const stored = store(response, bytes, target.data);
+		pages.set(target.key, stored, target.piece ? { ttl: QUEUE_DATE_MS } : undefined);
+	}
 	const out = new Headers(response.headers);
 	out.set('x-page-cache', 'miss');
 	return new Response(bytes, { status: response.status, headers: out });
