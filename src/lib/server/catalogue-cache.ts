@@ -1,4 +1,5 @@
 import { eq } from 'drizzle-orm';
+import { LRUCache } from 'lru-cache';
 import { db } from './db';
 import { catalogueVersion as catalogueVersionRow } from './db/schema';
 
@@ -23,7 +24,8 @@ const MAX_ENTRIES = 500;
 let version: string | null = null;
 let checkedAt = 0;
 let checking: Promise<string> | null = null;
-const entries = new Map<string, Promise<unknown>>();
+// Least recently used go first, so made-up addresses (a piece slug nobody sells) cannot empty it.
+const entries = new LRUCache<string, Promise<unknown>>({ max: MAX_ENTRIES });
 
 /** The counter's value; a missing row (a database restored without it) reads as 0. */
 export async function readVersion(): Promise<string> {
@@ -56,7 +58,6 @@ export async function cachedCatalogue<T>(key: string, load: () => Promise<T>): P
 	await currentVersion();
 	const hit = entries.get(key) as Promise<T> | undefined;
 	if (hit) return hit;
-	if (entries.size >= MAX_ENTRIES) entries.clear();
 	const p = load();
 	entries.set(key, p);
 	p.catch(() => entries.delete(key));
