@@ -173,9 +173,11 @@ try {
 	say('targets: cached ≥ 0.5 of bare, with a basket ≥ 0.4 of bare');
 
 	say('\n== Unique-address flood: 100 connections of never-seen query strings, 10 of visitors');
+	// Renders still queued from the basket runs would otherwise land in this one's figures.
+	await sleep(5000);
 	const uniqueFlood = await uniqueAddressFlood(base, PIECE, DURATION_S);
 	say(
-		`visitors' /shop p99 ${uniqueFlood.cachedP99Ms} ms, p50 ${uniqueFlood.cachedP50Ms} ms, ${uniqueFlood.cachedReqPerSec} req/s; flood ${uniqueFlood.floodReqPerSec} req/s, non-2xx ${uniqueFlood.non2xx} (target p99 < 100 ms)`
+		`visitors' /shop p99 ${uniqueFlood.cachedP99Ms} ms, p50 ${uniqueFlood.cachedP50Ms} ms, ${uniqueFlood.cachedReqPerSec} req/s; flood ${uniqueFlood.floodReqPerSec} req/s, non-2xx ${uniqueFlood.non2xx}, errors ${uniqueFlood.errors}, timeouts ${uniqueFlood.timeouts} (target p99 < 100 ms)`
 	);
 
 	say('\n== Catalogue version check (the query each process runs at most once a second)');

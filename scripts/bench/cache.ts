@@ -29,6 +29,8 @@ export type UniqueFlood = {
 	cachedP50Ms: number;
 	cachedReqPerSec: number;
 	non2xx: number;
+	errors: number;
+	timeouts: number;
 };
 
 /**
@@ -64,7 +66,9 @@ export async function uniqueAddressFlood(
 		cachedP99Ms: visitors.latency.p99,
 		cachedP50Ms: visitors.latency.p50,
 		cachedReqPerSec: Math.round(visitors.requests.average),
-		non2xx: flood.non2xx + visitors.non2xx
+		non2xx: flood.non2xx + visitors.non2xx,
+		errors: flood.errors + visitors.errors,
+		timeouts: flood.timeouts + visitors.timeouts
 	};
 }
 
