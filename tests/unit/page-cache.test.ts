@@ -115,3 +115,55 @@ describe('page cache answers', () => {
 		expect(withCookie.rendered).toBe(1);
 	});
 });
+
+describe('page cache keys by what the client asked', () => {
+	/** The event SvelteKit builds for a data request: `event.url` without its suffix and flags. */
+	async function ask(sent: string, seen: string, body: string, type: string) {
+		let rendered = 0;
+		const event = {
+			request: new Request(`http://localhost${sent}`),
+			url: new URL(`http://localhost${seen}`)
+		} as unknown as RequestEvent;
+		const resolve = (): Promise<Response> => {
+			rendered++;
+			return Promise.resolve(
+				new Response(body, { headers: { 'content-type': type, 'content-security-policy': HASHED } })
+			);
+		};
+		const res: Response = await pageCacheHandle({ event, resolve });
+		return { res, rendered, text: await res.text() };
+	}
+
+	it('never answers a data request with a stored page, nor a page with stored data', async () => {
+		const path = freshPath();
+		const json = '{"type":"data","nodes":[]}';
+		const data = `${path}/__data.json?x-sveltekit-invalidated=011`;
+		expect((await ask(data, path, json, 'application/json')).rendered).toBe(1);
+		const page = await ask(path, path, PAGE, 'text/html');
+		expect(page.rendered).toBe(1);
+		expect(page.text).toBe(PAGE);
+		const dataAgain = await ask(data, path, PAGE, 'text/html');
+		expect(dataAgain.rendered).toBe(0);
+		expect(dataAgain.text).toBe(json);
+		const pageAgain = await ask(path, path, json, 'application/json');
+		expect(pageAgain.rendered).toBe(0);
+		expect(pageAgain.text).toBe(PAGE);
+	});
+
+	it('does not keep an answer whose type does not fit the request', async () => {
+		const path = freshPath();
+		await ask(path, path, '{"a":1}', 'application/json');
+		expect((await ask(path, path, PAGE, 'text/html')).rendered).toBe(1);
+		const data = `${path}/__data.json`;
+		await ask(data, path, PAGE, 'text/html');
+		expect((await ask(data, path, '{}', 'application/json')).rendered).toBe(1);
+	});
+
+	it('shares one entry between addresses that differ only in unread parameters', async () => {
+		const path = freshPath();
+		await ask(`${path}?utm_source=x`, path, PAGE, 'text/html');
+		const other = await ask(`${path}?junk=${Date.now()}`, path, 'other', 'text/html');
+		expect(other.rendered).toBe(0);
+		expect(other.text).toBe(PAGE);
+	});
+});

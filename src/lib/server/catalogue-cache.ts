@@ -1,32 +1,22 @@
-import { sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
+import { LRUCache } from 'lru-cache';
 import { db } from './db';
+import { catalogueVersion as catalogueVersionRow } from './db/schema';
 
 /**
  * In-process cache for catalogue reads (the shop list, piece pages, filter options).
  *
  * The catalogue changes only when the owner edits it or stock moves, yet every shop visit read
- * it afresh. Each process now keeps the answers in memory and asks MariaDB, at most once per
- * `CHECK_MS`, for a checksum of the catalogue tables. Any write to them — by this process,
- * another app process, a script or a hand-typed UPDATE — changes the checksum, so every process
- * drops its copies within `CHECK_MS` without the writers having to remember anything.
- * CHECKSUM TABLE reads each table once; on a handful of small tables that is well under a
- * millisecond, and it is a consistent read that takes no row locks.
+ * it afresh. Each process now keeps the answers in memory and reads, at most once per
+ * `CHECK_MS`, one counter row (`catalogue_version`) that database triggers bump in the same
+ * transaction as every write to the tables public pages show (drizzle/0011): a write by this
+ * process, another app process, a script or a hand-typed UPDATE changes it, so every process
+ * drops its copies within `CHECK_MS` without the writers having to remember anything. Reading
+ * one row by primary key costs the same at any catalogue or order history size, and order
+ * status moves are not counted, so they never drop the public pages.
  *
  * Prices shown here are never trusted: checkout re-reads and re-prices under lock.
  */
-// `settings` too: the public pages cached whole (handles/page-cache.ts) show the shop's name,
-// address and away notice; `fairs` for the home page's next fair; `order_history` because every
-// status move changes the carving queue, and piece pages date a new piece from that queue.
-const CATALOGUE_TABLES = [
-	'pieces',
-	'piece_woods',
-	'photos',
-	'stock',
-	'woods',
-	'settings',
-	'fairs',
-	'order_history'
-];
 const CHECK_MS = 1000;
 /** Entries kept per process; the shop's filter combinations are few, but bound it anyway. */
 const MAX_ENTRIES = 500;
@@ -34,13 +24,16 @@ const MAX_ENTRIES = 500;
 let version: string | null = null;
 let checkedAt = 0;
 let checking: Promise<string> | null = null;
-const entries = new Map<string, Promise<unknown>>();
+// Least recently used go first, so made-up addresses (a piece slug nobody sells) cannot empty it.
+const entries = new LRUCache<string, Promise<unknown>>({ max: MAX_ENTRIES });
 
-async function readVersion(): Promise<string> {
-	const [rows] = (await db.execute(
-		sql.raw(`CHECKSUM TABLE ${CATALOGUE_TABLES.map((t) => `\`${t}\``).join(', ')}`)
-	)) as unknown as [{ Checksum: number | string | null }[]];
-	return rows.map((r) => String(r.Checksum)).join(':');
+/** The counter's value; a missing row (a database restored without it) reads as 0. */
+export async function readVersion(): Promise<string> {
+	const [row] = await db
+		.select({ n: catalogueVersionRow.n })
+		.from(catalogueVersionRow)
+		.where(eq(catalogueVersionRow.id, 1));
+	return String(row?.n ?? 0);
 }
 
 /** The catalogue's current version, asked of the database at most once per CHECK_MS. */
@@ -65,7 +58,6 @@ export async function cachedCatalogue<T>(key: string, load: () => Promise<T>): P
 	await currentVersion();
 	const hit = entries.get(key) as Promise<T> | undefined;
 	if (hit) return hit;
-	if (entries.size >= MAX_ENTRIES) entries.clear();
 	const p = load();
 	entries.set(key, p);
 	p.catch(() => entries.delete(key));

@@ -10,7 +10,8 @@ import {
 	primaryKey,
 	uniqueIndex,
 	index,
-	bigint
+	bigint,
+	tinyint
 } from 'drizzle-orm/mysql-core';
 import { json } from './json';
 import { orderStatuses, type OrderStatus } from '../../order-status';
@@ -300,6 +301,16 @@ export const shippingRates = mysqlTable('shipping_rates', {
 export const settings = mysqlTable('settings', {
 	key: varchar('key', { length: 60 }).primaryKey(),
 	value: json('value').notNull()
+});
+
+/**
+ * One row counting writes to what public pages show (catalogue, settings, fairs, shipping
+ * rates): database triggers bump it in the writer's own transaction (drizzle/0010, custom
+ * SQL), so the page cache learns of any change by reading one row. Orders are not counted.
+ */
+export const catalogueVersion = mysqlTable('catalogue_version', {
+	id: tinyint('id').primaryKey(),
+	n: bigint('n', { mode: 'number', unsigned: true }).notNull().default(0)
 });
 
 export const fairs = mysqlTable('fairs', {

@@ -1,9 +1,11 @@
 import { createHash } from 'node:crypto';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import type { Handle } from '@sveltejs/kit';
+import { LRUCache } from 'lru-cache';
 import { catalogueVersion } from '$lib/server/catalogue-cache';
 import { today } from '$lib/dates';
-import { isPublicPage } from './public-pages';
+import { woodFilterOptions } from '$lib/server/catalogue';
+import { fitsRequest, pageCacheKey } from './page-cache-key';
 import { scriptPreloadsIntoHead } from './link-preloads';
 
 /**
@@ -11,10 +13,13 @@ import { scriptPreloadsIntoHead } from './link-preloads';
  *
  * Such a visitor gets the same bytes as every other one until the owner changes the catalogue or
  * the shop's settings, yet each request ran the loads, the queries and the server render (the
- * piece page draws its rosettes twice). The key is the URL plus the catalogue version — the
- * MariaDB checksum of the catalogue and settings tables, asked at most once a second — plus the
- * shop's day, in its zone (the away notice and "ready to ship by" move with the date). An edit made through any app
- * process, a script or by hand changes the checksum, so every process drops its pages within a
+ * piece page draws its rosettes twice). The key is what the client asked (page-cache-key.ts: the
+ * path as sent, `/__data.json` included, and the query parameters the page reads), and an answer
+ * is kept only when its type fits the request (HTML for a page, JSON for data). Entries live
+ * until the catalogue version changes (a counter row that triggers bump in the same transaction
+ * as any catalogue or settings write, asked at most once a second) or the shop's day turns, in
+ * its zone (the away notice and "ready to ship by" move with the date). An edit made through any
+ * app process, a script or by hand bumps the counter, so every process drops its pages within a
  * second. Anyone with a cookie (signed in, or with a basket) is rendered afresh, as before.
  *
  * A hit does as little as it can, since it is most of the shop's traffic: the page's
@@ -26,7 +31,8 @@ import { scriptPreloadsIntoHead } from './link-preloads';
  * Sits before the ETag handle: a miss goes through it, so the stored headers carry the ETag, and a
  * hit answers If-None-Match itself.
  */
-const MAX_PAGES = 300;
+/** Bytes kept per process (every stored encoding counted); least recently used go first. */
+const MAX_BYTES = 48 * 1024 * 1024;
 
 type Bytes = Uint8Array<ArrayBuffer>;
 type Encoded = { body: Bytes; headers: Headers };
@@ -39,8 +45,29 @@ type Stored = {
 	notModified: Headers;
 };
 
+/**
+ * How long a piece page is kept: its "ready by" date comes from the carving queue, and order
+ * moves are kept out of the catalogue version so they do not drop every page.
+ */
+const QUEUE_DATE_MS = 60_000;
+
 let version = '';
-const pages = new Map<string, Stored>();
+const pages = new LRUCache<string, Stored>({
+	maxSize: MAX_BYTES,
+	sizeCalculation: (s) =>
+		s.identity.body.byteLength + s.gzip.body.byteLength + s.br.body.byteLength + 1024
+});
+
+const NO_WOODS: ReadonlySet<string> = new Set();
+
+/** The woods the shop can be filtered by, as a set, once per catalogue version. */
+const woodSets = new WeakMap<object, ReadonlySet<string>>();
+async function knownWoods(): Promise<ReadonlySet<string>> {
+	const options = await woodFilterOptions();
+	let set = woodSets.get(options);
+	if (!set) woodSets.set(options, (set = new Set(options.map((w) => w.slug))));
+	return set;
+}
 
 function encoded(base: Headers, body: Bytes, encoding: string | null): Encoded {
 	const headers = new Headers(base);
@@ -50,13 +77,16 @@ function encoded(base: Headers, body: Bytes, encoding: string | null): Encoded {
 }
 
 /** Builds everything a hit needs once, so answering is a look-up. */
-function store(response: Response, rendered: Bytes): Stored {
+function store(response: Response, rendered: Bytes, data: boolean): Stored {
 	const base = new Headers(response.headers);
 	base.set('x-page-cache', 'hit');
 	base.append('vary', 'Accept-Encoding');
-	const html = new TextDecoder().decode(rendered);
-	const moved = scriptPreloadsIntoHead(base, html);
-	const bytes = moved === html ? rendered : new TextEncoder().encode(moved);
+	let bytes = rendered;
+	if (!data) {
+		const html = new TextDecoder().decode(rendered);
+		const moved = scriptPreloadsIntoHead(base, html);
+		if (moved !== html) bytes = new TextEncoder().encode(moved);
+	}
 	// The tag the ETag handle gave the rendered page, for the bytes actually answered.
 	let etag = response.headers.get('etag');
 	if (etag && bytes !== rendered) {
@@ -113,36 +143,42 @@ function answer(stored: Stored, request: Request): Response {
 }
 
 export const pageCacheHandle: Handle = async ({ event, resolve }) => {
-	const { request, url } = event;
+	const { request } = event;
 	const method = request.method;
 	if (
 		(method !== 'GET' && method !== 'HEAD') ||
 		request.headers.has('cookie') ||
-		request.headers.has('authorization') ||
-		!isPublicPage(url.pathname)
+		request.headers.has('authorization')
 	) {
 		return resolve(event);
 	}
+	// The address as the client sent it: SvelteKit has taken `/__data.json` and its own
+	// parameters out of `event.url`.
+	const asked = new URL(request.url);
+	if (pageCacheKey(asked, NO_WOODS) === null) return resolve(event);
 	let v: string;
+	let target: ReturnType<typeof pageCacheKey>;
 	try {
 		v = `${await catalogueVersion()}|${today()}`;
+		target = pageCacheKey(asked, await knownWoods());
 	} catch {
 		// No version, no cache: the page renders as if uncached, so its loads meet the same error
 		// inside SvelteKit (a 503 while the database is down) and every outer handle still runs.
 		return resolve(event);
 	}
+	if (!target) return resolve(event);
 	if (v !== version) {
 		pages.clear();
 		version = v;
 	}
-	const key = url.pathname + url.search;
-	const hit = pages.get(key);
+	const hit = pages.get(target.key);
 	if (hit) return answer(hit, request);
 
 	const response = await resolve(event);
 	if (
 		method !== 'GET' ||
 		response.status !== 200 ||
+		!fitsRequest(response.headers.get('content-type'), target.data) ||
 		response.headers.has('set-cookie') ||
 		response.headers.has('content-encoding') ||
 		/'nonce-/.test(response.headers.get('content-security-policy') ?? '')
@@ -153,8 +189,8 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	// Only keep what was rendered under the version we looked up; a page begun before an edit
 	// and finished after it would otherwise outlive the edit.
 	if (v === version) {
-		if (pages.size >= MAX_PAGES) pages.clear();
-		pages.set(key, store(response, bytes));
+		const stored = store(response, bytes, target.data);
+		pages.set(target.key, stored, target.piece ? { ttl: QUEUE_DATE_MS } : undefined);
 	}
 	const out = new Headers(response.headers);
 	out.set('x-page-cache', 'miss');

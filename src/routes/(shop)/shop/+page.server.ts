@@ -3,7 +3,10 @@ import { parseShopQuery } from '$lib/schemas/shop';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url }) => {
-	const query = parseShopQuery(url.searchParams);
-	const [pieces, woods] = await Promise.all([listPieces(query), woodFilterOptions()]);
-	return { query, pieces, woods };
+	const woods = await woodFilterOptions();
+	const asked = parseShopQuery(url.searchParams);
+	// A wood no piece is made of shows the whole shop, as the page cache's key reads it
+	// (handles/page-cache-key.ts), so made-up woods cannot each become a page of their own.
+	const query = woods.some((w) => w.slug === asked.wood) ? asked : { ...asked, wood: undefined };
+	return { query, pieces: await listPieces(query), woods };
 };
