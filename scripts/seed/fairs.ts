@@ -149,6 +149,12 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 				endsOn: iso(new Date(start.getTime() + (d.days - 1) * DAY))
 			})
 			.$returningId();
+		// The demo helper sells at every demo fair (fairs have their own helpers).
+		const demoHelper = ids.userIds['wren@chipstall.test'];
+		if (demoHelper)
+			await tx
+				.insert(schema.fairHelpers)
+				.values({ fairId: id, userId: demoHelper, addedAt: start });
 		const key = (p: string, w: string) => `${p}/${w}`;
 		const sold = new Map<string, number>();
 		for (const s of d.sales)
