@@ -35,13 +35,14 @@ export function wholeFairCounted(expectedMinor: number, dayGaps: (number | null)
 export type CountCheck = { ok: boolean; message: string };
 
 /**
- * What the helper hears after saving: nothing to do when it adds up; otherwise where the gap is
- * and, while a recount is left, the question. `money` formats an amount (the shop's formatter).
+ * What the counter hears after saving: nothing to do when it adds up; otherwise where the gap is
+ * and, while the helper's one recount is left, the question ('none': the owner, who may always
+ * correct). `money` formats an amount (the shop's formatter).
  */
 export function countCheck(
 	cashGap: number | null,
 	pieceGaps: number,
-	recountLeft: boolean,
+	recount: 'left' | 'used' | 'none',
 	money: (minor: number) => string
 ): CountCheck {
 	const parts: string[] = [];
@@ -54,8 +55,11 @@ export function countCheck(
 	const first = said.charAt(0).toUpperCase() + said.slice(1);
 	return {
 		ok: false,
-		message: recountLeft
-			? `${first} — count again?`
-			: `${first}. Counted twice: the owner will look at it.`
+		message:
+			recount === 'left'
+				? `${first} — count again?`
+				: recount === 'used'
+					? `${first}. Counted twice: the owner will look at it.`
+					: `${first}.`
 	};
 }

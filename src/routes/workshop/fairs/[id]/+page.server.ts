@@ -3,7 +3,11 @@ import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
 import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
 import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
-import { assertFairAccess, fairHelperChoices, setFairHelpers } from '$lib/server/fairs/fair-helpers';
+import {
+	assertFairAccess,
+	fairHelperChoices,
+	setFairHelpers
+} from '$lib/server/fairs/fair-helpers';
 import { fairFormSchema, loadOutLineSchema } from '$lib/schemas/fairs';
 import { fairFormValues } from '$lib/fair-form-values';
 import { formTexts, parseForm } from '$lib/forms';

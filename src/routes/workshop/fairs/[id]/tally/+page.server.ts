@@ -62,7 +62,7 @@ export const load: PageServerLoad = async (event) => {
 			? countCheck(
 					d.result.cash.difference,
 					d.result.stockProblems,
-					!closed && (d.tally?.counts ?? 0) < 2,
+					owner || closed ? 'none' : (d.tally?.counts ?? 0) < 2 ? 'left' : 'used',
 					money
 				)
 			: null,
