@@ -54,7 +54,9 @@ export async function fairHelperChoices(fairId: number) {
 
 /** Names exactly these helpers for the fair (the owner's choice replaces the old list). */
 export async function setFairHelpers(fairId: number, userIds: string[]) {
-	await getFair(fairId);
+	const fair = await getFair(fairId);
+	if (fair.closedAt)
+		throw new FairError('This fair is closed; who sold there stays as it was.', 409);
 	const wanted = [...new Set(userIds)];
 	await withRetry(() =>
 		db.transaction(async (tx) => {
