@@ -3,23 +3,26 @@
 /// <reference lib="esnext" />
 /// <reference lib="webworker" />
 /**
- * Lets the booth screen load with no signal: the app's built files are cached at install, and
- * each booth page is cached by the page itself (BOOTH_PAGES) when it opens online. Nothing else
- * is touched: the shop and the rest of the workshop always go to the network.
+ * Lets a helper work with no signal. The app's built files and the offline page are stored at
+ * install. The pages a helper needs at the booth (the booth start page, each fair's booth and
+ * tally) are kept whenever they open with signal — the page and its data, so both a reload and
+ * an in-app tap work without signal. Any other workshop page, without signal, shows the offline
+ * page (which says what still works) instead of an error. The shop is left to the network.
  */
 import { build, files, version } from '$service-worker';
+import { KEPT_PAGES, OFFLINE_PAGE, isKeptPage, offlineAddress } from '$lib/offline-pages';
 
 const sw = self as unknown as ServiceWorkerGlobalScope;
 const ASSETS_CACHE = `chipstall-assets-${version}`;
-const BOOTH_PAGES = 'chipstall-booth-pages';
 const ASSETS = new Set([...build, ...files]);
-const BOOTH = /^\/workshop\/fairs\/\d+\/booth\/?$/;
+const DATA = '/__data.json';
+const INVALIDATED = 'x-sveltekit-invalidated';
 
 sw.addEventListener('install', (event) => {
 	event.waitUntil(
 		caches
 			.open(ASSETS_CACHE)
-			.then((c) => c.addAll([...ASSETS]))
+			.then((c) => c.addAll([...ASSETS, OFFLINE_PAGE]))
 			.then(() => sw.skipWaiting())
 	);
 });
@@ -31,7 +34,10 @@ sw.addEventListener('activate', (event) => {
 			.then((keys) =>
 				Promise.all(
 					keys
-						.filter((k) => k.startsWith('chipstall-assets-') && k !== ASSETS_CACHE)
+						// Kept pages name the old build's files, which go with the old cache.
+						.filter(
+							(k) => (k.startsWith('chipstall-assets-') && k !== ASSETS_CACHE) || k === KEPT_PAGES
+						)
 						.map((k) => caches.delete(k))
 				)
 			)
@@ -39,30 +45,90 @@ sw.addEventListener('activate', (event) => {
 	);
 });
 
+/** The address a kept response is stored under: SvelteKit's own query parameter left out. */
+function keyOf(url: URL): string {
+	const u = new URL(url);
+	u.searchParams.delete(INVALIDATED);
+	return u.href;
+}
+
+function dataUrlOf(page: URL): URL {
+	const u = new URL(page);
+	u.pathname = u.pathname.replace(/\/$/, '') + DATA;
+	return u;
+}
+
+/** Told to SvelteKit's router as a redirect, so an in-app tap lands on the offline page. */
+function offlineData(from: string): Response {
+	const body = JSON.stringify({ type: 'redirect', location: offlineAddress(from) });
+	return new Response(body + '\n', { headers: { 'content-type': 'application/json' } });
+}
+
+async function offlinePage(): Promise<Response> {
+	const hit = await caches.match(OFFLINE_PAGE);
+	return (
+		hit ??
+		new Response('No signal. Open the booth again when the phone has signal.', {
+			status: 503,
+			headers: { 'content-type': 'text/plain; charset=utf-8' }
+		})
+	);
+}
+
+/** Stores a good answer; a redirect (signed out) or an error is never kept. */
+async function keep(key: string, res: Response) {
+	if (!res.ok || res.redirected || res.type !== 'basic') return;
+	const text = await res.clone().text();
+	if (text.startsWith('{"type":"redirect"')) return;
+	const cache = await caches.open(KEPT_PAGES);
+	await cache.put(key, new Response(text, { status: res.status, headers: res.headers }));
+}
+
+async function keptPage(event: FetchEvent, url: URL, from: string, isData: boolean) {
+	const key = keyOf(url);
+	try {
+		// Data is asked for whole (every layout's), so the stored copy answers any later tap.
+		const res = await fetch(isData ? new Request(key) : event.request);
+		event.waitUntil(keep(key, res.clone()));
+		if (!isData && res.ok) {
+			const data = dataUrlOf(url);
+			event.waitUntil(
+				fetch(data.href)
+					.then((r) => keep(data.href, r))
+					.catch(() => {})
+			);
+		}
+		return res;
+	} catch {
+		const hit = await caches.match(key, { cacheName: KEPT_PAGES });
+		if (hit) return hit;
+		return isData ? offlineData(from) : offlinePage();
+	}
+}
+
 sw.addEventListener('fetch', (event) => {
 	const req = event.request;
-	if (req.method !== 'GET') return;
 	const url = new URL(req.url);
 	if (url.origin !== sw.location.origin) return;
+	if (req.method === 'POST' && url.pathname === '/signout') {
+		// Pages kept for one person are not shown to the next one on this phone.
+		event.waitUntil(caches.delete(KEPT_PAGES));
+		return;
+	}
+	if (req.method !== 'GET') return;
 	if (ASSETS.has(url.pathname)) {
 		event.respondWith(caches.match(url.pathname).then((hit) => hit ?? fetch(req)));
 		return;
 	}
-	if (BOOTH.test(url.pathname) && req.mode === 'navigate') {
-		// Network first so prices and counts are fresh; the stored copy when there is no signal.
-		event.respondWith(
-			fetch(req)
-				.then(async (res) => {
-					if (res.ok) await (await caches.open(BOOTH_PAGES)).put(url.pathname, res.clone());
-					return res;
-				})
-				.catch(async () => {
-					const hit = await caches.match(url.pathname);
-					return (
-						hit ??
-						new Response('No signal, and this booth was not opened here before.', { status: 503 })
-					);
-				})
-		);
+	if (!url.pathname.startsWith('/workshop')) return;
+	const isData = url.pathname.endsWith(DATA);
+	const page = isData ? url.pathname.slice(0, -DATA.length) || '/' : url.pathname;
+	const from = page + new URL(keyOf(url)).search;
+	if (isKeptPage(page)) {
+		event.respondWith(keptPage(event, url, from, isData));
+	} else if (isData) {
+		event.respondWith(fetch(req).catch(() => offlineData(from)));
+	} else if (req.mode === 'navigate') {
+		event.respondWith(fetch(req).catch(() => offlinePage()));
 	}
 });

@@ -149,6 +149,12 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 				endsOn: iso(new Date(start.getTime() + (d.days - 1) * DAY))
 			})
 			.$returningId();
+		// The demo helper sells at every demo fair (fairs have their own helpers).
+		const demoHelper = ids.userIds['wren@chipstall.test'];
+		if (demoHelper)
+			await tx
+				.insert(schema.fairHelpers)
+				.values({ fairId: id, userId: demoHelper, addedAt: start });
 		const key = (p: string, w: string) => `${p}/${w}`;
 		const sold = new Map<string, number>();
 		for (const s of d.sales)
@@ -244,15 +250,19 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 		if (!d.closed) continue;
 
 		const closeAt = at(18);
-		await tx.insert(schema.tallies).values({
-			fairId: id,
-			day: iso(new Date(start.getTime() + (d.days - 1) * DAY)),
-			cashCountedMinor: (d.fair.cashFloatMinor ?? 0) + cash - (d.cashShortMinor ?? 0),
-			cashPaidOutMinor: 0,
-			cardReportedMinor: card,
-			createdBy: helper,
-			createdAt: closeAt
-		});
+		// Every demo sale is on the fair's first day, so that day's cash-up holds them all.
+		const [{ id: tallyId }] = await tx
+			.insert(schema.tallies)
+			.values({
+				fairId: id,
+				day: iso(start),
+				cashCountedMinor: (d.fair.cashFloatMinor ?? 0) + cash - (d.cashShortMinor ?? 0),
+				cashPaidOutMinor: 0,
+				cardReportedMinor: card,
+				createdBy: helper,
+				createdAt: closeAt
+			})
+			.$returningId();
 		for (const [p, w, q] of d.loaded) {
 			const left = q - (sold.get(key(p, w)) ?? 0);
 			const back = left - (d.missing?.[key(p, w)] ?? 0);
@@ -279,16 +289,14 @@ export async function seedDemoFairs(tx: Tx, now: Date, ids: Ids) {
 					reason: `Missing at the ${d.fair.name} tally`
 				});
 			}
-			await tx
-				.update(schema.fairStock)
-				.set({ countedBack: back, returned: back })
-				.where(
-					and(
-						eq(schema.fairStock.fairId, id),
-						eq(schema.fairStock.pieceId, line.pieceId),
-						eq(schema.fairStock.woodId, line.woodId)
-					)
-				);
+			const where = and(
+				eq(schema.fairStock.fairId, id),
+				eq(schema.fairStock.pieceId, line.pieceId),
+				eq(schema.fairStock.woodId, line.woodId)
+			);
+			await tx.update(schema.fairStock).set({ countedBack: back, returned: back }).where(where);
+			const [fs] = await tx.select({ id: schema.fairStock.id }).from(schema.fairStock).where(where);
+			await tx.insert(schema.tallyCounts).values({ tallyId, fairStockId: fs.id, counted: back });
 		}
 		await tx.update(schema.fairs).set({ closedAt: closeAt }).where(eq(schema.fairs.id, id));
 	}

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from './helpers/auth';
+import { demoAccount, signInAs } from './helpers/auth';
 
 /**
  * The fair from start to finish on a phone: create, load out, sell with the network off (after a
@@ -105,7 +105,7 @@ test('a fair on a phone: offline sales, tally, report, and what a helper sees', 
 		.locator('+ dd')
 		.innerText();
 	const expectedCents = Math.round(Number(expectedText.replace(/[^0-9.]/g, '')) * 100);
-	await page.getByLabel('Cash counted in the box').fill(((expectedCents - 500) / 100).toFixed(2));
+	await page.getByLabel('Cash counted in the tin').fill(((expectedCents - 500) / 100).toFixed(2));
 	await page.getByRole('button', { name: 'Save the counts' }).click();
 	await expect(page.getByTestId('cash-difference')).toContainText('$5.00 short');
 	await expect(page.getByTestId('tally-row').filter({ hasText: 'Rosette ornament' })).toContainText(
@@ -128,6 +128,12 @@ test('a fair on a phone: offline sales, tally, report, and what a helper sees', 
 	const helperContext = await browser.newContext({ viewport: { width: 390, height: 844 } });
 	const helper = await helperContext.newPage();
 	await signInAs(helper, 'helper');
+	// Fairs have their helpers: refused until the owner names this helper for the fair.
+	expect((await helper.goto(`${fairUrl}/tally`))?.status()).toBe(403);
+	await page.goto(fairUrl);
+	await page.getByLabel(new RegExp(demoAccount('helper').name)).check();
+	await page.getByRole('button', { name: 'Save who sells' }).click();
+	await expect(page.getByRole('status')).toContainText('1 helper sells here');
 	await helper.goto(`${fairUrl}/tally`);
 	await expect(helper.getByRole('heading', { name: 'Tally' })).toBeVisible();
 	await expect(helper.getByText('Net for the fair')).toHaveCount(0);

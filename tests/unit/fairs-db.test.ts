@@ -18,6 +18,7 @@ import { moneyCsv, moneyReport } from '../../src/lib/server/fairs/money-report';
 import { checklistPdf } from '../../src/lib/server/fairs/checklist-pdf';
 import { PDFDocument } from 'pdf-lib';
 import { FairError } from '../../src/lib/server/fairs/errors';
+import { setFairHelpers } from '../../src/lib/server/fairs/fair-helpers';
 import { fairFormSchema, countSchema } from '../../src/lib/schemas/fairs';
 import { POST } from '../../src/routes/api/booth/[fairId]/sales/+server';
 
@@ -101,6 +102,8 @@ beforeAll(async () => {
 		openHours: '8'
 	});
 	fairId = await createFair(form);
+	// Fairs have their own helpers: this one sells here.
+	await setFairHelpers(fairId, [helper.id]);
 });
 
 describe('load-out', () => {
@@ -265,7 +268,7 @@ describe('tally, close and report', () => {
 		await saveTally(
 			fairId,
 			{ counts: { [t.pieces[0].fairStockId]: 0 }, cashCountedMinor: 10_000 },
-			helper.id
+			helper
 		);
 		// Nothing left was counted back (the flagged sale emptied the box): nothing returns.
 		const before = await qty('workshop');
@@ -278,7 +281,7 @@ describe('tally, close and report', () => {
 		expect(await qty('workshop')).toBe(before);
 		expect(await qty(`fair:${fairId}`)).toBe(0);
 		await expect(syncSales(fairId, [sale(900)], helper)).rejects.toThrow(/closed/);
-		await expect(saveTally(fairId, { counts: {} }, helper.id)).rejects.toThrow(/closed/);
+		await expect(saveTally(fairId, { counts: {} }, helper)).rejects.toThrow(/closed/);
 	});
 
 	it('writes a CSV that a general-purpose parser reads back to the report totals', async () => {

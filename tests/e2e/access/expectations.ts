@@ -59,6 +59,8 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	// The old buyer-notes address, kept working: a permanent redirect to /care.
 	'GET /safety': every('redirect'),
 	'GET /contact': every('ok'),
+	// What the phone shows for a page that needs signal.
+	'GET /offline': every('ok'),
 	'GET /policies': every('ok'),
 	'GET /fairs': every('ok'),
 	'GET /photos/[...key]': { ...every('ok'), url: (f) => `/photos/${f.photoKey}/400.webp` },
@@ -128,6 +130,10 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...staffApiWrite,
 		url: (f) => `/api/booth/${f.closedFairId}/orders`
 	},
+	'POST /api/booth/[fairId]/tally': {
+		...staffApiWrite,
+		url: (f) => `/api/booth/${f.closedFairId}/tally`
+	},
 
 	// Workshop.
 	'GET /workshop': staff,
@@ -189,9 +195,11 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	),
 	// Fairs: staff sell and count; the owner alone creates, edits, closes and sees the money.
 	'GET /workshop/fairs': staff,
+	'GET /workshop/booth': staff,
 	'POST /workshop/fairs?/create': ownerAction,
 	'GET /workshop/fairs/[id]': { ...staff, url: FAIR('') },
 	'POST /workshop/fairs/[id]?/save': { ...ownerAction, url: FAIR('?/save') },
+	'POST /workshop/fairs/[id]?/helpers': { ...ownerAction, url: FAIR('?/helpers') },
 	'POST /workshop/fairs/[id]?/loadOut': { ...staffAction, url: FAIR('?/loadOut') },
 	'GET /workshop/fairs/[id]/booth': { ...staff, url: FAIR('/booth') },
 	'GET /workshop/fairs/[id]/checklist.pdf': { ...staff, url: FAIR('/checklist.pdf') },

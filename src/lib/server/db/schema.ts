@@ -391,21 +391,62 @@ export const boothSales = mysqlTable('booth_sales', {
 	receivedAt: datetime('received_at')
 });
 
-export const tallies = mysqlTable('tallies', {
-	id: int('id').autoincrement().primaryKey(),
-	fairId: int('fair_id')
-		.notNull()
-		.references(() => fairs.id, { onDelete: 'cascade' }),
-	day: date('day', { mode: 'string' }).notNull(),
-	cashCountedMinor: int('cash_counted_minor'),
-	cardReportedMinor: int('card_reported_minor'),
-	/** Cash taken out of the box during the fair (change run, lunch), entered at the tally. */
-	cashPaidOutMinor: int('cash_paid_out_minor').notNull().default(0),
-	createdBy: varchar('created_by', { length: 36 }).references(() => users.id, {
-		onDelete: 'set null'
-	}),
-	createdAt: datetime('created_at').notNull()
-});
+export const tallies = mysqlTable(
+	'tallies',
+	{
+		id: int('id').autoincrement().primaryKey(),
+		fairId: int('fair_id')
+			.notNull()
+			.references(() => fairs.id, { onDelete: 'cascade' }),
+		day: date('day', { mode: 'string' }).notNull(),
+		cashCountedMinor: int('cash_counted_minor'),
+		cardReportedMinor: int('card_reported_minor'),
+		/** Cash taken out of the box during the fair (change run, lunch), entered at the tally. */
+		cashPaidOutMinor: int('cash_paid_out_minor').notNull().default(0),
+		createdBy: varchar('created_by', { length: 36 }).references(() => users.id, {
+			onDelete: 'set null'
+		}),
+		createdAt: datetime('created_at').notNull(),
+		/** The first cash count of the day, kept when the helper counts again (one recount allowed). */
+		firstCashCountedMinor: int('first_cash_counted_minor'),
+		/** How many times the day's count was saved (1 = counted once, 2 = counted again). */
+		counts: int('counts').notNull().default(1),
+		/** The phone-made id of the last save, so a count resent from the phone's queue is stored once. */
+		lastSaveId: varchar('last_save_id', { length: 36 })
+	},
+	// One cash-up per fair per day.
+	(t) => [uniqueIndex('tallies_fair_day').on(t.fairId, t.day)]
+);
+
+/** Pieces counted at a day's cash-up, one row per load-out line (the blind count of that day). */
+export const tallyCounts = mysqlTable(
+	'tally_counts',
+	{
+		tallyId: int('tally_id')
+			.notNull()
+			.references(() => tallies.id, { onDelete: 'cascade' }),
+		fairStockId: int('fair_stock_id')
+			.notNull()
+			.references(() => fairStock.id, { onDelete: 'cascade' }),
+		counted: int('counted').notNull()
+	},
+	(t) => [primaryKey({ columns: [t.tallyId, t.fairStockId] })]
+);
+
+/** Who sells at a fair: the owner names them; any other helper is refused its booth and tally. */
+export const fairHelpers = mysqlTable(
+	'fair_helpers',
+	{
+		fairId: int('fair_id')
+			.notNull()
+			.references(() => fairs.id, { onDelete: 'cascade' }),
+		userId: varchar('user_id', { length: 36 })
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		addedAt: datetime('added_at').notNull()
+	},
+	(t) => [primaryKey({ columns: [t.fairId, t.userId] })]
+);
 
 /** Every status change of an order: from, to, who (null for the payment server or a sweep), why. */
 export const orderHistory = mysqlTable(

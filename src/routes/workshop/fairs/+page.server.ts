@@ -2,6 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { createFair, listFairs } from '$lib/server/fairs/fairs';
 import { fairTally } from '$lib/server/fairs/tally';
+import { helperFairIds } from '$lib/server/fairs/fair-helpers';
 import { fairFormSchema } from '$lib/schemas/fairs';
 import { parseForm } from '$lib/forms';
 import type { Actions, PageServerLoad } from './$types';
@@ -9,7 +10,9 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'owner', 'helper');
 	const owner = user.role === 'owner';
-	const fairs = await listFairs();
+	// A helper sees the fairs the owner named them for.
+	const mine = owner ? null : await helperFairIds(user.id);
+	const fairs = (await listFairs()).filter((f) => !mine || mine.has(f.id));
 	return {
 		owner,
 		fairs: await Promise.all(

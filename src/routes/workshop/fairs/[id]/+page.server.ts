@@ -3,6 +3,11 @@ import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
 import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
 import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
+import {
+	assertFairAccess,
+	fairHelperChoices,
+	setFairHelpers
+} from '$lib/server/fairs/fair-helpers';
 import { fairFormSchema, loadOutLineSchema } from '$lib/schemas/fairs';
 import { fairFormValues } from '$lib/fair-form-values';
 import { formTexts, parseForm } from '$lib/forms';
@@ -12,6 +17,7 @@ export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'owner', 'helper');
 	const id = fairIdParam(event.params.id);
 	const fair = await orPageError(() => getFair(id));
+	await orPageError(() => assertFairAccess(user, id));
 	const pieces = await fairPieces(id);
 	return {
 		owner: user.role === 'owner',
@@ -25,6 +31,7 @@ export const load: PageServerLoad = async (event) => {
 			notes: fair.notes
 		},
 		formValues: user.role === 'owner' ? fairFormValues(fair) : null,
+		helpers: user.role === 'owner' ? await fairHelperChoices(id) : null,
 		loaded: pieces.map((p) => ({
 			key: p.fairStockId,
 			title: p.title,
@@ -48,9 +55,22 @@ export const actions: Actions = {
 			return { saved: true };
 		});
 	},
+	helpers: async (event) => {
+		requireRole(event, 'owner');
+		const id = fairIdParam(event.params.id);
+		const chosen = (await event.request.formData())
+			.getAll('helper')
+			.filter((v): v is string => typeof v === 'string');
+		return orFail(async () => {
+			await setFairHelpers(id, chosen);
+			return { helpersSaved: chosen.length };
+		});
+	},
 	loadOut: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
 		const id = fairIdParam(event.params.id);
+		const denied = await orFail(() => assertFairAccess(user, id));
+		if (denied) return denied;
 		const form = formTexts(await event.request.formData());
 		const lines: { pieceId: number; woodId: number; quantity: number }[] = [];
 		// One input per shelf row (take-<piece>-<wood>), so each row is parsed on its own.

@@ -4,6 +4,7 @@ import { apiError, apiInvalid } from '$lib/server/api-errors';
 import { placeBoothOrder } from '$lib/server/fairs/booth-order';
 import { readBoothJson } from '$lib/server/fairs/read-json';
 import { FairError } from '$lib/server/fairs/errors';
+import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
 import { boothOrderSchema } from '$lib/schemas/fairs';
 import type { RequestHandler } from './$types';
 
@@ -13,6 +14,7 @@ export const POST: RequestHandler = async (event) => {
 	const fairId = Number(event.params.fairId);
 	if (!Number.isInteger(fairId) || fairId <= 0) return apiError(404, 'There is no such fair.');
 	try {
+		await assertFairAccess(user, fairId);
 		const parsed = boothOrderSchema.safeParse(await readBoothJson(event.request));
 		if (!parsed.success) return apiInvalid(parsed.error);
 		return json(await placeBoothOrder(fairId, parsed.data, user, event.url.origin));

@@ -4,6 +4,7 @@ import { apiError } from '$lib/server/api-errors';
 import { syncSales } from '$lib/server/fairs/booth-sync';
 import { readBoothJson } from '$lib/server/fairs/read-json';
 import { FairError } from '$lib/server/fairs/errors';
+import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
 import { BOOTH_MAX_SALES, boothBatchSchema } from '$lib/schemas/fairs';
 import type { RequestHandler } from './$types';
 
@@ -13,6 +14,7 @@ export const POST: RequestHandler = async (event) => {
 	const fairId = Number(event.params.fairId);
 	if (!Number.isInteger(fairId) || fairId <= 0) return apiError(404, 'There is no such fair.');
 	try {
+		await assertFairAccess(user, fairId);
 		const body = boothBatchSchema.safeParse(await readBoothJson(event.request));
 		if (!body.success) return apiError(400, 'Send { "sales": [ ... ] }.');
 		if (body.data.sales.length > BOOTH_MAX_SALES) {
