@@ -130,6 +130,8 @@ async function drawOrder(
 	};
 	c.text(kind === 'gift' ? 'Gift slip' : 'Packing slip', 'bold', head);
 	c.text(`Order ${o.ref} · placed ${o.placedOn}`, 'bold', size);
+	if (kind === 'packing' && o.readyBy)
+		c.text(`Promised: ready to post by ${o.readyBy}`, 'regular', size, { width: textWidth });
 	c.gap(size * 0.6);
 	col(shop.address.length ? shop.address : [shop.name], 'From');
 	c.gap(size * 0.6);
@@ -174,7 +176,7 @@ async function drawOrder(
 	c.gap(size);
 	c.text(
 		kind === 'gift'
-			? `Hand-carved for you by ${shop.name}. Questions: ${shop.email}`
+			? `Hand-carved for you by ${shop.name}. Scan the code for how to look after it. Questions: ${shop.email}`
 			: `Questions or returns: ${shop.email}`,
 		'regular',
 		size - 1,
