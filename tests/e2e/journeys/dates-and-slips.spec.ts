@@ -114,3 +114,20 @@ test('one ready-by day everywhere, and a Polish packing slip that prints right',
 	await doc.destroy();
 	expect(await pdfText(bytes)).toContain('Łukasz Wiśniewski');
 });
+
+test('on a phone, the piece page and the basket give the same ready-by day', async ({
+	browser
+}) => {
+	const phone = await browser.newContext({ viewport: { width: 390, height: 844 } });
+	const page = await phone.newPage();
+	await personaliseAndAdd(page, 'AK');
+	const onPiece = monthDay(await text(page, 'personaliser-ready'));
+	await page.getByTestId('cart-link').click();
+	await expect(page.getByTestId('line-initials')).toHaveText('AK');
+	expect(monthDay(await text(page, 'line-ready-by'))).toBe(onPiece);
+	expect(monthDay(await text(page, 'order-ready-by'))).toBe(onPiece);
+	// Reloading the basket dates it the same way again.
+	await page.reload();
+	expect(monthDay(await text(page, 'order-ready-by'))).toBe(onPiece);
+	await phone.close();
+});
