@@ -43,6 +43,7 @@ const slipOrder = (ref: string): SlipOrder => ({
 	taxMinor: 0,
 	totalMinor: 10795,
 	placedOn: '2026-03-02',
+	readyBy: 'Thursday, March 12, 2026',
 	lines: [
 		{
 			title: 'Rosette bottle holder',

@@ -9,9 +9,12 @@ import type { DemoExtra } from './extras';
 export const demoReadyBy: DemoExtra = {
 	name: 'ready-by dates from the carving queue',
 	run: async (db) => {
-		const { recomputeReadyBy } = await import('../../src/lib/server/orders/carving-queue');
+		const { keepPlansAsPromises, recomputeReadyBy } =
+			await import('../../src/lib/server/orders/carving-queue');
 		await db.transaction(async (tx) => {
 			await recomputeReadyBy(new Date(), tx);
+			// What the buyers of the demo's paid orders were told: the plan as it stands now.
+			await keepPlansAsPromises(tx);
 		});
 	}
 };

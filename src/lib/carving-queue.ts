@@ -178,3 +178,11 @@ export function surchargeMinor(
 	if (per === 0) return 0;
 	return Math.max(0, Math.ceil(minutes) - Math.ceil(standardMinutes)) * per;
 }
+
+/**
+ * The ready-by day to tell the buyer anywhere (order page, e-mails, slips): the promise kept when
+ * the order was paid (see promiseReadyBy in the server's queue module), else the plan.
+ */
+export function buyerReadyBy(o: { promisedBy: string | null; readyBy: string | null }) {
+	return o.promisedBy ?? o.readyBy;
+}

@@ -22,7 +22,18 @@ export async function pdfText(bytes: Uint8Array): Promise<string> {
 	const pages: string[] = [];
 	for (let n = 1; n <= doc.numPages; n++) {
 		const content = await (await doc.getPage(n)).getTextContent();
-		pages.push(content.items.map((i) => ('str' in i ? i.str : '')).join(' '));
+		let text = '';
+		let end: { x: number; y: number } | null = null;
+		for (const i of content.items) {
+			if (!('str' in i)) continue;
+			const [, , , , x, y] = i.transform as number[];
+			// Text drawn in several runs (one per font) touches end to start: join it without a
+			// space, so "Łódź" reads back whole; anything else is a new word or line.
+			const touches = end && Math.abs(end.y - y) < 0.5 && Math.abs(end.x - x) < 0.5;
+			text += (text && !touches ? ' ' : '') + i.str;
+			end = { x: x + i.width, y };
+		}
+		pages.push(text);
 	}
 	await doc.destroy();
 	return pages.join('\n');

@@ -9,6 +9,21 @@ import MailComposer from 'nodemailer/lib/mail-composer';
 import { simpleParser } from 'mailparser';
 import { confirmationMail } from '../../src/lib/server/orders/mail';
 import { orderByRef } from '../../src/lib/server/orders/views';
+import { mailOrder } from '../../src/lib/server/orders/mail-order';
+import { shippingMail } from '../../src/lib/server/orders/shipping-mail';
+
+/** The "on its way" e-mail as the buyer's mail program reads it. */
+async function parsedShipping(ref: string) {
+	const detail = await orderByRef(ref);
+	if (!detail) throw new Error(`demo order ${ref} missing`);
+	const order = await mailOrder(detail.id);
+	const mail = shippingMail(order, { carrier: 'USPS', trackingNumber: '9400100000000000000000' });
+	const raw = await new MailComposer({ from: 'shop@chipstall.test', to: order.email, ...mail })
+		.compile()
+		.build();
+	const parsed = await simpleParser(raw);
+	return { text: parsed.text ?? '', html: String(parsed.html || '') };
+}
 
 async function parsedConfirmation(ref: string) {
 	const order = await orderByRef(ref);
@@ -70,5 +85,31 @@ describe('confirmation e-mail care text', () => {
 		const { text } = await parsedConfirmation('CS-1005');
 		// Walnut and butternut are nut trees (Juglans nigra, Juglans cinerea: common practice).
 		expect(text).toMatch(/walnut and butternut are nut trees/);
+	});
+});
+
+describe('shipping e-mail care text', () => {
+	// Soaking and hand-washing are kitchenware advice (common practice); a display piece is dusted.
+	const KITCHEN = [...FOOD, /wash (it )?by hand/i, /\boil (it|the piece)\b/i];
+
+	it('tells the buyer of a display-only bottle holder nothing about oil or washing', async () => {
+		// CS-1004 is a wall plate (display); CS-1006 holds a bottle holder (display) and a scoop.
+		const { text, html } = await parsedShipping('CS-1004');
+		for (const body of [text, html]) {
+			expect(body).toContain('For display');
+			for (const re of KITCHEN) expect(body).not.toMatch(re);
+		}
+		const mixed = await parsedShipping('CS-1006');
+		expect(mixed.text).toMatch(/For display \([^)]*bottle holder[^)]*\): /i);
+		expect(mixed.text).toMatch(/For food \(Coffee scoop\): /);
+		expect(mixed.text).not.toMatch(/For food \([^)]*bottle holder/i);
+	});
+
+	it('gives a food piece the food-safe care, as the paid e-mail does', async () => {
+		const ship = await parsedShipping('CS-1005');
+		const paid = await parsedConfirmation('CS-1005');
+		for (const re of FOOD) expect(ship.text).toMatch(re);
+		const line = (t: string) => t.split('\n').find((l) => l.startsWith('For food'));
+		expect(line(ship.text)).toBe(line(paid.text));
 	});
 });

@@ -39,6 +39,8 @@ async function deliver(e: Ev) {
 const markPaid = deliver;
 const markExpired = deliver;
 import type { CheckoutInput } from '../../src/lib/schemas/checkout';
+import { queueOutlook } from '../../src/lib/server/orders/carving-queue';
+import { readyByFor } from '../../src/lib/carving-queue';
 
 const tag = `t${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -185,15 +187,28 @@ describe('creating an order from a cart', () => {
 		await expect(createPendingOrder(id, buyer, null)).rejects.toMatchObject({ code: 'empty' });
 	});
 
-	it('makes personalised lines to order with a ready-by date from the lead time', async () => {
+	it('makes personalised lines to order, dated as the piece page dates that layout', async () => {
 		await setShelf(0);
 		const cart = await newCart(1, 'ab');
 		const now = new Date('2026-03-02T10:00:00Z');
 		const order = await createPendingOrder(cart, buyer, null, now);
 		const [row] = await db.select().from(s.orders).where(eq(s.orders.id, order.id));
-		expect(row.readyBy).toBe('2026-03-12'); // 10 lead days
 		const [line] = await db.select().from(s.orderLines).where(eq(s.orderLines.orderId, order.id));
 		expect(line.fromStock).toBe(false);
+		// The piece page's sum: this layout's minutes joining the queue as it stands (its own
+		// rules are checked against hand-worked calendars in carving-queue.test.ts).
+		const q = await queueOutlook(now);
+		expect(row.readyBy).toBe(
+			readyByFor(
+				q.minutesAhead,
+				line.personalisation!.estimateMinutes!,
+				q.schedule,
+				q.today,
+				q.extraDaysOff
+			)
+		);
+		// Carving, two finishing days and a packing day lie between (the default week).
+		expect(row.readyBy! > '2026-03-04').toBe(true);
 		// The JSON column type parses MariaDB's text on read: an object, not a string.
 		const snap = line.personalisation!;
 		expect(snap.initials).toBe('AB');

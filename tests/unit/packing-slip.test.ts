@@ -132,6 +132,44 @@ describe('packing slip PDF', () => {
 		expect(text).not.toMatch(/Total|Subtotal/);
 	});
 
+	it("the gift slip's QR opens the public care page, not the signed-in workshop", async () => {
+		const doc = await parse(
+			await call(
+				giftSlip,
+				event('/workshop/orders/CS-1002/gift-slip.pdf?paper=a4', 'owner', { ref: 'CS-1002' })
+			)
+		);
+		const img = await firstImageRgba(doc, 1);
+		const code = jsQR(img.data, img.width, img.height);
+		expect(code?.data).toBe(`${config.origin}/care`);
+		expect(code?.data).not.toContain('/workshop');
+	});
+
+	it('prints the batch on US Letter and on the 4 × 6 label too', async () => {
+		// US Letter 8.5 × 11 in = 612 × 792 pt; 4 × 6 in = 288 × 432 pt (72 pt per inch).
+		for (const [paper, w, h] of [
+			['letter', 612, 792],
+			['label', 288, 432]
+		] as const) {
+			const doc = await parse(
+				await call(
+					batch,
+					event(`/workshop/orders/packing-slips.pdf?refs=CS-1001,CS-1002&paper=${paper}`, 'owner')
+				)
+			);
+			for (let n = 1; n <= doc.numPages; n++) {
+				const [x0, y0, x1, y1] = (await doc.getPage(n)).view;
+				expect(x1 - x0).toBeCloseTo(w, 1);
+				expect(y1 - y0).toBeCloseTo(h, 1);
+			}
+			const all = (
+				await Promise.all(Array.from({ length: doc.numPages }, (_, i) => pageText(doc, i + 1)))
+			).join(' ');
+			expect(all).toContain('CS-1001');
+			expect(all).toContain('CS-1002');
+		}
+	});
+
 	it('the batch holds one slip per order, in the order asked, each with its QR', async () => {
 		const refs = ['CS-1003', 'CS-1001', 'CS-1002'];
 		const doc = await parse(

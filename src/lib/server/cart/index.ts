@@ -14,7 +14,7 @@ import { priceCart } from './pricing';
 import { stockOnHand } from '../orders/holds';
 import { personalise, previewSvg, snapshotRefusal } from '../personalise';
 import { HOME_COUNTRY } from '$lib/shipping';
-import { basketReadyBy } from '../orders/carving-queue';
+import { basketReadyBy, carvedMinutes, readyByNow } from '../orders/carving-queue';
 import { BASKET_LIFETIME_MS } from './checkout-details';
 
 export const CART_COOKIE = 'cart';
@@ -226,6 +226,8 @@ export async function cartSummary(cartId: string | null, country?: string) {
 		firstPhotos.find((p) => p.pieceId === pieceId)?.storageKey ?? null;
 	const readyBy = await basketReadyBy(priced.lines.filter((l) => !l.fromStock));
 	return {
+		// The whole basket as one order joining the queue now: the date the paid e-mail repeats.
+		orderReadyBy: priced.lines.length ? await readyByNow(carvedMinutes(priced.lines)) : null,
 		country: destination,
 		zone: priced.zone,
 		currency: priced.currency,

@@ -250,7 +250,10 @@ export const orders = mysqlTable(
 		balancePaidAt: datetime('balance_paid_at'),
 		balanceMethod: mysqlEnum('balance_method', balanceMethods),
 		refundedMinor: int('refunded_minor').notNull().default(0),
+		/** The workshop's plan from the carving queue; moves as the queue moves. */
 		readyBy: date('ready_by', { mode: 'string' }),
+		/** The day the buyer was told when it was paid; kept (see promiseReadyBy). */
+		promisedBy: date('promised_by', { mode: 'string' }),
 		holdExpiresAt: datetime('hold_expires_at'),
 		createdAt: datetime('created_at').notNull(),
 		paidAt: datetime('paid_at')

@@ -1,11 +1,12 @@
-import { PDFDocument, StandardFonts, rgb } from 'pdf-lib';
+import { PDFDocument, rgb } from 'pdf-lib';
+import { PdfFonts } from '../pdf/fonts';
 import { PAPER_MM, PT_PER_MM, type Paper } from '../pdf/template';
 
 export type ChecklistLine = { title: string; woodName: string; quantity: number };
 
 /**
  * The load-out as a packing checklist: one row per piece and wood with a box to tick and a
- * box for the count back, on A4 or US Letter. Standard Helvetica (no font file to ship).
+ * box for the count back, on A4 or US Letter, in the embedded fonts (names in any script).
  */
 export async function checklistPdf(
 	fair: { name: string; place: string; startsOn: string; endsOn: string },
@@ -14,8 +15,8 @@ export async function checklistPdf(
 ): Promise<Uint8Array> {
 	const doc = await PDFDocument.create();
 	doc.setTitle(`Load-out checklist: ${fair.name}`);
-	const font = await doc.embedFont(StandardFonts.Helvetica);
-	const bold = await doc.embedFont(StandardFonts.HelveticaBold);
+	const fonts = await PdfFonts.for(doc);
+	await fonts.cover(fair.name, fair.place, ...lines.map((l) => `${l.title}, ${l.woodName}`));
 	const w = PAPER_MM[paper].w * PT_PER_MM;
 	const h = PAPER_MM[paper].h * PT_PER_MM;
 	const margin = 15 * PT_PER_MM;
@@ -25,21 +26,22 @@ export async function checklistPdf(
 	let y = h - margin;
 
 	const header = () => {
-		page.drawText(`Load-out checklist: ${fair.name}`, {
+		fonts.draw(page, `Load-out checklist: ${fair.name}`, {
 			x: margin,
 			y: y - 16,
 			size: 16,
-			font: bold,
+			weight: 'bold',
 			color: ink
 		});
 		const when =
 			fair.startsOn === fair.endsOn ? fair.startsOn : `${fair.startsOn} to ${fair.endsOn}`;
-		page.drawText(`${fair.place}, ${when}`, { x: margin, y: y - 34, size: 11, font, color: ink });
+		fonts.draw(page, `${fair.place}, ${when}`, { x: margin, y: y - 34, size: 11, color: ink });
 		y -= 60;
-		page.drawText('Packed', { x: margin, y, size: 9, font: bold });
-		page.drawText('Piece and wood', { x: margin + 50, y, size: 9, font: bold });
-		page.drawText('Count', { x: w - margin - 120, y, size: 9, font: bold });
-		page.drawText('Back', { x: w - margin - 50, y, size: 9, font: bold });
+		const head = { y, size: 9, weight: 'bold' } as const;
+		fonts.draw(page, 'Packed', { ...head, x: margin });
+		fonts.draw(page, 'Piece and wood', { ...head, x: margin + 50 });
+		fonts.draw(page, 'Count', { ...head, x: w - margin - 120 });
+		fonts.draw(page, 'Back', { ...head, x: w - margin - 50 });
 		y -= 8;
 	};
 	header();
@@ -59,18 +61,18 @@ export async function checklistPdf(
 			borderColor: ink,
 			borderWidth: 1
 		});
-		page.drawText(`${l.title}, ${l.woodName}`.slice(0, 70), {
+		// Whole characters only: slicing code units could split a letter outside the BMP.
+		fonts.draw(page, [...`${l.title}, ${l.woodName}`].slice(0, 70).join(''), {
 			x: margin + 50,
 			y: y + 1,
 			size: 11,
-			font,
 			color: ink
 		});
-		page.drawText(String(l.quantity), {
+		fonts.draw(page, String(l.quantity), {
 			x: w - margin - 110,
 			y: y + 1,
 			size: 11,
-			font: bold,
+			weight: 'bold',
 			color: ink
 		});
 		page.drawRectangle({
@@ -90,15 +92,10 @@ export async function checklistPdf(
 		total += l.quantity;
 	}
 	y -= 30;
-	page.drawText(
+	fonts.draw(
+		page,
 		`${total} pieces in ${lines.length} lines. Also: cash float, card reader, price tags, table cloth.`,
-		{
-			x: margin,
-			y,
-			size: 10,
-			font,
-			color: ink
-		}
+		{ x: margin, y, size: 10, color: ink }
 	);
 	return doc.save();
 }

@@ -5,6 +5,7 @@ import { carverSubject } from '$lib/shop-format';
  * the same facts. Sent through the outbox like every other message.
  */
 import { formatMoney } from '$lib/money';
+import { buyerReadyBy } from '$lib/carving-queue';
 import { orderBalance } from '$lib/order-balance';
 import { sendMail } from '../mail';
 import { esc, mailButton, mailPage } from '../mail-html';
@@ -38,7 +39,7 @@ export function boothOrderMail(order: OrderDetail, where: string, origin?: strin
 		'',
 		...facts.map(([k, v]) => `${k}: ${v}`),
 		'',
-		`It should be ready to post by ${readyByWords(order.readyBy)}. ${rest}`,
+		`It should be ready to post by ${readyByWords(buyerReadyBy(order))}. ${rest}`,
 		'',
 		`See your order at any time: ${link}`
 	].join('\n');
@@ -46,7 +47,7 @@ export function boothOrderMail(order: OrderDetail, where: string, origin?: strin
 <p>${esc(carverSubject())} took your order <strong>${esc(order.ref)}</strong> at ${esc(where)}:</p>
 <ul>${lines.map((l) => `<li>${esc(l)}</li>`).join('')}</ul>
 <table>${facts.map(([k, v]) => `<tr><td style="padding:2px 12px 2px 0">${esc(k)}</td><td style="text-align:right"><strong>${esc(v)}</strong></td></tr>`).join('')}</table>
-<p>It should be ready to post by <strong>${esc(readyByWords(order.readyBy))}</strong>. ${esc(rest)}</p>
+<p>It should be ready to post by <strong>${esc(readyByWords(buyerReadyBy(order)))}</strong>. ${esc(rest)}</p>
 ${mailButton(link, 'See your order')}`);
 	return { subject: `Order ${order.ref}: your order from ${where}`, text, html };
 }

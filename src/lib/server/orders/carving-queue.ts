@@ -4,7 +4,7 @@
  * their estimated minutes; the owner's carving week from settings; fair days as days off.
  * Scheduling itself is the pure `$lib/carving-queue`.
  */
-import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, isNotNull, isNull, notInArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { isoDay } from '$lib/dates';
 import {
@@ -173,16 +173,82 @@ export async function recomputeReadyBy(now = new Date(), conn: Db | Tx = db) {
 	const q = await carvingQueue(now, conn);
 	const lastDay = new Map<number, string | null>();
 	for (const l of q.lines) lastDay.set(l.orderId, l.carvedOn);
+	const dated = new Map<number, string | null>();
 	for (const [orderId, carvedOn] of lastDay) {
 		const readyBy = carvedOn ? readyAfterCarving(carvedOn, q.schedule, q.daysOff) : null;
 		await conn.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
+		dated.set(orderId, readyBy);
 	}
-	return lastDay.size;
+	return dated;
+}
+
+/**
+ * The one ready-by date for an order joining the queue now with `carvedMinutes` of carving
+ * (0 for ready-made pieces, which only wait for packing). The piece page, the basket, checkout
+ * and the pending order all date with this, so they agree with the date given at payment.
+ */
+export async function readyByNow(carvedMinutes: number, now = new Date(), conn: Db | Tx = db) {
+	const q = await queueOutlook(now, conn);
+	return readyByFor(q.minutesAhead, carvedMinutes, q.schedule, q.today, q.extraDaysOff);
+}
+
+/** Carving minutes of priced lines (made-to-order ones, times their quantity). */
+export function carvedMinutes(
+	lines: {
+		fromStock: boolean;
+		quantity: number;
+		personalisation: { estimateMinutes?: number } | null;
+	}[]
+) {
+	return lines
+		.filter((l) => !l.fromStock)
+		.reduce((m, l) => m + (l.personalisation?.estimateMinutes ?? 0) * l.quantity, 0);
+}
+
+/**
+ * A just-paid order: its date from its place in the queue (everything paid before it ahead),
+ * then kept as the buyer's promise (`promisedBy`), which the paid e-mail, the owner's alert,
+ * the buyer's order page and the slips all show.
+ *
+ * Why kept: a buyer plans around the day in the paid e-mail (often a gift for a set day). Later
+ * moves of the queue (a status step, new carving hours, a fair, an order put back on the bench)
+ * change the workshop's plan (`readyBy`, on Today and in the orders table) but not what the
+ * buyer was told: a promise that slides later without a word breaks trust, and one that jumps
+ * earlier and back again is as confusing. When the plan runs past the promise, the workshop
+ * sees it and writes to the buyer.
+ */
+export async function promiseReadyBy(orderId: number, now = new Date(), conn: Db | Tx = db) {
+	const dated = await recomputeReadyBy(now, conn);
+	let readyBy = dated.get(orderId);
+	if (readyBy === undefined) {
+		// Nothing of it to carve (ready-made, or already carved): packing days from today.
+		readyBy = await readyByNow(0, now, conn);
+		await conn.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
+	}
+	await conn
+		.update(orders)
+		.set({ promisedBy: readyBy })
+		.where(and(eq(orders.id, orderId), isNull(orders.promisedBy)));
+	return readyBy;
+}
+
+/** Paid orders without a promise yet (the demo's, or older ones) keep today's plan as it. */
+export async function keepPlansAsPromises(conn: Db | Tx = db) {
+	await conn
+		.update(orders)
+		.set({ promisedBy: sql`${orders.readyBy}` })
+		.where(
+			and(
+				isNull(orders.promisedBy),
+				isNotNull(orders.readyBy),
+				notInArray(orders.status, ['pending', 'cancelled'])
+			)
+		);
 }
 
 /** What the personaliser needs to date a new piece in the browser with the same rules. */
-export async function queueOutlook(now = new Date()) {
-	const q = await carvingQueue(now);
+export async function queueOutlook(now = new Date(), conn: Db | Tx = db) {
+	const q = await carvingQueue(now, conn);
 	return {
 		today: q.today,
 		minutesAhead: q.totalMinutes,
@@ -203,6 +269,7 @@ export async function basketReadyBy(
 	const carved = lines.filter((l) => l.personalisation);
 	if (!carved.length) return {};
 	const q = await queueOutlook(now);
+	// Each line as if it joined the queue alone; the order as a whole is dated by readyByNow.
 	return Object.fromEntries(
 		carved.map((l) => [
 			l.id,

@@ -8,6 +8,7 @@ import { esc } from '../mail-html';
 import { orderLink } from './links';
 import type { OrderDetail } from './views';
 import { careForAll, LETTERS_CARE } from '$lib/care';
+import { buyerReadyBy } from '$lib/carving-queue';
 
 /** Said to every buyer: finishes can come from nuts, and two of the woods are nut trees. */
 const ALLERGY_LINE =
@@ -28,7 +29,7 @@ export function confirmationMail(order: OrderDetail, origin?: string) {
 			: `   ${l.woodName} · ready now`;
 		return `${l.quantity} × ${l.title} — ${money(l.lineTotalMinor)}\n${detail}`;
 	});
-	const ready = readyByWords(order.readyBy);
+	const ready = readyByWords(buyerReadyBy(order));
 	const a = order.address;
 	const addr = [
 		a.line1,

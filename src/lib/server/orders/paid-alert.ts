@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { db } from '../db';
 import { settings, users } from '../db/schema';
 import { sendMail } from '../mail';
-import { recomputeReadyBy } from './carving-queue';
+import { promiseReadyBy } from './carving-queue';
 import { mailOrder } from './mail-order';
 import { newOrderAlertMail } from './shipping-mail';
 
@@ -43,17 +43,19 @@ async function alertRecipients(): Promise<string[]> {
 
 /**
  * After a payment is recorded: the queue changed, so every queued order's ready-by date is worked
- * out again; then the workshop hears of the order. Neither may undo or fail the payment.
+ * out again and this order's is kept as the buyer's promise; then the workshop hears of the
+ * order. Run before the buyer's paid e-mail, which states that promise. Neither may undo or fail
+ * the payment.
  */
 export async function afterOrderPaid(orderId: number, origin: string) {
 	try {
-		await recomputeReadyBy();
+		await promiseReadyBy(orderId);
 	} catch (err) {
 		console.error('ready-by recompute failed', orderId, err);
 	}
 	try {
 		const [order, to] = await Promise.all([mailOrder(orderId), alertRecipients()]);
-		if (to.length) await sendMail({ to, ...newOrderAlertMail(order, origin, order.readyBy) });
+		if (to.length) await sendMail({ to, ...newOrderAlertMail(order, origin, order.promisedBy) });
 	} catch (err) {
 		console.error('new-order alert failed', orderId, err);
 	}

@@ -14,11 +14,10 @@ import { z } from 'zod';
 import { countryName } from '$lib/shipping';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
-import { cartLines, orderLines, orders, pieces, processedEvents } from '../db/schema';
+import { cartLines, orders, processedEvents } from '../db/schema';
 import { stripe, type Stripe } from '../payments';
 import type { PricedCart } from '../cart/pricing';
 import { forgetCheckoutDetails } from '../cart/checkout-details';
-import { addDays } from '$lib/dates';
 import { heldLines, releaseInTx, releaseOrder, takeStock } from './holds';
 import { moveOrder } from './status';
 import { sendConfirmation, sendPieceGone } from './mail';
@@ -186,15 +185,6 @@ async function lockOrderFor(tx: Tx, session: z.infer<typeof sessionObject>) {
 	return order;
 }
 
-async function madeToOrderLead(tx: Tx, orderId: number) {
-	const rows = await tx
-		.select({ d: pieces.leadDays })
-		.from(orderLines)
-		.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
-		.where(and(eq(orderLines.orderId, orderId), eq(orderLines.fromStock, false)));
-	return Math.max(0, ...rows.map((r) => r.d));
-}
-
 type PaidOutcome =
 	| { kind: 'paid'; orderId: number }
 	| { kind: 'gone'; orderId: number; paymentIntentId: string | null }
@@ -250,7 +240,8 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 						: 'Payment received.'
 			},
 			tx,
-			{ ...payment, readyBy: addDays(now, await madeToOrderLead(tx, order.id)) },
+			// The ready-by date is given after the commit, from the queue (promiseReadyBy).
+			payment,
 			now
 		);
 		if (order.cartId) {
@@ -306,6 +297,8 @@ async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<
 		return { handled: true, changed: true, outcome: 'piece_gone' };
 	}
 	if (outcome.kind === 'none') return { handled: true, changed: false, outcome: outcome.why };
+	// Dated first, so the paid e-mail states the same ready-by day as every other place.
+	await afterOrderPaid(outcome.orderId, origin);
 	const order = await orderById(outcome.orderId);
 	if (order) {
 		try {
@@ -315,7 +308,6 @@ async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<
 			console.error('Confirmation e-mail failed', order.ref, err);
 		}
 	}
-	await afterOrderPaid(outcome.orderId, origin);
 	return { handled: true, changed: true, outcome: 'paid' };
 }
 

@@ -7,11 +7,11 @@ import { and, eq } from 'drizzle-orm';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
 import { orderLines, orders, type Address } from '../db/schema';
-import { leadDaysFor, priceCart, type PricedCart } from '../cart/pricing';
+import { priceCart, type PricedCart } from '../cart/pricing';
+import { carvedMinutes, readyByNow } from './carving-queue';
 import { saveCheckoutDetails } from '../cart/checkout-details';
 import { lockCart } from '../cart/lock';
 import { confirmedAccountFor } from '../auth/guest-orders';
-import { addDays } from '$lib/dates';
 import type { CheckoutInput } from '$lib/schemas/checkout';
 import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from './holds';
 import { createCheckoutSession, expireCheckoutSession } from './payment';
@@ -137,7 +137,8 @@ export async function createPendingOrder(
 				taxMinor: priced.taxMinor,
 				totalMinor: priced.totalMinor,
 				status: 'pending',
-				readyBy: addDays(now, leadDaysFor(priced.lines)),
+				// The date the basket and checkout showed; given again from the queue once paid.
+				readyBy: await readyByNow(carvedMinutes(priced.lines), now, tx),
 				holdExpiresAt,
 				createdAt: now
 			})

@@ -8,14 +8,33 @@ import { formatMoney } from '$lib/money';
 import { trackingLink } from './tracking';
 import { esc, mailButton, mailPage } from '../mail-html';
 import { orderLink } from './links';
+import { readyByWords } from './mail';
+import { careForAll, LETTERS_CARE } from '$lib/care';
 
 export type MailOrder = {
 	ref: string;
 	buyerName: string;
 	currency: string;
 	totalMinor: number;
-	lines: { quantity: number; title: string; woodName: string; initials?: string | null }[];
+	lines: {
+		quantity: number;
+		title: string;
+		woodName: string;
+		initials?: string | null;
+		/** The piece's kind and food flag: they choose the care words (see $lib/care). */
+		kind: string;
+		foodContact: boolean;
+	}[];
 };
+
+/** The care words for these pieces, from the one care module: never food advice for display. */
+function careLines(order: MailOrder): string[] {
+	const care = careForAll(order.lines.map((l) => ({ ...l, personalised: !!l.initials })));
+	return [
+		...care.notes.map((c) => `${c.title} (${c.pieces.join(', ')}): ${c.text}`),
+		...(care.letters ? [LETTERS_CARE] : [])
+	];
+}
 
 const lineWords = (l: MailOrder['lines'][number]) =>
 	`${l.quantity} × ${l.title} in ${l.woodName}${l.initials ? `, initials ${l.initials}` : ''}`;
@@ -27,6 +46,7 @@ export function shippingMail(
 ) {
 	const link = orderLink(order.ref, origin);
 	const track = trackingLink(shipment.carrier, shipment.trackingNumber);
+	const care = careLines(order);
 	const text = [
 		`Hello ${order.buyerName},`,
 		'',
@@ -40,7 +60,8 @@ export function shippingMail(
 		'',
 		`Your order: ${link}`,
 		'',
-		'Oil the piece now and then and wash it by hand; never leave it to soak.'
+		'Looking after your pieces',
+		...care
 	].join('\n');
 	const html = mailPage(`<h1 style="font-size:24px;margin:0 0 8px">Your order is on its way</h1>
 <p>Hello ${esc(order.buyerName)}, your order <strong>${esc(order.ref)}</strong> left ${esc(workshopWords())} today.</p>
@@ -48,7 +69,8 @@ export function shippingMail(
 <p>Carrier: <strong>${esc(shipment.carrier)}</strong><br>Tracking number: <strong>${esc(shipment.trackingNumber)}</strong></p>
 ${track ? `<p><a href="${esc(track)}">Follow the parcel with ${esc(shipment.carrier)}</a></p>` : ''}
 ${mailButton(link, 'See your order')}
-<p style="font-size:14px;color:#5c4a3c">Oil the piece now and then and wash it by hand; never leave it to soak.</p>`);
+<h2 style="font-size:18px;margin:16px 0 4px">Looking after your pieces</h2>
+${care.map((c) => `<p style="font-size:14px;margin:4px 0;color:#5c4a3c">${esc(c)}</p>`).join('\n')}`);
 	return { subject: `Order ${order.ref} is on its way`, text, html };
 }
 
@@ -92,14 +114,14 @@ export function newOrderAlertMail(order: MailOrder, origin: string, readyBy: str
 		'',
 		...order.lines.map(lineWords),
 		'',
-		`Ready by: ${readyBy ?? 'not dated yet'}`,
+		`Promised to the buyer: ready to post by ${readyByWords(readyBy)}`,
 		`Open it: ${href}`
 	].join('\n');
 	const html =
 		mailPage(`<h1 style="font-size:22px;margin:0 0 8px">New paid order ${esc(order.ref)}</h1>
 <p>${esc(order.buyerName)} paid <strong>${esc(money)}</strong>.</p>
 <ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
-<p>Ready by: ${esc(readyBy ?? 'not dated yet')}</p>
+<p>Promised to the buyer: ready to post by <strong>${esc(readyByWords(readyBy))}</strong></p>
 ${mailButton(href, 'Open the order')}`);
 	return { subject: `New order ${order.ref} — ${money}`, text, html };
 }

@@ -7,6 +7,8 @@ import { and, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { snapshotInput } from '$lib/pattern/snapshot';
+import { buyerReadyBy } from '$lib/carving-queue';
+import { unprintable } from '../pdf/fonts';
 import { db } from '../db';
 import { orderLines, orders, pieces, shipments, woods } from '../db/schema';
 import { previewSvg } from '../personalise';
@@ -71,7 +73,7 @@ export async function ordersForUser(userId: string) {
 			totalMinor: orders.totalMinor,
 			currency: orders.currency,
 			createdAt: orders.createdAt,
-			readyBy: orders.readyBy
+			readyBy: sql<string | null>`coalesce(${orders.promisedBy}, ${orders.readyBy})`
 		})
 		.from(orders)
 		.where(and(eq(orders.userId, userId), sql`${orders.status} not in ('pending', 'cancelled')`))
@@ -140,7 +142,7 @@ export async function buyerOrderView(order: OrderDetail) {
 		email: order.email,
 		address: order.address,
 		...orderFigures(order),
-		readyBy: order.readyBy,
+		readyBy: buyerReadyBy(order),
 		createdAt: order.createdAt,
 		paidAt: order.paidAt,
 		link: orderPath(order.ref),
@@ -218,6 +220,13 @@ export async function workshopOrderDetail(ref: string) {
 		balancePaidAt: order.balancePaidAt,
 		balanceMethod: order.balanceMethod,
 		readyBy: order.readyBy,
+		promisedBy: order.promisedBy,
+		// Characters no font in the slips has: they print as a placeholder, so the owner is told.
+		unprintable: unprintable(
+			[order.buyerName, order.giftNote, ...Object.values(order.address ?? {})]
+				.filter((v) => typeof v === 'string')
+				.join(' ')
+		),
 		createdAt: order.createdAt,
 		paidAt: order.paidAt,
 		shipments: ships.map((s) => ({

@@ -4,18 +4,11 @@
  * 612 × 792 pt, the shipping label 4 × 6 in = 288 × 432 pt. The gift slip prints no prices.
  * Relative imports only: the bench runs this under tsx.
  */
-import {
-	PDFDocument,
-	StandardFonts,
-	rgb,
-	type PDFFont,
-	type PDFImage,
-	type PDFPage
-} from 'pdf-lib';
+import { PDFDocument, rgb, type PDFImage, type PDFPage } from 'pdf-lib';
 import QRCode from 'qrcode';
 import { styleWords } from '../../pattern/styles';
 import { formatMoney } from '../../money';
-import { ansi, wrap } from './template';
+import { PdfFonts, type Weight } from './fonts';
 import type { SlipOrder, SlipShop } from './slip-data';
 
 export const SLIP_PAPERS = {
@@ -29,11 +22,15 @@ export type SlipKind = 'packing' | 'gift';
 const INK = rgb(0.12, 0.09, 0.07);
 const SOFT = rgb(0.42, 0.37, 0.33);
 
-/** The workshop order page the QR opens (bench scanner or phone). */
+/** The workshop order page the packing slip's QR opens (bench scanner or phone). */
 export const orderPageUrl = (origin: string, ref: string) =>
 	`${origin.replace(/\/$/, '')}/workshop/orders/${encodeURIComponent(ref)}`;
 
-type Fonts = { regular: PDFFont; bold: PDFFont };
+/**
+ * The gift slip's QR: the recipient is not the buyer and has no account, so it opens the shop's
+ * public care page (how to look after the piece), never the workshop's signed-in order page.
+ */
+export const giftCareUrl = (origin: string) => `${origin.replace(/\/$/, '')}/care`;
 
 /** Writes lines top-down and starts a new page when one is full. */
 class Cursor {
@@ -41,6 +38,7 @@ class Cursor {
 	y: number;
 	constructor(
 		private doc: PDFDocument,
+		private fonts: PdfFonts,
 		private paper: readonly [number, number],
 		readonly margin: number
 	) {
@@ -56,15 +54,21 @@ class Cursor {
 			this.y = this.paper[1] - this.margin;
 		}
 	}
-	text(s: string, font: PDFFont, size: number, opts: { x?: number; color?: typeof INK } = {}) {
-		for (const line of wrap(s, font, size, this.width - (opts.x ?? 0))) {
+	text(
+		s: string,
+		weight: Weight,
+		size: number,
+		opts: { x?: number; color?: typeof INK; width?: number } = {}
+	) {
+		const width = opts.width ?? this.width - (opts.x ?? 0);
+		for (const line of this.fonts.wrap(s, size, width, weight)) {
 			this.need(size * 1.3);
 			this.y -= size * 1.3;
-			this.page.drawText(line, {
+			this.fonts.draw(this.page, line, {
 				x: this.margin + (opts.x ?? 0),
 				y: this.y,
 				size,
-				font,
+				weight,
 				color: opts.color ?? INK
 			});
 		}
@@ -87,7 +91,7 @@ async function qrImage(doc: PDFDocument, url: string): Promise<PDFImage> {
 
 async function drawOrder(
 	doc: PDFDocument,
-	fonts: Fonts,
+	fonts: PdfFonts,
 	shop: SlipShop,
 	o: SlipOrder,
 	paper: SlipPaper,
@@ -97,9 +101,20 @@ async function drawOrder(
 	const small = paper === 'label';
 	const size = small ? 7.5 : 10;
 	const head = small ? 11 : 16;
-	const c = new Cursor(doc, SLIP_PAPERS[paper], small ? 14 : 40);
+	await fonts.cover(
+		...shop.address,
+		shop.name,
+		shop.email,
+		...o.address,
+		o.giftNote,
+		...o.lines.flatMap((l) => [l.title, l.woodName, l.initials])
+	);
+	const c = new Cursor(doc, fonts, SLIP_PAPERS[paper], small ? 14 : 40);
 	const qrSize = small ? 62 : 86;
-	const qr = await qrImage(doc, orderPageUrl(origin, o.ref));
+	const qr = await qrImage(
+		doc,
+		kind === 'gift' ? giftCareUrl(origin) : orderPageUrl(origin, o.ref)
+	);
 	const top = c.y;
 	c.page.drawImage(qr, {
 		x: SLIP_PAPERS[paper][0] - c.margin - qrSize,
@@ -110,13 +125,13 @@ async function drawOrder(
 
 	const textWidth = c.width - qrSize - 8;
 	const col = (lines: string[], label: string) => {
-		c.text(label, fonts.bold, size, { color: SOFT });
-		for (const l of lines) {
-			for (const w of wrap(l, fonts.regular, size, textWidth)) c.text(w, fonts.regular, size);
-		}
+		c.text(label, 'bold', size, { color: SOFT });
+		for (const l of lines) c.text(l, 'regular', size, { width: textWidth });
 	};
-	c.text(kind === 'gift' ? 'Gift slip' : 'Packing slip', fonts.bold, head);
-	c.text(`Order ${o.ref} · placed ${o.placedOn}`, fonts.bold, size);
+	c.text(kind === 'gift' ? 'Gift slip' : 'Packing slip', 'bold', head);
+	c.text(`Order ${o.ref} · placed ${o.placedOn}`, 'bold', size);
+	if (kind === 'packing' && o.readyBy)
+		c.text(`Promised: ready to post by ${o.readyBy}`, 'regular', size, { width: textWidth });
 	c.gap(size * 0.6);
 	col(shop.address.length ? shop.address : [shop.name], 'From');
 	c.gap(size * 0.6);
@@ -124,19 +139,19 @@ async function drawOrder(
 	c.y = Math.min(c.y, top - qrSize - 6);
 	c.gap(size);
 
-	c.text(kind === 'gift' ? 'In this parcel' : 'Lines', fonts.bold, size + 1);
+	c.text(kind === 'gift' ? 'In this parcel' : 'Lines', 'bold', size + 1);
 	for (const l of o.lines) {
 		c.gap(size * 0.3);
 		const price = kind === 'packing' ? `  —  ${formatMoney(l.lineTotalMinor, o.currency)}` : '';
-		c.text(`${l.quantity} × ${l.title}, ${l.woodName}${price}`, fonts.bold, size);
+		c.text(`${l.quantity} × ${l.title}, ${l.woodName}${price}`, 'bold', size);
 		if (l.initials)
 			c.text(
 				`Personalised: initials "${l.initials}"${l.style ? ` (${styleWords(l.style)})` : ''}`,
-				fonts.regular,
+				'regular',
 				size,
 				{ x: 10 }
 			);
-		else c.text('Ready-made', fonts.regular, size, { x: 10, color: SOFT });
+		else c.text('Ready-made', 'regular', size, { x: 10, color: SOFT });
 	}
 	if (kind === 'packing') {
 		c.gap(size * 0.6);
@@ -148,22 +163,22 @@ async function drawOrder(
 		] as const) {
 			c.text(
 				`${label}: ${formatMoney(v, o.currency)}`,
-				label === 'Total' ? fonts.bold : fonts.regular,
+				label === 'Total' ? 'bold' : 'regular',
 				size
 			);
 		}
 	}
 	if (o.giftNote) {
 		c.gap(size);
-		c.text('Gift note', fonts.bold, size + 1);
-		c.text(o.giftNote, fonts.regular, size + (kind === 'gift' ? 2 : 0));
+		c.text('Gift note', 'bold', size + 1);
+		c.text(o.giftNote, 'regular', size + (kind === 'gift' ? 2 : 0));
 	}
 	c.gap(size);
 	c.text(
 		kind === 'gift'
-			? `Hand-carved for you by ${shop.name}. Questions: ${shop.email}`
+			? `Hand-carved for you by ${shop.name}. Scan the code for how to look after it. Questions: ${shop.email}`
 			: `Questions or returns: ${shop.email}`,
-		fonts.regular,
+		'regular',
 		size - 1,
 		{ color: SOFT }
 	);
@@ -177,13 +192,10 @@ export async function slipsPdf(
 ): Promise<Uint8Array> {
 	const doc = await PDFDocument.create();
 	doc.setTitle(
-		ansi(`${opts.kind === 'gift' ? 'Gift' : 'Packing'} slips ${list.map((o) => o.ref).join(', ')}`)
+		`${opts.kind === 'gift' ? 'Gift' : 'Packing'} slips ${list.map((o) => o.ref).join(', ')}`
 	);
-	doc.setCreator(ansi(shop.name));
-	const fonts = {
-		regular: await doc.embedFont(StandardFonts.Helvetica),
-		bold: await doc.embedFont(StandardFonts.HelveticaBold)
-	};
+	doc.setCreator(shop.name);
+	const fonts = await PdfFonts.for(doc);
 	for (const o of list) await drawOrder(doc, fonts, shop, o, opts.paper, opts.kind, opts.origin);
 	return doc.save();
 }

@@ -3,6 +3,8 @@
  * personalisation, the gift note, the shop's return address. Read-only, one query per order.
  */
 import { isoDay } from '$lib/dates';
+import { buyerReadyBy } from '$lib/carving-queue';
+import { readyByWords } from '../orders/mail';
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
@@ -29,6 +31,8 @@ export type SlipOrder = {
 	taxMinor: number;
 	totalMinor: number;
 	placedOn: string;
+	/** The ready-by day the buyer was given, in words; null when not dated. */
+	readyBy: string | null;
 	lines: SlipLine[];
 };
 
@@ -69,6 +73,7 @@ export async function slipOrders(refs: string[]) {
 			taxMinor: o.taxMinor,
 			totalMinor: o.totalMinor,
 			placedOn: isoDay(o.createdAt),
+			readyBy: buyerReadyBy(o) ? readyByWords(buyerReadyBy(o)) : null,
 			lines: lines
 				.filter((l) => l.orderId === o.id)
 				.map((l) => {

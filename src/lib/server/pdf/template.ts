@@ -7,7 +7,6 @@
  */
 import {
 	PDFDocument,
-	StandardFonts,
 	clip,
 	endPath,
 	popGraphicsState,
@@ -17,9 +16,9 @@ import {
 	setLineWidth,
 	setStrokingRgbColor,
 	stroke as strokeOp,
-	type PDFFont,
 	type PDFPage
 } from 'pdf-lib';
+import { PdfFonts } from './fonts';
 import type { PatternResult } from '../../pattern/types';
 import { facePath } from '../../pattern/paths';
 import { fmt } from '../../pattern/geometry';
@@ -49,31 +48,6 @@ const INK = rgb(0.12, 0.09, 0.07);
 const SOFT = rgb(0.45, 0.4, 0.36);
 const CHIP_FILL = rgb(0.9, 0.88, 0.85);
 const k = PT_PER_MM;
-
-/** The standard fonts speak WinAnsi: swap the few other characters our text uses. */
-export function ansi(s: string): string {
-	return s
-		.replace(/[≥]/g, '>=')
-		.replace(/[≤]/g, '<=')
-		.replace(/[‘’]/g, "'")
-		.replace(/[“”]/g, '"')
-		.replace(/[^\x20-\x7e\u00a0-\u00ff—–•…×±°]/g, '?');
-}
-
-export function wrap(text: string, font: PDFFont, size: number, widthPt: number): string[] {
-	const words = ansi(text).split(/\s+/);
-	const lines: string[] = [];
-	let line = '';
-	for (const w of words) {
-		const next = line ? `${line} ${w}` : w;
-		if (font.widthOfTextAtSize(next, size) > widthPt && line) {
-			lines.push(line);
-			line = w;
-		} else line = next;
-	}
-	if (line) lines.push(line);
-	return lines;
-}
 
 export type TileGrid = {
 	cols: number;
@@ -119,18 +93,21 @@ export async function templatePdf(
 	const pageH = page.h * k;
 	const doc = await PDFDocument.create();
 	doc.setTitle(
-		ansi(
-			`Carving layout${opts.title ? ` — ${opts.title}` : ''}${opts.orderRef ? ` — ${opts.orderRef}` : ''}`
-		)
+		`Carving layout${opts.title ? ` — ${opts.title}` : ''}${opts.orderRef ? ` — ${opts.orderRef}` : ''}`
 	);
 	doc.setCreator('Chipstall');
 	doc.setProducer('Chipstall');
-	const font = await doc.embedFont(StandardFonts.Helvetica);
-	const bold = await doc.embedFont(StandardFonts.HelveticaBold);
+	const fonts = await PdfFonts.for(doc);
+	await fonts.cover(
+		opts.title,
+		opts.orderRef,
+		...result.steps,
+		...result.warnings.map((w) => w.message)
+	);
 	const d = result.drawing;
 	const grid = tileGrid(d.widthMm, d.heightMm, opts.paper);
 
-	infoPage(doc.addPage([pageW, pageH]), result, opts, grid, font, bold);
+	infoPage(doc.addPage([pageW, pageH]), result, opts, grid, fonts);
 
 	for (let row = 0; row < grid.rows; row++) {
 		for (let col = 0; col < grid.cols; col++) {
@@ -146,19 +123,18 @@ export async function templatePdf(
 			]
 				.filter(Boolean)
 				.join('  ·  ');
-			p.drawText(ansi(title), {
+			fonts.draw(p, title, {
 				x: MARGIN_MM * k,
 				y: pageH - (MARGIN_MM + 5) * k,
 				size: 8.5,
-				font: bold,
+				weight: 'bold',
 				color: INK
 			});
 			if (grid.rows * grid.cols > 1) {
-				p.drawText(
-					ansi(
-						`Tiles overlap by ${OVERLAP_MM} mm: lay the round marks of neighbouring tiles over each other, then tape.`
-					),
-					{ x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 8.5) * k, size: 7, font, color: SOFT }
+				fonts.draw(
+					p,
+					`Tiles overlap by ${OVERLAP_MM} mm: lay the round marks of neighbouring tiles over each other, then tape.`,
+					{ x: MARGIN_MM * k, y: pageH - (MARGIN_MM + 8.5) * k, size: 7, color: SOFT }
 				);
 			}
 			drawTile(p, result, grid, win.x, win.y, pageH);
@@ -172,41 +148,43 @@ function infoPage(
 	r: PatternResult,
 	opts: TemplateOptions,
 	grid: TileGrid,
-	font: PDFFont,
-	bold: PDFFont
+	fonts: PdfFonts
 ) {
+	const text = (
+		s: string,
+		o: { x: number; y: number; size: number; bold?: boolean; color?: typeof INK }
+	) => fonts.draw(p, s, { ...o, weight: o.bold ? 'bold' : 'regular', color: o.color ?? INK });
 	const pageW = p.getWidth();
 	const pageH = p.getHeight();
 	const left = MARGIN_MM * k;
 	const width = pageW - 2 * left;
 	let y = pageH - MARGIN_MM * k - 14;
-	p.drawText(ansi(`Carving layout${opts.title ? ` — ${opts.title}` : ''}`), {
+	text(`Carving layout${opts.title ? ` — ${opts.title}` : ''}`, {
 		x: left,
 		y,
 		size: 16,
-		font: bold,
+		bold: true,
 		color: INK
 	});
 	y -= 18;
 	if (opts.orderRef) {
-		p.drawText(ansi(`Order ${opts.orderRef}`), { x: left, y, size: 11, font: bold, color: INK });
+		text(`Order ${opts.orderRef}`, { x: left, y, size: 11, bold: true });
 		y -= 16;
 	}
-	p.drawText('Print at actual size / 100 %. Turn off "fit to page" and any scaling.', {
+	text('Print at actual size / 100 %. Turn off "fit to page" and any scaling.', {
 		x: left,
 		y,
 		size: 11,
-		font: bold,
+		bold: true,
 		color: INK
 	});
 	y -= 14;
-	p.drawText(
+	text(
 		`Then measure the square: it must be ${CALIBRATION_MM} mm on each side, or the layout is not true to size.`,
 		{
 			x: left,
 			y,
 			size: 9,
-			font,
 			color: SOFT
 		}
 	);
@@ -222,11 +200,10 @@ function infoPage(
 		strokeOp(),
 		popGraphicsState()
 	);
-	p.drawText(`${CALIBRATION_MM} mm`, {
+	text(`${CALIBRATION_MM} mm`, {
 		x: left + sq / 2 - 12,
 		y: y - sq / 2 - 3,
 		size: 9,
-		font,
 		color: INK
 	});
 	const facts = [
@@ -241,11 +218,11 @@ function infoPage(
 	];
 	let fy = y - 10;
 	for (const f of facts) {
-		p.drawText(ansi(f), { x: left + sq + 10 * k, y: fy, size: 10, font, color: INK });
+		text(f, { x: left + sq + 10 * k, y: fy, size: 10 });
 		fy -= 14;
 	}
 	y -= sq + 18;
-	p.drawText('Layout steps', { x: left, y, size: 12, font: bold, color: INK });
+	text('Layout steps', { x: left, y, size: 12, bold: true });
 	y -= 15;
 	const lines = [
 		...r.steps.map((s, i) => ({ text: `${i + 1}. ${s}`, bold: false })),
@@ -256,9 +233,9 @@ function infoPage(
 		}
 	];
 	for (const l of lines) {
-		for (const part of wrap(l.text, l.bold ? bold : font, 9.5, width)) {
+		for (const part of fonts.wrap(l.text, 9.5, width, l.bold ? 'bold' : 'regular')) {
 			if (y < MARGIN_MM * k) return;
-			p.drawText(part, { x: left, y, size: 9.5, font: l.bold ? bold : font, color: INK });
+			text(part, { x: left, y, size: 9.5, bold: l.bold });
 			y -= 12.5;
 		}
 		y -= 3;
