@@ -118,6 +118,7 @@ test('a database crash mid-checkout: one charge, stock once, one letter each, on
 				headers: {
 					'content-type': 'application/x-www-form-urlencoded',
 					origin: app.url,
+					accept: 'text/html', // a plain form post: the redirect comes as a 303
 					cookie: cart,
 					'x-forwarded-for': from
 				},
