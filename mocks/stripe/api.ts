@@ -105,6 +105,18 @@ export const routes: [string, RegExp, Handler][] = [
 	['GET', /^\/v1\/refunds\/([^/]+)$/, (ctx, _f, m) => getRefund(ctx.state, m[1])],
 	[
 		'GET',
+		/^\/v1\/refunds$/,
+		// The list, newest first, filtered by payment_intent when given (no paging: a test's few).
+		(ctx, form) => {
+			const pi = typeof form.payment_intent === 'string' ? form.payment_intent : undefined;
+			const data = [...ctx.state.refunds.values()]
+				.filter((r) => !pi || r.payment_intent === pi)
+				.reverse();
+			return { object: 'list', url: '/v1/refunds', has_more: false, data };
+		}
+	],
+	[
+		'GET',
 		/^\/v1\/events\/([^/]+)$/,
 		(ctx, _f, m) => found(ctx.state.events.get(m[1]), 'event', m[1])
 	]

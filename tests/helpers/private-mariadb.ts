@@ -103,6 +103,16 @@ export class PrivateMariadb {
 		this.child = null;
 	}
 
+	/** A crash: SIGKILL (as `kill -9`), no clean shutdown; InnoDB recovers on the next start. */
+	async kill() {
+		const child = this.child;
+		if (!child || child.exitCode !== null) return;
+		const exited = new Promise<void>((r) => child.once('exit', () => r()));
+		child.kill('SIGKILL');
+		await exited;
+		this.child = null;
+	}
+
 	async destroy() {
 		await this.stop();
 		rmSync(this.dir, { recursive: true, force: true });

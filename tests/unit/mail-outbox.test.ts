@@ -6,12 +6,12 @@
  */
 import { eq, like } from 'drizzle-orm';
 import { SMTPServer } from 'smtp-server';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
 import { config } from '../../src/lib/server/config';
 import { deliverMail, resetMailTransport, sendMail } from '../../src/lib/server/mail';
-import { drainOutbox } from '../../src/lib/server/mail/outbox';
+import { drainOutbox, enqueueMail, LEASE_SECONDS } from '../../src/lib/server/mail/outbox';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 import { freePort } from '../../scripts/lib/services';
 import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';
@@ -110,6 +110,46 @@ describe('outbox', () => {
 			expect(row.status).toBe('sent');
 			expect(row.attempts).toBe(1);
 		} finally {
+			await new Promise<void>((r) => server.close(() => r()));
+		}
+	});
+
+	it('a message whose sender died mid-send goes again only after its lease, with the same Message-ID, logged', async () => {
+		// RFC 5322 §3.6.4: one message, one Message-ID; receivers may fold copies that share it.
+		const to = `lease-${tag}@example.test`;
+		const id = await enqueueMail({ to, subject: `Lease ${tag}`, text: 'hello' });
+		const [row] = await db.select().from(s.outbox).where(eq(s.outbox.id, id));
+		expect(row.messageId).toMatch(/^<[^@\s]+@[^>\s]+>$/);
+		// Another process claimed it, handed it over maybe, and died before marking it.
+		await db
+			.update(s.outbox)
+			.set({
+				claimedBy: 'a-process-that-died',
+				claimedUntil: new Date(Date.now() + (LEASE_SECONDS - 5) * 1000),
+				attempts: 1
+			})
+			.where(eq(s.outbox.id, id));
+		expect(LEASE_SECONDS).toBeLessThanOrEqual(30);
+		const server = await smtpOn(port);
+		const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+		try {
+			await drainOutbox(deliverMail);
+			expect(received.filter((m) => m.includes(to))).toHaveLength(0); // the lease still holds
+			await db
+				.update(s.outbox)
+				.set({ claimedUntil: new Date(Date.now() - 1000) })
+				.where(eq(s.outbox.id, id));
+			await drainOutbox(deliverMail);
+			const mine = received.filter((m) => m.includes(to));
+			expect(mine).toHaveLength(1);
+			expect(mine[0]).toMatch(
+				new RegExp(`Message-ID: ${row.messageId!.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`, 'i')
+			);
+			expect(warn.mock.calls.flat().join(' ')).toContain(row.messageId!);
+			const [after] = await db.select().from(s.outbox).where(eq(s.outbox.id, id));
+			expect(after).toMatchObject({ status: 'sent', messageId: row.messageId, attempts: 2 });
+		} finally {
+			warn.mockRestore();
 			await new Promise<void>((r) => server.close(() => r()));
 		}
 	});

@@ -10,6 +10,8 @@ export type OutgoingMail = {
 	text: string;
 	html?: string;
 	replyTo?: string;
+	/** Fixed when the message is queued, so a resend carries the same one. */
+	messageId?: string;
 };
 
 let transport: Transporter | undefined;
@@ -22,10 +24,10 @@ export function mailTransport(): Transporter {
 		secure: config.mail.secure,
 		// Only authenticate when a user is configured; the local stand-in needs none.
 		auth: config.mail.user ? { user: config.mail.user, pass: config.mail.password } : undefined,
-		// Bounded, so an outbox lease (120 s) always outlives one attempt.
-		connectionTimeout: 10_000,
-		greetingTimeout: 10_000,
-		socketTimeout: 30_000
+		// Bounded, so an outbox lease (LEASE_SECONDS, 30 s) always outlives one attempt.
+		connectionTimeout: 5_000,
+		greetingTimeout: 5_000,
+		socketTimeout: 15_000
 	});
 	return transport;
 }

@@ -73,6 +73,16 @@ export class Limiter {
 		}
 	}
 
+	/** True when the key has used up its points in the window (counts nothing). */
+	async isOver(key: string): Promise<boolean> {
+		try {
+			const res = await this.store.get(hashed(key));
+			return res !== null && res.consumedPoints > this.policy.points;
+		} catch {
+			return false;
+		}
+	}
+
 	/** Forgets a key's attempts (after a successful sign-in for that account). */
 	async forget(key: string): Promise<void> {
 		await this.store.delete(hashed(key)).catch(() => undefined);

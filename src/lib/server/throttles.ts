@@ -1,7 +1,8 @@
 /**
  * The limits themselves, one place for all of them. Window: `config.throttleWindowS` (15 min).
- * Sign-in counts every attempt per account and per client address; a successful sign-in clears
- * the account's count. Reset and sign-up count per e-mail and per address; checkout counts the
+ * Sign-in (see auth/sign-in-throttle.ts) counts every attempt per account and client address
+ * together, per address, and per account for devices the account has not signed in from; a
+ * successful sign-in clears that address's count for the account. Reset and sign-up count per e-mail and per address; checkout counts the
  * pieces held per basket and per address; a buyer's message about an order counts per order
  * and per address. The pattern API has its own per-minute limit.
  */
@@ -11,6 +12,9 @@ import { Limiter } from './rate-limit';
 const w = () => config.throttleWindowS;
 
 export const throttles = {
+	/** One account from one address: a person mistyping gets ten tries, a guesser no more. */
+	signInPair: new Limiter({ prefix: 'signin-pair', points: 10, durationS: w() }),
+	/** One account from devices it never signed in from, whatever the address. */
 	signInAccount: new Limiter({ prefix: 'signin-acct', points: 50, durationS: w() }),
 	signInAddress: new Limiter({ prefix: 'signin-ip', points: 300, durationS: w() }),
 	resetEmail: new Limiter({ prefix: 'reset-mail', points: 5, durationS: w() }),

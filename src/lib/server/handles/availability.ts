@@ -29,12 +29,29 @@ const DOWN_CODES = new Set([
 /** The same by MariaDB error number (1045 access denied, 1053 shutdown, 1927 connection killed, 2006/2013 gone). */
 const DOWN_ERRNOS = new Set([1045, 1053, 1040, 1927, 2002, 2003, 2006, 2013]);
 
-/** True when `err` (or anything in its `cause` chain, e.g. drizzle's wrapper) means "database down". */
+/**
+ * mysql2's words for a connection that already died: a query (often the ROLLBACK a transaction
+ * sends after its first error) on it fails with one of these, carrying no code.
+ */
+const CLOSED = /connection is in closed state|can't write in closed state|pool is closed/i;
+
+/**
+ * True when `err` (or anything in its `cause` chain, e.g. drizzle's wrapper around the ROLLBACK
+ * that failed) means "database down". mysql2 marks errors that end a connection `fatal`.
+ */
 export function isDatabaseDown(err: unknown): boolean {
-	for (let e = err, depth = 0; e && typeof e === 'object' && depth < 5; depth++) {
-		const { code, errno, cause } = e as { code?: unknown; errno?: unknown; cause?: unknown };
+	for (let e = err, depth = 0; e && typeof e === 'object' && depth < 6; depth++) {
+		const { code, errno, cause, fatal, message } = e as {
+			code?: unknown;
+			errno?: unknown;
+			cause?: unknown;
+			fatal?: unknown;
+			message?: unknown;
+		};
 		if (typeof code === 'string' && DOWN_CODES.has(code)) return true;
 		if (typeof errno === 'number' && DOWN_ERRNOS.has(errno)) return true;
+		if (fatal === true) return true;
+		if (typeof message === 'string' && CLOSED.test(message)) return true;
 		e = cause;
 	}
 	return false;

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
-import { db } from '../db';
+import { db, type Tx } from '../db';
 import { outbox } from '../db/schema';
 import { config } from '../config';
 import type { OutgoingMail } from '../mail';
@@ -11,10 +11,19 @@ import type { OutgoingMail } from '../mail';
  * — the request that wrote it, or the drainer of any app process — with an atomic UPDATE that
  * sets a lease (claimed_by / claimed_until). Two processes can never hold the same lease, so a
  * row is sent once; a row whose sender died mid-way is retried when its lease runs out.
+ *
+ * Mail an order's change causes is written with `queueMail` inside the transaction that makes
+ * the change, so the two commit or fail together; `sendQueued` then tries to send it at once.
+ *
+ * Duplicates are bounded: a message may go out a second time only when its sender died (or the
+ * database went away) between handing it to SMTP and marking it sent, and then not before its
+ * lease (`LEASE_SECONDS`) ran out, carrying the same Message-ID, which is fixed when the row is
+ * written, and with a log line. A process that did hand a message over but could not mark it
+ * remembers it and marks it without sending it again.
  */
 
 /** How long a claim lasts. Longer than the transport's timeouts put together (see mail.ts). */
-const LEASE_SECONDS = 120;
+export const LEASE_SECONDS = 30;
 /** After a failed attempt, wait this long before the row may be claimed again. */
 const RETRY_AFTER_SECONDS = 5;
 const BATCH = 20;
@@ -28,12 +37,19 @@ const asMail = (r: Row): OutgoingMail => ({
 	subject: r.subject,
 	text: r.textBody,
 	html: r.htmlBody ?? undefined,
-	replyTo: r.replyTo ?? undefined
+	replyTo: r.replyTo ?? undefined,
+	messageId: r.messageId ?? undefined
 });
 
-/** Writes one message to the outbox as pending; returns its id. */
-export async function enqueueMail(mail: OutgoingMail): Promise<number> {
-	const [{ id }] = await db
+/** A Message-ID of our own (RFC 5322 §3.6.4), on the sender's domain. */
+export function newMessageId(): string {
+	const domain = /@([^>\s]+)>?\s*$/.exec(config.mail.from)?.[1] ?? 'chipstall.invalid';
+	return `<${randomUUID()}@${domain}>`;
+}
+
+/** Writes one message to the outbox as pending (in `tx` when given); returns its id. */
+export async function enqueueMail(mail: OutgoingMail, tx?: Tx): Promise<number> {
+	const [{ id }] = await (tx ?? db)
 		.insert(outbox)
 		.values({
 			recipients: (Array.isArray(mail.to) ? mail.to : [mail.to]).join(', '),
@@ -41,11 +57,40 @@ export async function enqueueMail(mail: OutgoingMail): Promise<number> {
 			textBody: mail.text,
 			htmlBody: mail.html ?? null,
 			replyTo: mail.replyTo ?? null,
+			// Fixed now, so a resend after a crash carries the same id and mail systems can fold it.
+			messageId: mail.messageId ?? newMessageId(),
 			createdAt: new Date()
 		})
 		.$returningId();
 	return id;
 }
+
+/** Writes a message inside the caller's transaction: it exists exactly when the change does. */
+export function queueMail(tx: Tx, mail: OutgoingMail): Promise<number> {
+	return enqueueMail(mail, tx);
+}
+
+/**
+ * After the transaction that queued them committed: tries to send the rows now. Never throws;
+ * whatever is not sent stays for the drainer.
+ */
+export async function sendQueued(ids: number[]): Promise<void> {
+	if (ids.length === 0) return;
+	const { deliverMail } = await import('../mail');
+	for (const id of ids) {
+		try {
+			await sendNow(id, deliverMail);
+		} catch (err) {
+			console.error('Queued mail left for the drainer', id, err);
+		}
+	}
+}
+
+/**
+ * Rows this process handed to SMTP but could not mark sent (the database went away): marked
+ * without a second send when next claimed here.
+ */
+const handedOver = new Map<number, string>();
 
 const claimable = sql`${outbox.status} = 'pending' and (${outbox.claimedUntil} is null or ${outbox.claimedUntil} < utc_timestamp())`;
 
@@ -67,13 +112,27 @@ async function sendClaimed(rows: Row[], token: string, deliver: Deliver) {
 	let sent = 0;
 	for (const row of rows) {
 		try {
-			const messageId = await deliver(asMail(row));
+			let messageId = handedOver.get(row.id);
+			if (!messageId) {
+				if (row.attempts > 1) {
+					// An earlier try failed, or its sender never said how it went (then it may have
+					// gone out): logged, and sent with the same Message-ID.
+					console.warn(
+						`Outbox: sending message ${row.id} ${row.messageId ?? ''} again (attempt ${row.attempts}${row.lastError ? `, last error: ${row.lastError}` : ', its lease ran out'})`
+					);
+				}
+				messageId = await deliver(asMail(row));
+				handedOver.set(row.id, messageId);
+			}
 			await db
 				.update(outbox)
 				.set({ status: 'sent', sentAt: new Date(), messageId, claimedBy: null, claimedUntil: null })
 				.where(and(eq(outbox.id, row.id), eq(outbox.claimedBy, token)));
+			handedOver.delete(row.id);
 			sent++;
 		} catch (err) {
+			if (handedOver.has(row.id)) throw err; // the database is away: the claim lapses, we retry
+
 			await db
 				.update(outbox)
 				.set({

@@ -7,9 +7,10 @@ import { carverSubject } from '$lib/shop-format';
 import { formatMoney } from '$lib/money';
 import { buyerReadyBy } from '$lib/carving-queue';
 import { orderBalance } from '$lib/order-balance';
-import { sendMail } from '../mail';
+import { transact } from '../db/retry';
+import { queueMail, sendQueued } from '../mail/outbox';
 import { esc, mailButton, mailPage } from '../mail-html';
-import { afterOrderPaid } from './paid-alert';
+import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
 import { orderLink } from './links';
 import { readyByWords } from './mail';
 import { orderById, type OrderDetail } from './views';
@@ -58,10 +59,20 @@ ${mailButton(link, 'See your order')}`);
  * never undoes the order.
  */
 export async function afterBoothOrder(orderId: number, fairName: string, origin?: string) {
-	await afterOrderPaid(orderId, origin ?? '');
+	await afterOrderPaid(orderId);
 	try {
-		const order = await orderById(orderId);
-		if (order) await sendMail({ to: order.email, ...boothOrderMail(order, fairName, origin) });
+		// Both letters are queued together: the workshop's alert and the buyer's confirmation.
+		const ids = await transact(async (tx) => {
+			const order = await orderById(orderId, tx);
+			if (!order) return [];
+			const alert = await queueNewOrderAlert(tx, orderId, origin ?? '');
+			const buyer = await queueMail(tx, {
+				to: order.email,
+				...boothOrderMail(order, fairName, origin)
+			});
+			return [...alert, buyer];
+		});
+		await sendQueued(ids);
 	} catch (err) {
 		console.error('booth order e-mail failed', orderId, err);
 	}

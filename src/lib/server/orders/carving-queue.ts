@@ -218,9 +218,18 @@ export function carvedMinutes(
  * sees it and writes to the buyer.
  */
 export async function promiseReadyBy(orderId: number, now = new Date(), conn: Db | Tx = db) {
-	const dated = await recomputeReadyBy(now, conn);
-	let readyBy = dated.get(orderId);
-	if (readyBy === undefined) {
+	// Only this order is dated here, inside the payment's transaction, so the paid e-mail and the
+	// owner's alert written in that transaction state it; the other orders' plans are worked out
+	// again after the commit (afterOrderPaid), so a payment never locks every queued order.
+	const q = await carvingQueue(now, conn);
+	let readyBy: string | null | undefined;
+	for (const l of q.lines) {
+		if (l.orderId !== orderId) continue;
+		readyBy = l.carvedOn ? readyAfterCarving(l.carvedOn, q.schedule, q.daysOff) : null;
+	}
+	if (readyBy !== undefined) {
+		await conn.update(orders).set({ readyBy }).where(eq(orders.id, orderId));
+	} else {
 		// Nothing of it to carve (ready-made, or already carved): packing days from today.
 		readyBy = await readyByNow(0, now, conn);
 		await conn.update(orders).set({ readyBy }).where(eq(orders.id, orderId));

@@ -3,7 +3,8 @@ import { formatMoney } from '$lib/money';
 import { styleWords } from '$lib/pattern/styles';
 import { countryName } from '$lib/shipping';
 import { formatDay } from '$lib/dates';
-import { sendMail } from '../mail';
+import type { Tx } from '../db';
+import { queueMail } from '../mail/outbox';
 import { esc } from '../mail-html';
 import { orderLink } from './links';
 import type { OrderDetail } from './views';
@@ -107,9 +108,9 @@ ${care.letters ? `<p style="font-size:15px;margin:4px 0">${esc(LETTERS_CARE)}</p
 	return { subject: `Order ${order.ref} is paid — thank you`, text, html };
 }
 
-export async function sendConfirmation(order: OrderDetail, origin?: string) {
-	const mail = confirmationMail(order, origin);
-	await sendMail({ to: order.email, ...mail });
+/** Queues the confirmation inside the transaction that marks the order paid. */
+export function queueConfirmation(tx: Tx, order: OrderDetail, origin?: string) {
+	return queueMail(tx, { to: order.email, ...confirmationMail(order, origin) });
 }
 
 /**
@@ -123,7 +124,7 @@ export function pieceGoneMail(order: OrderDetail, origin?: string) {
 		.map((l) => `${l.quantity} × ${l.title} in ${l.woodName}`);
 	const refund =
 		order.refundedMinor >= order.totalMinor
-			? `We have refunded the full ${money} to your card. Banks usually show it within 5 to 10 working days.`
+			? `We are refunding the full ${money} to your card now. Banks usually show it within 5 to 10 working days.`
 			: `We will refund the full ${money}; ${carverSubject()} will confirm by e-mail once it is done.`;
 	const text = [
 		`Dear ${order.buyerName},`,
@@ -153,6 +154,38 @@ export function pieceGoneMail(order: OrderDetail, origin?: string) {
 	};
 }
 
-export async function sendPieceGone(order: OrderDetail, origin?: string) {
-	await sendMail({ to: order.email, ...pieceGoneMail(order, origin) });
+/** Queued with the move to `piece_gone`; the refund follows at once after the commit. */
+export function queuePieceGone(tx: Tx, order: OrderDetail, origin?: string) {
+	return queueMail(tx, { to: order.email, ...pieceGoneMail(order, origin) });
+}
+
+/**
+ * The buyer paid on a payment page that a newer checkout of the same basket had already
+ * replaced (two tabs, a double tap). The newer page is the one that counts; this payment goes
+ * back in full. One plain letter says so.
+ */
+export function replacedPaidMail(order: OrderDetail, origin?: string) {
+	const money = formatMoney(order.totalMinor, order.currency);
+	const text = [
+		`Dear ${order.buyerName},`,
+		'',
+		`You paid ${money} for order ${order.ref} on a payment page that had already been replaced: the same basket was sent to checkout again, in another tab or by a second tap.`,
+		'',
+		`So that you are not charged twice for one basket, we are refunding these ${money} to your card in full now. Banks usually show it within 5 to 10 working days.`,
+		'',
+		'If you also paid on the newer page, that order goes ahead as usual and you will get its own confirmation. If you did not, your basket still has the pieces: open it and pay once more.',
+		'',
+		`This order: ${orderLink(order.ref, origin)}`
+	].join('\n');
+	const html = `<!doctype html><html><body style="font-family:Nunito,Segoe UI,sans-serif;font-size:17px;line-height:1.5;color:#2e2118">
+<p>Dear ${esc(order.buyerName)},</p>
+<p>You paid ${esc(money)} for order <strong>${esc(order.ref)}</strong> on a payment page that had already been replaced: the same basket was sent to checkout again, in another tab or by a second tap.</p>
+<p><strong>So that you are not charged twice for one basket, we are refunding these ${esc(money)} to your card in full now.</strong> Banks usually show it within 5 to 10 working days.</p>
+<p>If you also paid on the newer page, that order goes ahead as usual and you will get its own confirmation. If you did not, your basket still has the pieces: open it and pay once more.</p>
+</body></html>`;
+	return { subject: `Order ${order.ref}: a second payment for one basket, refunded`, text, html };
+}
+
+export function queueReplacedPaid(tx: Tx, order: OrderDetail, origin?: string) {
+	return queueMail(tx, { to: order.email, ...replacedPaidMail(order, origin) });
 }

@@ -1,9 +1,9 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { z } from 'zod';
-import { db } from '../db';
+import { db, type Db, type Tx } from '../db';
 import { settings, users } from '../db/schema';
-import { sendMail } from '../mail';
-import { promiseReadyBy } from './carving-queue';
+import { queueMail } from '../mail/outbox';
+import { recomputeReadyBy } from './carving-queue';
 import { mailOrder } from './mail-order';
 import { newOrderAlertMail } from './shipping-mail';
 
@@ -11,8 +11,8 @@ const KEY = 'orderAlertHelpers';
 const helperIds = z.array(z.string().max(36)).max(200);
 
 /** Helpers who asked for an e-mail on each paid order (the owner always gets one). */
-export async function alertHelperIds(): Promise<string[]> {
-	const [row] = await db.select().from(settings).where(eq(settings.key, KEY)).limit(1);
+export async function alertHelperIds(conn: Db | Tx = db): Promise<string[]> {
+	const [row] = await conn.select().from(settings).where(eq(settings.key, KEY)).limit(1);
 	const parsed = row ? helperIds.safeParse(row.value) : null;
 	return parsed?.success ? parsed.data : [];
 }
@@ -29,11 +29,14 @@ export async function setAlertOptIn(userId: string, on: boolean) {
 	});
 }
 
-async function alertRecipients(): Promise<string[]> {
-	const helpers = await alertHelperIds();
-	const owners = await db.select({ email: users.email }).from(users).where(eq(users.role, 'owner'));
+async function alertRecipients(conn: Db | Tx): Promise<string[]> {
+	const helpers = await alertHelperIds(conn);
+	const owners = await conn
+		.select({ email: users.email })
+		.from(users)
+		.where(eq(users.role, 'owner'));
 	const asked = helpers.length
-		? await db
+		? await conn
 				.select({ email: users.email })
 				.from(users)
 				.where(and(eq(users.role, 'helper'), inArray(users.id, helpers)))
@@ -42,21 +45,24 @@ async function alertRecipients(): Promise<string[]> {
 }
 
 /**
- * After a payment is recorded: the queue changed, so every queued order's ready-by date is worked
- * out again and this order's is kept as the buyer's promise; then the workshop hears of the
- * order. Run before the buyer's paid e-mail, which states that promise. Neither may undo or fail
- * the payment.
+ * The workshop's alert for a paid order, written to the outbox inside the transaction that
+ * records the payment (so it exists exactly when the payment does). Returns the outbox ids.
  */
-export async function afterOrderPaid(orderId: number, origin: string) {
+export async function queueNewOrderAlert(tx: Tx, orderId: number, origin: string) {
+	const order = await mailOrder(orderId, tx);
+	const to = await alertRecipients(tx);
+	if (to.length === 0) return [];
+	return [await queueMail(tx, { to, ...newOrderAlertMail(order, origin, order.promisedBy) })];
+}
+
+/**
+ * After a payment is recorded: the queue changed, so every queued order's ready-by date is worked
+ * out again. It may not undo or fail the payment.
+ */
+export async function afterOrderPaid(orderId: number) {
 	try {
-		await promiseReadyBy(orderId);
+		await recomputeReadyBy();
 	} catch (err) {
 		console.error('ready-by recompute failed', orderId, err);
-	}
-	try {
-		const [order, to] = await Promise.all([mailOrder(orderId), alertRecipients()]);
-		if (to.length) await sendMail({ to, ...newOrderAlertMail(order, origin, order.promisedBy) });
-	} catch (err) {
-		console.error('new-order alert failed', orderId, err);
 	}
 }

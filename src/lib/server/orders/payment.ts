@@ -5,9 +5,10 @@
  * Events are handled through `eventHandlers`, a map of event type → handler: each handler checks
  * the fields it needs with zod (a malformed event is a 400 with a reason, never a 500), records
  * the event id first so a repeat changes nothing, and does its work in one transaction that is
- * retried on deadlock. Mail and refunds go out only after that commit.
+ * retried on deadlock. Every e-mail the change causes is written to the outbox in that same
+ * transaction; refunds and the first try at sending go out only after the commit.
  */
-import { and, eq } from 'drizzle-orm';
+import { and, eq, gt } from 'drizzle-orm';
 import { formatRate } from '$lib/money';
 import { styleWords } from '$lib/pattern/styles';
 import { z } from 'zod';
@@ -20,9 +21,11 @@ import type { PricedCart } from '../cart/pricing';
 import { forgetCheckoutDetails } from '../cart/checkout-details';
 import { heldLines, releaseInTx, releaseOrder, takeStock } from './holds';
 import { moveOrder } from './status';
-import { sendConfirmation, sendPieceGone } from './mail';
+import { queueConfirmation, queuePieceGone, queueReplacedPaid } from './mail';
 import { orderById, orderByRef } from './views';
-import { afterOrderPaid } from './paid-alert';
+import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
+import { promiseReadyBy } from './carving-queue';
+import { sendQueued } from '../mail/outbox';
 import {
 	handleRefundEvent,
 	refundedChargeObject,
@@ -186,16 +189,30 @@ async function lockOrderFor(tx: Tx, session: z.infer<typeof sessionObject>) {
 }
 
 type PaidOutcome =
-	| { kind: 'paid'; orderId: number }
-	| { kind: 'gone'; orderId: number; paymentIntentId: string | null }
+	| { kind: 'paid'; orderId: number; mails: number[] }
+	| { kind: 'gone' | 'replaced'; orderId: number; paymentIntentId: string | null; mails: number[] }
 	| { kind: 'none'; why: string };
+
+/** A later order of the same basket exists: this one was replaced by a second checkout. */
+async function replacedByNewer(tx: Tx, order: { id: number; cartId: string | null }) {
+	if (!order.cartId) return false;
+	const [newer] = await tx
+		.select({ id: orders.id })
+		.from(orders)
+		.where(and(eq(orders.cartId, order.cartId), gt(orders.id, order.id)))
+		.limit(1);
+	return Boolean(newer);
+}
 
 /**
  * Payment completed. In one transaction: record the event, and then either mark the order paid
  * (its pieces are already held), or, when its hold was released before the payment landed, take
- * the pieces again if they are still on the shelf, or else put the order in `piece_gone`.
+ * the pieces again if they are still on the shelf, or else put the order in `piece_gone`. An
+ * order that a newer checkout of the same basket replaced is never revived: one basket is
+ * charged once, so that payment is recorded on it and refunded. The e-mails each outcome causes
+ * are queued in the same transaction.
  */
-async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
+async function applyPaid(event: Stripe.Event, now: Date, origin: string): Promise<PaidOutcome> {
 	const session = parseObject(sessionObject, event);
 	if (session.payment_status !== undefined && session.payment_status !== 'paid')
 		return { kind: 'none', why: 'not paid yet' };
@@ -211,6 +228,21 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 			holdExpiresAt: null,
 			paidAt: now
 		};
+		if (order.status === 'cancelled' && (await replacedByNewer(tx, order))) {
+			await tx.update(orders).set(payment).where(eq(orders.id, order.id));
+			const detail = (await orderById(order.id, tx))!;
+			const mail = await queueReplacedPaid(
+				tx,
+				{ ...detail, refundedMinor: detail.totalMinor },
+				origin
+			);
+			return {
+				kind: 'replaced',
+				orderId: order.id,
+				paymentIntentId: session.payment_intent,
+				mails: [mail]
+			};
+		}
 		if (order.status === 'cancelled') {
 			const short = await takeStock(
 				tx,
@@ -226,7 +258,16 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 					payment,
 					now
 				);
-				return { kind: 'gone', orderId: order.id, paymentIntentId: session.payment_intent };
+				const detail = (await orderById(order.id, tx))!;
+				// The refund is asked for right after the commit; without a payment id the owner does it.
+				const refundedMinor = session.payment_intent ? detail.totalMinor : 0;
+				const mail = await queuePieceGone(tx, { ...detail, refundedMinor }, origin);
+				return {
+					kind: 'gone',
+					orderId: order.id,
+					paymentIntentId: session.payment_intent,
+					mails: [mail]
+				};
 			}
 		}
 		await moveOrder(
@@ -240,74 +281,66 @@ async function applyPaid(event: Stripe.Event, now: Date): Promise<PaidOutcome> {
 						: 'Payment received.'
 			},
 			tx,
-			// The ready-by date is given after the commit, from the queue (promiseReadyBy).
 			payment,
 			now
 		);
+		// Dated before the letters are written, so the paid e-mail and the owner's alert state the
+		// same ready-by day as every other place.
+		await promiseReadyBy(order.id, now, tx);
 		if (order.cartId) {
 			await tx.delete(cartLines).where(eq(cartLines.cartId, order.cartId));
 			// The basket's work is done; the details live on in the order itself.
 			await forgetCheckoutDetails(tx, order.cartId);
 		}
-		return { kind: 'paid', orderId: order.id };
+		const detail = (await orderById(order.id, tx))!;
+		const mails = [
+			await queueConfirmation(tx, detail, origin),
+			...(await queueNewOrderAlert(tx, order.id, origin))
+		];
+		return { kind: 'paid', orderId: order.id, mails };
 	});
 }
 
 /**
- * A paid order whose piece is gone: the money goes back at once through the provider (one full
- * refund, keyed so a retry never refunds twice), and the buyer is told plainly. The order stays
- * in `piece_gone` for the owner, who may offer to carve another or close it as refunded.
+ * A payment that must go back in full (the piece is gone, or a newer checkout replaced this
+ * one): one full refund through the provider, keyed so a retry never refunds twice. The buyer's
+ * letter was queued with the change. A `piece_gone` order stays for the owner, who may offer to
+ * carve another or close it as refunded.
  */
-async function refundGone(orderId: number, paymentIntentId: string | null) {
+async function refundWhole(
+	orderId: number,
+	paymentIntentId: string | null,
+	reason: 'piece_gone' | 'replaced'
+) {
 	const order = await orderById(orderId);
-	if (!order) return;
-	let refunded = false;
-	if (paymentIntentId) {
-		try {
-			await stripe().refunds.create(
-				{
-					payment_intent: paymentIntentId,
-					metadata: { orderRef: order.ref, reason: 'piece_gone' }
-				},
-				{ idempotencyKey: `piece-gone-${order.ref}` }
-			);
-			await transact((tx) =>
-				tx
-					.update(orders)
-					.set({ refundedMinor: order.totalMinor })
-					.where(and(eq(orders.id, orderId), eq(orders.status, 'piece_gone')))
-			);
-			refunded = true;
-		} catch (err) {
-			// The owner sees the order in "piece gone" with nothing refunded and refunds by hand.
-			console.error('Refund for a sold-out paid order failed', order.ref, err);
-		}
-	}
+	if (!order || !paymentIntentId) return;
 	try {
-		await sendPieceGone({ ...order, refundedMinor: refunded ? order.totalMinor : 0 });
+		await stripe().refunds.create(
+			{ payment_intent: paymentIntentId, metadata: { orderRef: order.ref, reason } },
+			{ idempotencyKey: `${reason === 'piece_gone' ? 'piece-gone' : reason}-${order.ref}` }
+		);
+		await transact((tx) =>
+			tx
+				.update(orders)
+				.set({ refundedMinor: order.totalMinor })
+				.where(and(eq(orders.id, orderId), eq(orders.paymentIntentId, paymentIntentId)))
+		);
 	} catch (err) {
-		console.error('Piece-gone e-mail failed', order.ref, err);
+		// The owner sees the paid order with nothing refunded and refunds by hand.
+		console.error('Automatic refund failed', order.ref, reason, err);
 	}
 }
 
 async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<EventResult> {
-	const outcome = await applyPaid(event, new Date());
-	if (outcome.kind === 'gone') {
-		await refundGone(outcome.orderId, outcome.paymentIntentId);
-		return { handled: true, changed: true, outcome: 'piece_gone' };
-	}
+	const outcome = await applyPaid(event, new Date(), origin);
 	if (outcome.kind === 'none') return { handled: true, changed: false, outcome: outcome.why };
-	// Dated first, so the paid e-mail states the same ready-by day as every other place.
-	await afterOrderPaid(outcome.orderId, origin);
-	const order = await orderById(outcome.orderId);
-	if (order) {
-		try {
-			await sendConfirmation(order, origin);
-		} catch (err) {
-			// The payment is recorded; a failed e-mail must not make the provider resend the event.
-			console.error('Confirmation e-mail failed', order.ref, err);
-		}
+	await sendQueued(outcome.mails);
+	if (outcome.kind === 'gone' || outcome.kind === 'replaced') {
+		const why = outcome.kind === 'gone' ? 'piece_gone' : 'replaced';
+		await refundWhole(outcome.orderId, outcome.paymentIntentId, why);
+		return { handled: true, changed: true, outcome: why };
 	}
+	await afterOrderPaid(outcome.orderId);
 	return { handled: true, changed: true, outcome: 'paid' };
 }
 

@@ -14,7 +14,8 @@ import { lockCart } from '../cart/lock';
 import { confirmedAccountFor } from '../auth/guest-orders';
 import type { CheckoutInput } from '$lib/schemas/checkout';
 import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from './holds';
-import { createCheckoutSession, expireCheckoutSession } from './payment';
+import { createCheckoutSession, expireCheckoutSession, sessionState } from './payment';
+import { stripe } from '../payments';
 
 /** A checkout that cannot go ahead; the message is for the buyer. */
 export class OrderError extends Error {
@@ -73,7 +74,10 @@ export async function uniqueRef(tx: Tx) {
  * Turns the basket into a pending order in one transaction: every price, tax and shipping charge
  * recomputed from the database, finished pieces held by taking them off the shelf. A basket has
  * at most one pending order: the cart row is locked, and an earlier pending order of the same
- * basket (a double click, the back button) is cancelled and its pieces put back first.
+ * basket (a double click, the back button) is cancelled and its pieces put back first. The
+ * earlier orders are read with a locking read: a plain one answers from the transaction's
+ * snapshot and would miss a payment session attached to them a moment ago, which then would
+ * never be closed.
  */
 export async function createPendingOrder(
 	cartId: string,
@@ -87,7 +91,8 @@ export async function createPendingOrder(
 		const earlier = await tx
 			.select({ id: orders.id, sessionId: orders.checkoutSessionId })
 			.from(orders)
-			.where(and(eq(orders.cartId, cartId), eq(orders.status, 'pending')));
+			.where(and(eq(orders.cartId, cartId), eq(orders.status, 'pending')))
+			.for('update');
 		for (const o of earlier) {
 			await releaseInTx(tx, o.id, 'The same basket was sent to checkout again.');
 		}
@@ -177,6 +182,23 @@ const PAYMENT_DOWN =
 	'The payment service did not answer. Nothing was charged; please try again in a minute.';
 
 /**
+ * Closes the payment page of an order this checkout replaced, before a new one is handed out:
+ * one basket, one payable page. A page already paid is left to its payment event, which
+ * refunds it (see `applyPaid`); a page the provider cannot confirm closed stops the checkout.
+ */
+async function closeReplacedSession(sessionId: string) {
+	try {
+		await stripe().checkout.sessions.expire(sessionId);
+		return;
+	} catch {
+		// Refused (already over) or not answered: ask what state it is in.
+	}
+	const { status } = await sessionState(sessionId);
+	if (status !== 'expired' && status !== 'complete')
+		throw new OrderError(PAYMENT_DOWN, 503, 'payment');
+}
+
+/**
  * The checkout: a pending order with its pieces held, and the payment page to send the buyer
  * to. Throws OrderError (with a message for the buyer) when it cannot go ahead; nothing is left
  * held when it does.
@@ -202,7 +224,12 @@ export async function placeOrder(
 	// Pieces held by checkouts that were never finished go back on the shelf first.
 	await releaseExpiredHolds(now);
 	const order = await createPendingOrder(cartId, buyer, userId, now);
-	for (const s of order.replacedSessions) await expireCheckoutSession(s);
+	try {
+		for (const s of order.replacedSessions) await closeReplacedSession(s);
+	} catch (err) {
+		await releaseOrder(order.id, 'An earlier payment page could not be closed.');
+		throw err;
+	}
 
 	let session;
 	try {

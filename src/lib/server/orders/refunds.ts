@@ -8,7 +8,7 @@
  *   3. one transaction records the provider's refund, the order's refunded total, the move to
  *      `refunded` when nothing is left, and the pieces back on the shelf when the owner says
  *      they came back;
- *   4. the buyer gets an e-mail.
+ *      and the buyer's e-mail goes into the outbox in that same transaction.
  * `charge.refunded` and `refund.updated` events keep the figures right when the provider tells
  * us something first (or something done outside the app).
  */
@@ -18,8 +18,8 @@ import { formatMoney } from '$lib/money';
 import type { RefundInput } from '$lib/schemas/refund';
 import { db, type Tx } from '../db';
 import { transact } from '../db/retry';
-import { orderLines, orderRefunds, orders } from '../db/schema';
-import { sendMail } from '../mail';
+import { orderLines, orderNotes, orderRefunds, orders } from '../db/schema';
+import { queueMail, sendQueued } from '../mail/outbox';
 import { stripe, type Stripe } from '../payments';
 import { putBackStock } from './holds';
 import { mailOrder } from './mail-order';
@@ -112,7 +112,13 @@ async function moveIfFull(tx: Tx, orderId: number, by: { userId: string | null; 
 		.from(orders)
 		.where(eq(orders.id, orderId))
 		.for('update');
-	if (o && o.refunded >= o.total && o.status !== 'refunded') {
+	// Only an order that was paid moves; a replaced checkout refunded in full stays cancelled.
+	if (
+		o &&
+		o.refunded >= o.total &&
+		o.status !== 'refunded' &&
+		(REFUNDABLE as readonly string[]).includes(o.status)
+	) {
 		await moveOrder(orderId, 'refunded', by, tx);
 	}
 }
@@ -161,22 +167,18 @@ export async function refundOrder(
 			why: `Refunded in full: ${input.reason}`
 		});
 		if (input.restock) await restockOnce(tx, r.orderId, r.rowId);
-		return o;
-	});
-
-	try {
-		const order = await mailOrder(r.orderId);
-		await sendMail({
+		const order = await mailOrder(r.orderId, tx);
+		const mail = await queueMail(tx, {
 			to: order.email,
 			...refundMail(
 				order,
-				{ amountMinor: r.amount, reason: input.reason, refundedTotalMinor: totals.refunded },
+				{ amountMinor: r.amount, reason: input.reason, refundedTotalMinor: o.refunded },
 				origin
 			)
 		});
-	} catch (err) {
-		console.error('refund e-mail failed', ref, err);
-	}
+		return { ...o, mail };
+	});
+	await sendQueued([totals.mail]);
 	return {
 		refundId: refund.id,
 		amountMinor: r.amount,
@@ -255,15 +257,16 @@ export type RefundEventObject =
 	| { type: 'charge.refunded'; object: z.infer<typeof refundedChargeObject> }
 	| { type: 'refund.updated'; object: z.infer<typeof refundObject> };
 
-async function orderForIntent(tx: Tx, paymentIntentId: string | null, ref?: string) {
-	const where = ref
-		? eq(orders.ref, ref)
-		: paymentIntentId
-			? eq(orders.paymentIntentId, paymentIntentId)
-			: null;
-	if (!where) return null;
+async function lockOrder(tx: Tx, where: ReturnType<typeof eq>) {
 	const [o] = await tx
-		.select({ id: orders.id, status: orders.status })
+		.select({
+			id: orders.id,
+			ref: orders.ref,
+			status: orders.status,
+			totalMinor: orders.totalMinor,
+			currency: orders.currency,
+			paymentIntentId: orders.paymentIntentId
+		})
 		.from(orders)
 		.where(where)
 		.for('update');
@@ -273,24 +276,55 @@ async function orderForIntent(tx: Tx, paymentIntentId: string | null, ref?: stri
 const providerSaid = { userId: null, why: 'The payment server reported a full refund' };
 
 /**
+ * A refund event that does not fit what the shop knows: nothing changes, and the owner finds a
+ * note on the order (and the log has it), so the provider is answered 200 and stops resending.
+ */
+async function mismatch(tx: Tx, orderId: number | null, why: string) {
+	console.warn(`Refund event not applied: ${why}`);
+	if (orderId !== null) {
+		await tx.insert(orderNotes).values({
+			orderId,
+			userId: null,
+			body: `A refund event from the payment server was not applied: ${why}`.slice(0, 2000),
+			createdAt: new Date()
+		});
+	}
+	return false;
+}
+
+/**
  * Applies a verified, field-checked `charge.refunded` or `refund.updated` inside the caller's
  * transaction (which records the event id too). Both are safe to apply twice: totals only grow
  * to what the provider says, and a refund row is keyed by the provider's id. An order whose
  * piece was gone stays for the owner to close.
+ *
+ * Nothing is taken on trust: the payment the event names must be the order's own payment (an
+ * order named in the metadata with another order's payment is refused), and no refund may take
+ * the refunded total past what was paid. A mismatch changes nothing but a note for the owner.
  */
 export async function handleRefundEvent(e: RefundEventObject, tx: Tx): Promise<boolean> {
-	const o = await orderForIntent(
-		tx,
-		e.object.payment_intent,
-		e.object.metadata?.orderRef ?? undefined
-	);
+	const pi = e.object.payment_intent;
+	const ref = e.object.metadata?.orderRef || undefined;
+	const byRef = ref ? await lockOrder(tx, eq(orders.ref, ref)) : null;
+	const byIntent = pi ? await lockOrder(tx, eq(orders.paymentIntentId, pi)) : null;
+	const o = byRef ?? byIntent;
 	if (!o) return false;
+	if (!pi || o.paymentIntentId !== pi) {
+		if (byIntent && byIntent.id !== o.id)
+			await mismatch(tx, byIntent.id, `it named order ${o.ref}, which this payment is not for.`);
+		return mismatch(
+			tx,
+			o.id,
+			`its payment ${pi ?? '(none)'} is not the payment of order ${o.ref} (${o.paymentIntentId ?? 'unpaid'}).`
+		);
+	}
+	const money = (m: number) => formatMoney(m, o.currency);
 	if (e.type === 'refund.updated') {
 		const refund = e.object;
 		const status = refundStatus(refund.status);
 		const rowId = Number(refund.metadata?.refundRowId);
 		const [mine] = await tx
-			.select({ id: orderRefunds.id })
+			.select({ id: orderRefunds.id, amountMinor: orderRefunds.amountMinor })
 			.from(orderRefunds)
 			.where(
 				and(
@@ -301,13 +335,30 @@ export async function handleRefundEvent(e: RefundEventObject, tx: Tx): Promise<b
 				)
 			)
 			.for('update');
+		if (mine && mine.amountMinor !== refund.amount) {
+			return mismatch(
+				tx,
+				o.id,
+				`refund ${refund.id} says ${money(refund.amount)}, but ${money(mine.amountMinor)} was asked for.`
+			);
+		}
+		if (!mine) {
+			const others = await refundedSoFar(tx, o.id);
+			if (status === 'succeeded' && others.done + refund.amount > o.totalMinor) {
+				return mismatch(
+					tx,
+					o.id,
+					`refund ${refund.id} of ${money(refund.amount)} would take the refunds past the ${money(o.totalMinor)} paid (${money(others.done)} already refunded).`
+				);
+			}
+		}
 		if (mine) {
 			await tx
 				.update(orderRefunds)
 				.set({ providerRefundId: refund.id, status })
 				.where(eq(orderRefunds.id, mine.id));
 		} else {
-			// Made outside the app (the provider's dashboard, the piece-gone refund): record it.
+			// Made outside the app (the provider's dashboard, the automatic refunds): record it.
 			await tx
 				.insert(orderRefunds)
 				.values({
@@ -322,6 +373,13 @@ export async function handleRefundEvent(e: RefundEventObject, tx: Tx): Promise<b
 		}
 		await settleTotals(tx, o.id);
 	} else {
+		if (e.object.amount_refunded > o.totalMinor) {
+			return mismatch(
+				tx,
+				o.id,
+				`the charge says ${money(e.object.amount_refunded)} refunded, more than the ${money(o.totalMinor)} paid.`
+			);
+		}
 		await settleTotals(tx, o.id, e.object.amount_refunded);
 	}
 	if (o.status !== 'piece_gone') await moveIfFull(tx, o.id, providerSaid);

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { transact } from '../db/retry';
 import { orders, shipments } from '../db/schema';
-import { sendMail } from '../mail';
+import { queueMail, sendQueued } from '../mail/outbox';
 import type { ShipmentInput } from '$lib/schemas/shipment';
 import { moveOrder, StatusMoveError } from './status';
 import { mailOrder } from './mail-order';
@@ -16,8 +16,8 @@ export class OrderNotFoundError extends Error {
 
 /**
  * The parcel has gone: in one transaction move the order to `shipped` through the status table
- * (which refuses an unpaid, unpacked or already shipped order with a 409) and write the shipment;
- * after the commit tell the buyer. A failed e-mail does not undo the shipment: the parcel left.
+ * (which refuses an unpaid, unpacked or already shipped order with a 409), write the shipment and
+ * queue the buyer's e-mail in the outbox; after the commit it is sent (or left for the drainer).
  */
 export async function shipOrder(
 	ref: string,
@@ -48,16 +48,13 @@ export async function shipOrder(
 			shippedAt: new Date(Math.floor(now.getTime() / 1000) * 1000)
 		};
 		const [{ id }] = await tx.insert(shipments).values(row).$returningId();
-		return { id, ...row };
+		const mailTo = await mailOrder(order.id, tx);
+		const mail = await queueMail(tx, { to: mailTo.email, ...shippingMail(mailTo, row, origin) });
+		return { id, mail, ...row };
 	});
-	let mailed = true;
-	try {
-		const order = await mailOrder(shipment.orderId);
-		await sendMail({ to: order.email, ...shippingMail(order, shipment, origin) });
-	} catch (err) {
-		mailed = false;
-		console.error('shipping e-mail failed', ref, err);
-	}
+	await sendQueued([shipment.mail]);
+	// Queued with the shipment, so it goes out even if SMTP is down just now.
+	const mailed = true;
 	return {
 		id: shipment.id,
 		ref,

@@ -9,7 +9,7 @@ import { letterFont } from '$lib/pattern/letter-font';
 import { snapshotInput } from '$lib/pattern/snapshot';
 import { buyerReadyBy } from '$lib/carving-queue';
 import { unprintable } from '../pdf/fonts';
-import { db } from '../db';
+import { db, type Db, type Tx } from '../db';
 import { orderLines, orders, pieces, shipments, woods } from '../db/schema';
 import { previewSvg } from '../personalise';
 import { orderPath } from './links';
@@ -22,9 +22,10 @@ export async function orderByRef(ref: string) {
 	return withDetails(order);
 }
 
-export async function orderById(id: number) {
-	const [order] = await db.select().from(orders).where(eq(orders.id, id));
-	return order ? withDetails(order) : null;
+/** `conn` is a transaction when the caller must see its own uncommitted change (the e-mails). */
+export async function orderById(id: number, conn: Db | Tx = db) {
+	const [order] = await conn.select().from(orders).where(eq(orders.id, id));
+	return order ? withDetails(order, conn) : null;
 }
 
 export async function orderBySession(sessionId: string) {
@@ -32,25 +33,23 @@ export async function orderBySession(sessionId: string) {
 	return order ? withDetails(order) : null;
 }
 
-async function withDetails(order: typeof orders.$inferSelect) {
-	const [lines, ships] = await Promise.all([
-		// The piece's kind and food flag choose the care words the buyer is given (see $lib/care).
-		db
-			.select({
-				...getTableColumns(orderLines),
-				kind: pieces.kind,
-				foodContact: pieces.foodContact
-			})
-			.from(orderLines)
-			.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
-			.where(eq(orderLines.orderId, order.id))
-			.orderBy(orderLines.id),
-		db
-			.select()
-			.from(shipments)
-			.where(eq(shipments.orderId, order.id))
-			.orderBy(desc(shipments.shippedAt))
-	]);
+async function withDetails(order: typeof orders.$inferSelect, conn: Db | Tx = db) {
+	// One after the other: a transaction's connection runs one query at a time anyway.
+	const lines = await conn
+		.select({
+			...getTableColumns(orderLines),
+			kind: pieces.kind,
+			foodContact: pieces.foodContact
+		})
+		.from(orderLines)
+		.innerJoin(pieces, eq(pieces.id, orderLines.pieceId))
+		.where(eq(orderLines.orderId, order.id))
+		.orderBy(orderLines.id);
+	const ships = await conn
+		.select()
+		.from(shipments)
+		.where(eq(shipments.orderId, order.id))
+		.orderBy(desc(shipments.shippedAt));
 	return {
 		...order,
 		address: order.address,

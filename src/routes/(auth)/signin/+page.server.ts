@@ -4,8 +4,13 @@ import { signInSchema } from '$lib/schemas/auth';
 import { homeFor, safeNext } from '$lib/safe-redirect';
 import { authenticate } from '$lib/server/auth/users';
 import { invalidateSession, signIn } from '$lib/server/auth/lucia';
-import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
-import { throttles } from '$lib/server/throttles';
+import { tryAgainIn } from '$lib/server/rate-limit';
+import {
+	DEVICE_COOKIE,
+	signInGate,
+	signInSucceeded,
+	trustDevice
+} from '$lib/server/auth/sign-in-throttle';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
@@ -28,11 +33,14 @@ export const actions: Actions = {
 			'',
 			url.origin
 		);
-		// Every attempt counts, per account and per client address, before the password is checked.
-		const verdict = await takeAll([
-			[throttles.signInAccount, parsed.data.email],
-			[throttles.signInAddress, event.getClientAddress()]
-		]);
+		// Every attempt counts before the password is checked; see sign-in-throttle for how.
+		const address = event.getClientAddress();
+		const verdict = await signInGate(
+			parsed.data.email,
+			address,
+			cookies.get(DEVICE_COOKIE),
+			url.origin
+		);
 		if (!verdict.ok) {
 			locals.retryAfterS = verdict.retryAfterS;
 			return fail(429, { errors: {}, values, message: tryAgainIn(verdict.retryAfterS) });
@@ -40,9 +48,10 @@ export const actions: Actions = {
 		const user = await authenticate(parsed.data.email, parsed.data.password);
 		if (!user) return fail(400, { errors: {}, values, message: NO_MATCH });
 
-		await throttles.signInAccount.forget(parsed.data.email);
+		await signInSucceeded(parsed.data.email, address);
 		if (locals.session) await invalidateSession(locals.session.id);
 		await signIn(cookies, user.id, url.protocol === 'https:');
+		trustDevice(cookies, user.email, url.protocol === 'https:');
 		redirect(303, next || homeFor(user.role));
 	}
 };
