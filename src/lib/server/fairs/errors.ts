@@ -2,7 +2,7 @@
 export class FairError extends Error {
 	constructor(
 		message: string,
-		readonly status: 400 | 404 | 409 | 413 = 400
+		readonly status: 400 | 403 | 404 | 409 | 413 = 400
 	) {
 		super(message);
 	}

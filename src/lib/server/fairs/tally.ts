@@ -3,7 +3,7 @@ import { db, type Db, type Tx } from '../db';
 import { boothSales, fairs, fairStock, stock, tallies } from '../db/schema';
 import { withRetry } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
-import { reconcile, type TallyEntry } from '$lib/reconcile';
+import { reconcile, tallyEntries } from '$lib/reconcile';
 import { fairPieces, getFair, type Fair } from './fairs';
 import { FairError } from './errors';
 
@@ -36,6 +36,7 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 	]);
 	const soldOf = (pieceId: number, woodId: number) =>
 		entries
+			.filter((e) => !e.voidedAt)
 			.flatMap((e) => e.lines)
 			.filter((l) => l.pieceId === pieceId && l.woodId === woodId)
 			.reduce((a, l) => a + l.quantity, 0);
@@ -47,12 +48,7 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 		cardFeeBp: fair.cardFeeBp,
 		boothFeeMinor: fair.boothFeeMinor,
 		otherCostsMinor: fair.otherCostsMinor,
-		entries: entries.map((e): TallyEntry => ({
-			kind: e.kind,
-			method: e.method,
-			totalMinor: e.totalMinor,
-			taxMinor: e.taxMinor
-		})),
+		entries: tallyEntries(entries),
 		stock: pieces.map((p) => ({
 			key: String(p.fairStockId),
 			label: `${p.title} · ${p.woodName}`,
@@ -67,7 +63,8 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 		entries,
 		tally,
 		result,
-		flaggedSales: entries.filter((e) => e.flagged).length
+		flaggedSales: entries.filter((e) => e.flagged && !e.voidedAt).length,
+		lateSales: entries.filter((e) => e.late && !e.voidedAt).length
 	};
 }
 

@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { orderLines, orders } from '../db/schema';
 import type { MailOrder } from './shipping-mail';
+import { orderBalance } from '$lib/order-balance';
 
 /** Just what the workshop's e-mails say about an order. */
 export async function mailOrder(
@@ -22,6 +23,10 @@ export async function mailOrder(
 		currency: o.currency,
 		totalMinor: o.totalMinor,
 		readyBy: o.readyBy,
+		// A booth order: what was taken as a deposit and what is still owed.
+		...(o.depositMinor !== null
+			? { depositMinor: o.depositMinor, balanceMinor: orderBalance(o).balanceMinor }
+			: {}),
 		lines: lines.map((l) => ({
 			quantity: l.quantity,
 			title: l.title,
