@@ -19,6 +19,7 @@ import { closeFair, fairTally } from '../../src/lib/server/fairs/tally';
 import { fairCsv, fairReport } from '../../src/lib/server/fairs/report';
 import { moneyReport } from '../../src/lib/server/fairs/money-report';
 import { FairError } from '../../src/lib/server/fairs/errors';
+import { getShopInfo } from '../../src/lib/server/shop-settings';
 import { fairFormSchema } from '../../src/lib/schemas/fairs';
 
 const tag = `bs${process.pid}${Date.now() % 100000}`;
@@ -39,9 +40,11 @@ async function qty(place: string) {
 	return row?.q ?? 0;
 }
 
+// One time for every sale here: a resend carries the time it was made, like the phone's.
+const AT = new Date(Date.now() - 60_000).toISOString();
 const sale = (n: number, extra: Record<string, unknown> = {}) => ({
 	id: `${tag}-sale-${n}`,
-	at: new Date(Date.now() - 60_000).toISOString(),
+	at: AT,
 	lines: [{ pieceSlug, woodSlug, quantity: 1 }],
 	discountMinor: 0,
 	method: 'cash',
@@ -254,8 +257,16 @@ describe('booth order posted', () => {
 		expect(
 			m.taxByPlace.some((p) => p.place === 'Online: CO, US' && p.taxMinor === order.taxMinor)
 		).toBe(false);
-		const alert = await mailTo(o.email, /Order/);
-		expect(alert.text).toMatch(/took your order/);
-		expect(alert.text).not.toMatch(/Hollis/);
+		// Who took it is the person signed in; the shop's name comes from its settings.
+		const [me] = await db.select().from(s.users).where(eq(s.users.id, helper.id));
+		const shop = await getShopInfo();
+		const mail = await mailTo(o.email, /Order/);
+		expect(mail.text).toContain(`${me.name} took your order ${order.ref} for ${shop.name}`);
+		expect(mail.text).toContain('Deposit paid: $10.00');
+		// The workshop's alert says what was taken and what is still owed, not "paid".
+		const [boss] = await db.select().from(s.users).where(eq(s.users.id, owner.id));
+		const alert = await mailTo(boss.email, new RegExp(`New order ${order.ref}`));
+		expect(alert.text).toContain('Deposit taken: $10.00');
+		expect(alert.subject).toContain('still due');
 	});
 });
