@@ -23,6 +23,7 @@ export const load: PageServerLoad = async (event) => {
 		},
 		stock: t.result.stock,
 		flaggedSales: t.flaggedSales,
+		lateSales: t.lateSales,
 		entered: {
 			cashCounted: t.tally?.cashCountedMinor ?? null,
 			cashPaidOut: t.tally?.cashPaidOutMinor ?? 0,
