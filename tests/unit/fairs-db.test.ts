@@ -292,9 +292,8 @@ describe('tally, close and report', () => {
 			[sale(900, { at: new Date(Date.now() + 2000).toISOString() }), sale(1)],
 			helper
 		);
-		expect(after.rejected).toMatchObject([
-			{ id: sale(900).id, error: expect.stringMatching(/closed/) }
-		]);
+		expect(after.rejected.map((r) => r.id)).toEqual([sale(900).id]);
+		expect(after.rejected[0].error).toMatch(/closed/);
 		expect(after.duplicate).toEqual([sale(1).id]);
 		await expect(saveTally(fairId, { counts: {} }, helper.id)).rejects.toThrow(/closed/);
 	});

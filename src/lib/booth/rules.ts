@@ -38,7 +38,9 @@ export function saleTimeProblem(at: Date, fair: FairDays, now = new Date()): str
 export function lateVerdict(at: Date, closedAt: Date | null): 'on time' | 'late' | 'after close' {
 	if (!closedAt) return 'on time';
 	// The close is stored to the whole second (a DATETIME): a sale within that second counts.
-	return at.getTime() < Math.floor(closedAt.getTime() / 1000) * 1000 + 1000 ? 'late' : 'after close';
+	return at.getTime() < Math.floor(closedAt.getTime() / 1000) * 1000 + 1000
+		? 'late'
+		: 'after close';
 }
 
 /**
