@@ -340,6 +340,8 @@ export const demoBoothOrder: DemoExtra = {
 				},
 				fair,
 				depositMinor: deposit,
+				delivery: 'collect',
+				rates: [],
 				takenBy: helper,
 				now: at
 			});

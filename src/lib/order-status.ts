@@ -5,6 +5,11 @@
  * pending → paid → carving → finishing → packed → shipped, side exits cancelled and refunded,
  * and `piece_gone`: the buyer paid, but the finished piece they paid for was sold meanwhile; the
  * owner resolves it (refund, or carve another and carry on).
+ *
+ * `deposit_held`: an order taken at a fair's booth with part paid and the balance still due. It
+ * may go on the bench on the deposit (carving to order starts once a deposit is in hand); when the
+ * balance is recorded while it waits, it moves to `paid` and joins the flow. It never ships until
+ * the balance is paid (the ship step checks the balance).
  */
 export const orderStatuses = [
 	'pending',
@@ -15,7 +20,8 @@ export const orderStatuses = [
 	'shipped',
 	'cancelled',
 	'refunded',
-	'piece_gone'
+	'piece_gone',
+	'deposit_held'
 ] as const;
 export type OrderStatus = (typeof orderStatuses)[number];
 
@@ -43,7 +49,14 @@ export const transitions: Readonly<Record<OrderStatus, readonly Edge[]>> = {
 	shipped: [{ to: 'refunded' }],
 	// The owner refunds, or makes another piece and puts the order back on the bench.
 	piece_gone: [{ to: 'refunded' }, { to: 'carving' }],
-	refunded: []
+	refunded: [],
+	// Paid in full (the balance is recorded, see recordBalancePaid), carved on the deposit, or dropped.
+	deposit_held: [
+		{ to: 'paid' },
+		{ to: 'carving', carvingOnly: true },
+		{ to: 'cancelled' },
+		{ to: 'refunded' }
+	]
 };
 
 /** The statuses an order may move to next. */
@@ -103,7 +116,8 @@ export const statusLabels: Readonly<Record<OrderStatus, string>> = {
 	shipped: 'Shipped',
 	cancelled: 'Cancelled',
 	refunded: 'Refunded',
-	piece_gone: 'Paid, piece sold meanwhile'
+	piece_gone: 'Paid, piece sold meanwhile',
+	deposit_held: 'Deposit taken, balance due'
 };
 
 export function statusLabel(s: OrderStatus): string {

@@ -85,6 +85,38 @@ export type TallyEntry = {
 	taxMinor: number;
 };
 
+/** A booth entry as stored: the parts the tally needs, with its split and its void. */
+export type StoredEntry = TallyEntry & {
+	cardPartMinor?: number | null;
+	voidedAt?: Date | string | null;
+};
+
+/**
+ * The entries the tally counts: a voided sale is left out (takings, tax and method totals
+ * alike); a split payment counts as a cash part and a card part, the sale's tax shared between
+ * them in proportion (the card part's share rounded half-up, the cash part taking the rest so
+ * the two add up to the sale's tax).
+ */
+export function tallyEntries(rows: StoredEntry[]): TallyEntry[] {
+	return rows
+		.filter((e) => !e.voidedAt)
+		.flatMap((e): TallyEntry[] => {
+			const card = e.cardPartMinor ?? 0;
+			const base = {
+				kind: e.kind,
+				method: e.method,
+				totalMinor: e.totalMinor,
+				taxMinor: e.taxMinor
+			};
+			if (card <= 0 || card >= e.totalMinor || e.method !== 'cash') return [base];
+			const cardTax = mulDivHalfUp(e.taxMinor, card, e.totalMinor);
+			return [
+				{ ...base, totalMinor: e.totalMinor - card, taxMinor: e.taxMinor - cardTax },
+				{ ...base, method: 'card', totalMinor: card, taxMinor: cardTax }
+			];
+		});
+}
+
 export type TallyStockLine = {
 	key: string;
 	label: string;

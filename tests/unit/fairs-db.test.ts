@@ -39,9 +39,11 @@ async function qty(place: string) {
 	return row?.q ?? 0;
 }
 
+// One time for every sale here: a resend carries the time it was made, like the phone's.
+const AT = new Date(Date.now() - 60_000).toISOString();
 const sale = (n: number, extra: Record<string, unknown> = {}) => ({
 	id: `${tag}-sale-${String(n).padStart(4, '0')}`,
-	at: new Date().toISOString(),
+	at: AT,
 	lines: [{ pieceSlug, woodSlug, quantity: 1 }],
 	discountMinor: 0,
 	method: 'cash',
@@ -91,8 +93,9 @@ beforeAll(async () => {
 	const form = fairFormSchema.parse({
 		name: `${tag} fair`,
 		place: 'Test Hall',
-		startsOn: '2026-06-01',
-		endsOn: '2026-06-01',
+		// The fair runs today: sales are dated now, and a sale outside the fair's days is refused.
+		startsOn: new Date().toISOString().slice(0, 10),
+		endsOn: new Date().toISOString().slice(0, 10),
 		boothFee: '60',
 		otherCosts: '15.00',
 		salesTax: '7.25',
@@ -148,7 +151,7 @@ describe('booth sync', () => {
 
 	it('stores each sale once: resent, and sent five times at once', async () => {
 		const again = await syncSales(fairId, [sale(1)], helper);
-		expect(again).toEqual({ accepted: [], duplicate: [sale(1).id], rejected: [] });
+		expect(again).toEqual({ accepted: [], duplicate: [sale(1).id], late: [], rejected: [] });
 		const batch = Array.from({ length: 10 }, (_, i) =>
 			sale(100 + i, { method: i % 2 ? 'card' : 'cash' })
 		);
@@ -244,7 +247,8 @@ describe('booth order', () => {
 			postcode: '80302',
 			country: 'US',
 			depositMinor: 1000,
-			method: 'cash' as const
+			method: 'cash' as const,
+			delivery: 'collect' as const
 		};
 		const first = await placeBoothOrder(fairId, o, helper);
 		expect(first.status).toBe('accepted');
@@ -252,7 +256,12 @@ describe('booth order', () => {
 		expect(second.status).toBe('duplicate');
 		const rows = await db.select().from(s.orders).where(eq(s.orders.email, o.email));
 		expect(rows).toHaveLength(1);
-		expect(rows[0]).toMatchObject({ depositMinor: 1000, status: 'paid', totalMinor: 2145 });
+		expect(rows[0]).toMatchObject({
+			depositMinor: 1000,
+			status: 'deposit_held',
+			totalMinor: 2145,
+			giftNote: null
+		});
 	});
 });
 
@@ -280,25 +289,45 @@ describe('tally, close and report', () => {
 		expect(results.filter((r) => r.status === 'rejected')).toHaveLength(1);
 		expect(await qty('workshop')).toBe(before);
 		expect(await qty(`fair:${fairId}`)).toBe(0);
-		await expect(syncSales(fairId, [sale(900)], helper)).rejects.toThrow(/closed/);
+		// Made after the close (a second later): refused with a reason; resends stay duplicates.
+		const after = await syncSales(
+			fairId,
+			[sale(900, { at: new Date(Date.now() + 2000).toISOString() }), sale(1)],
+			helper
+		);
+		expect(after.rejected.map((r) => r.id)).toEqual([sale(900).id]);
+		expect(after.rejected[0].error).toMatch(/closed/);
+		expect(after.duplicate).toEqual([sale(1).id]);
 		await expect(saveTally(fairId, { counts: {} }, helper)).rejects.toThrow(/closed/);
 	});
 
 	it('writes a CSV that a general-purpose parser reads back to the report totals', async () => {
 		const r = await fairReport(fairId);
-		const parsed = Papa.parse<Record<string, string>>(fairCsv(r), {
+		const csvText = fairCsv(r);
+		const parsed = Papa.parse<Record<string, string>>(csvText, {
 			header: true,
 			skipEmptyLines: true
 		});
 		expect(parsed.errors).toEqual([]);
-		const cents = (col: string, kind: string) =>
+		const cents = (col: string, kind?: string) =>
 			parsed.data
-				.filter((row) => row.kind === kind)
-				.reduce((a, row) => a + Math.round(Number(row[col]) * 100), 0);
-		// Checked with papaparse (a general-purpose RFC 4180 CSV parser).
-		expect(cents('total', 'sale')).toBe(r.result.takings);
-		expect(cents('sales_tax', 'sale')).toBe(r.result.taxDue);
-		expect(cents('total', 'deposit')).toBe(r.result.cash.deposits);
+				.filter((row) => kind === undefined || row.kind === kind)
+				.reduce((a, row) => a + Math.round(Number(row[col] || 0) * 100), 0);
+		// Checked with papaparse (a general-purpose RFC 4180 CSV parser): the whole total column
+		// sums to the takings (deposits and summary rows do not count twice).
+		expect(cents('total')).toBe(r.result.takings);
+		expect(cents('sales_tax')).toBe(r.result.taxDue);
+		// The only deposit here was taken in cash.
+		expect(cents('deposit', 'deposit')).toBe(r.result.cash.deposits);
+		expect(csvText.charCodeAt(0)).toBe(0xfeff);
+		const summary = (what: string) =>
+			Math.round(
+				Number(
+					parsed.data.find((row) => row.kind === 'summary' && row.note === what)?.summary_amount
+				) * 100
+			);
+		expect(summary('Takings')).toBe(r.result.takings);
+		expect(summary('Net')).toBe(r.result.net);
 		expect(parsed.data.filter((row) => row.kind === 'sale')).toHaveLength(
 			r.entries.filter((e) => e.kind === 'sale').length
 		);

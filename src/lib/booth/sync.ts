@@ -1,12 +1,29 @@
-import { BOOTH_CHUNK } from '$lib/schemas/fairs';
-import { refuse, settle, waiting, type Queued, type QueuedOrder, type QueuedSale } from './outbox';
+import { BOOTH_CHUNK, BOOTH_CHUNK_BYTES } from '$lib/schemas/fairs';
+import { chunkByLimits } from './chunks';
+import {
+	refuse,
+	settle,
+	waiting,
+	type Queued,
+	type QueuedDiscard,
+	type QueuedOrder,
+	type QueuedSale,
+	type QueuedVoid
+} from './outbox';
 
-export type SyncResult = { sent: number; refused: number; offline: boolean; stopped?: string };
+export type SyncResult = {
+	sent: number;
+	refused: number;
+	late: number;
+	offline: boolean;
+	stopped?: string;
+};
 
 /**
- * Sends what waits in the outbox: sales in batches, booth orders one by one. A network failure
- * or a 5xx leaves everything queued for the next try; a refusal of the whole batch (closed fair,
- * signed out) stops and says why; a refused entry is moved aside with its reason.
+ * Sends what waits in the outbox: sales in batches that fit the route's limits, then booth
+ * orders, voids and discards one by one (a void after its sale). A network failure or a 5xx
+ * leaves everything queued for the next try; a refusal of the whole batch (signed out, not a
+ * helper of this fair) stops and says why; a refused entry is moved aside with its reason.
  */
 export async function sendWaiting(
 	fairId: number,
@@ -14,10 +31,11 @@ export async function sendWaiting(
 ): Promise<SyncResult> {
 	const all = await waiting(fairId);
 	const sales = all.filter((q): q is QueuedSale => q.kind === 'sale');
-	const orders = all.filter((q): q is QueuedOrder => q.kind === 'order');
-	const result: SyncResult = { sent: 0, refused: 0, offline: false };
-	for (let i = 0; i < sales.length; i += BOOTH_CHUNK) {
-		const chunk = sales.slice(i, i + BOOTH_CHUNK);
+	const others = all.filter(
+		(q): q is QueuedOrder | QueuedVoid | QueuedDiscard => q.kind !== 'sale'
+	);
+	const result: SyncResult = { sent: 0, refused: 0, late: 0, offline: false };
+	for (const chunk of chunkByLimits(sales, BOOTH_CHUNK, BOOTH_CHUNK_BYTES)) {
 		let res: Response;
 		try {
 			res = await fetcher(`/api/booth/${fairId}/sales`, {
@@ -32,22 +50,25 @@ export async function sendWaiting(
 		const answer = (await res.json()) as {
 			accepted: string[];
 			duplicate: string[];
-			rejected: { id: string | null; error: string }[];
+			late?: string[];
+			rejected: { id: string | null; error: string; conflict?: boolean }[];
 		};
 		await settle([...answer.accepted, ...answer.duplicate]);
 		const byId = new Map<string, Queued>(chunk.map((q) => [q.id, q]));
 		const bad = answer.rejected.flatMap((r) => {
 			const entry = r.id ? byId.get(r.id) : undefined;
-			return entry ? [{ entry, error: r.error }] : [];
+			return entry ? [{ entry, error: r.error, conflict: r.conflict }] : [];
 		});
 		await refuse(bad);
 		result.sent += answer.accepted.length + answer.duplicate.length;
+		result.late += answer.late?.length ?? 0;
 		result.refused += bad.length;
 	}
-	for (const q of orders) {
+	const path = { order: 'orders', void: 'voids', discard: 'discards' } as const;
+	for (const q of others) {
 		let res: Response;
 		try {
-			res = await fetcher(`/api/booth/${fairId}/orders`, {
+			res = await fetcher(`/api/booth/${fairId}/${path[q.kind]}`, {
 				method: 'POST',
 				headers: { 'content-type': 'application/json' },
 				body: JSON.stringify(q.payload)
@@ -58,8 +79,8 @@ export async function sendWaiting(
 		if (res.ok) {
 			await settle([q.id]);
 			result.sent++;
-		} else if (res.status >= 400 && res.status < 500 && res.status !== 401 && res.status !== 409) {
-			await refuse([{ entry: q, error: await reason(res) }]);
+		} else if (res.status >= 400 && res.status < 500 && res.status !== 401) {
+			await refuse([{ entry: q, error: await reason(res), conflict: res.status === 409 }]);
 			result.refused++;
 		} else return { ...result, stopped: await reason(res) };
 	}

@@ -15,7 +15,14 @@ import { comingFairs } from './fairs/fairs';
 /** Finished pieces at or under this count on the workshop shelf are "running low". */
 export const LOW_STOCK = 1;
 
-const BENCH: OrderStatus[] = ['paid', 'carving', 'finishing', 'packed', 'piece_gone'];
+const BENCH: OrderStatus[] = [
+	'paid',
+	'deposit_held',
+	'carving',
+	'finishing',
+	'packed',
+	'piece_gone'
+];
 
 export type BenchOrder = {
 	ref: string;
@@ -45,7 +52,11 @@ export async function todaySummary(now = new Date()) {
 		late: !!r.readyBy && r.readyBy < today && r.status !== 'piece_gone'
 	}));
 	const steps = {
-		carve: bench.filter((o) => (o.status === 'paid' && o.toCarve > 0) || o.status === 'carving'),
+		carve: bench.filter(
+			(o) =>
+				((o.status === 'paid' || o.status === 'deposit_held') && o.toCarve > 0) ||
+				o.status === 'carving'
+		),
 		finish: bench.filter((o) => o.status === 'finishing'),
 		pack: bench.filter((o) => o.status === 'paid' && o.toCarve === 0),
 		post: bench.filter((o) => o.status === 'packed'),

@@ -134,6 +134,14 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 		...staffApiWrite,
 		url: (f) => `/api/booth/${f.closedFairId}/tally`
 	},
+	'POST /api/booth/[fairId]/voids': {
+		...staffApiWrite,
+		url: (f) => `/api/booth/${f.closedFairId}/voids`
+	},
+	'POST /api/booth/[fairId]/discards': {
+		...staffApiWrite,
+		url: (f) => `/api/booth/${f.closedFairId}/discards`
+	},
 
 	// Workshop.
 	'GET /workshop': staff,

@@ -249,6 +249,8 @@ export const orders = mysqlTable(
 		/** When the rest after a deposit was paid, and how; null while it is still owed. */
 		balancePaidAt: datetime('balance_paid_at'),
 		balanceMethod: mysqlEnum('balance_method', balanceMethods),
+		/** A booth order: the buyer collects it, or it is posted (shipping charged by the rates). */
+		delivery: mysqlEnum('delivery', ['post', 'collect']),
 		refundedMinor: int('refunded_minor').notNull().default(0),
 		/** The workshop's plan from the carving queue; moves as the queue moves. */
 		readyBy: date('ready_by', { mode: 'string' }),
@@ -391,7 +393,39 @@ export const boothSales = mysqlTable('booth_sales', {
 	tenderedMinor: int('tendered_minor'),
 	/** Sold more than the fair's stock showed: stored anyway (the buyer has the piece), checked at the tally. */
 	flagged: boolean('flagged').notNull().default(false),
-	receivedAt: datetime('received_at')
+	receivedAt: datetime('received_at'),
+	/** Made before the close, received after it: counted, and shown as late. */
+	late: boolean('late').notNull().default(false),
+	/** SHA-256 of what the phone sent, so the same id with other content is a conflict. */
+	contentHash: varchar('content_hash', { length: 64 }),
+	/** Part of a cash sale paid by card (a split payment); null when paid one way. */
+	cardPartMinor: int('card_part_minor'),
+	/** Where the buyer asked for a receipt. */
+	receiptEmail: varchar('receipt_email', { length: 255 }),
+	/** Voided, never deleted: out of takings, tax and method totals; stock put back. */
+	voidedAt: datetime('voided_at'),
+	voidedBy: varchar('voided_by', { length: 36 }).references(() => users.id, {
+		onDelete: 'set null'
+	}),
+	voidReason: varchar('void_reason', { length: 300 }),
+	/** The phone's id for the void, so a resent void is stored once. */
+	voidId: varchar('void_id', { length: 36 }).unique()
+});
+
+/** Entries the server refused and a helper discarded on the phone: kept for the owner to see. */
+export const boothDiscards = mysqlTable('booth_discards', {
+	id: varchar('id', { length: 36 }).primaryKey(),
+	fairId: int('fair_id')
+		.notNull()
+		.references(() => fairs.id, { onDelete: 'cascade' }),
+	kind: mysqlEnum('kind', boothEntryKinds).notNull(),
+	/** What it was, in words: buyer, pieces, amount. */
+	summary: varchar('summary', { length: 500 }).notNull(),
+	reason: varchar('reason', { length: 500 }).notNull(),
+	discardedBy: varchar('discarded_by', { length: 36 }).references(() => users.id, {
+		onDelete: 'set null'
+	}),
+	discardedAt: datetime('discarded_at').notNull()
 });
 
 export const tallies = mysqlTable(

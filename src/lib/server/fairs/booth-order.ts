@@ -1,41 +1,90 @@
+import { createHash } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db';
-import { boothSales, pieces, pieceWoods, woods, type Role } from '../db/schema';
+import {
+	boothSales,
+	fairs,
+	pieces,
+	pieceWoods,
+	shippingRates,
+	woods,
+	type Role
+} from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
 import { afterBoothOrder } from '../orders/booth-mail';
 import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/schemas/fairs';
+import { lateVerdict, saleTimeProblem } from '$lib/booth/rules';
 import { FairError } from './errors';
 import { fairStateShared } from './fairs';
 
+/** What the phone said, in a fixed order, hashed: the same id with other content is a conflict. */
+const orderHash = (o: BoothOrder) =>
+	createHash('sha256')
+		.update(
+			JSON.stringify([
+				o.id,
+				new Date(o.at).toISOString(),
+				o.pieceSlug,
+				o.woodSlug,
+				o.initials,
+				o.name,
+				o.email,
+				o.line1,
+				o.city,
+				o.region ?? '',
+				o.postcode,
+				o.country,
+				o.depositMinor,
+				o.method,
+				o.delivery
+			])
+		)
+		.digest('hex');
+
 /**
- * A personalised piece ordered at the booth: the orders module writes the order (paid in part,
- * the rest owed before it ships), and beside it a booth entry of kind 'deposit' under the phone's
- * id, so the deposit counts in the tally's cash or card and a resend stores nothing new. After
- * the commit the queue dates the order and the buyer gets a confirmation.
+ * A personalised piece ordered at the booth: the orders module writes the order (deposit taken,
+ * balance due — or paid in full), and beside it a booth entry of kind 'deposit' under the phone's
+ * id, so the deposit counts in the tally's cash or card and a resend stores nothing new. Like a
+ * sale, an order made before the close is taken after it (late). After the commit the queue dates
+ * the order and the buyer and the workshop hear of it.
  */
 export async function placeBoothOrder(
 	fairId: number,
-	o: BoothOrder,
+	given: Omit<BoothOrder, 'delivery'> & { delivery?: BoothOrder['delivery'] },
 	seller: { id: string; role: Role },
 	origin?: string
 ) {
+	const o: BoothOrder = { ...given, delivery: given.delivery ?? 'post' };
 	const [row] = await db
 		.select({ piece: pieces, wood: woods })
 		.from(pieces)
 		.innerJoin(pieceWoods, eq(pieceWoods.pieceId, pieces.id))
 		.innerJoin(woods, eq(woods.id, pieceWoods.woodId))
 		.where(and(eq(pieces.slug, o.pieceSlug), eq(woods.slug, o.woodSlug)));
+	const hash = orderHash(o);
+	const [seen] = await db
+		.select({ hash: boothSales.contentHash, fairId: boothSales.fairId })
+		.from(boothSales)
+		.where(eq(boothSales.id, o.id));
+	if (seen) return resent(seen, hash, fairId);
 	if (!row) throw new FairError(`${o.pieceSlug} is not made in ${o.woodSlug}.`);
+	const [fairDays] = await db.select().from(fairs).where(eq(fairs.id, fairId));
+	if (!fairDays) throw new FairError('There is no such fair.', 404);
+	const at = new Date(o.at);
+	const when = saleTimeProblem(at, fairDays);
+	if (when) throw new FairError(when.replace('The sale', 'The order'));
+	const rates = o.delivery === 'post' ? await db.select().from(shippingRates) : [];
 
-	let placed: { id: number; ref: string; totalMinor: number; fairName: string };
+	let placed: { id: number; ref: string; totalMinor: number; fairName: string; late: boolean };
 	try {
 		placed = await withRetry(() =>
 			db.transaction(async (tx) => {
 				const fair = await fairStateShared(tx, fairId);
-				if (fair.closedAt)
-					throw new FairError(`${fair.name} is closed; it takes no more orders.`, 409);
+				const verdict = lateVerdict(at, fair.closedAt);
+				if (verdict === 'after close')
+					throw new FairError(`${fair.name} was closed before this order was taken.`);
 				const now = new Date();
 				// The booth entry goes in first: a resend waits on its key, then fails as a duplicate.
 				await tx.insert(boothSales).values({
@@ -46,9 +95,11 @@ export async function placeBoothOrder(
 					lines: [],
 					subtotalMinor: o.depositMinor,
 					totalMinor: o.depositMinor,
-					soldAt: new Date(o.at),
+					soldAt: at,
 					receivedAt: now,
-					recordedBy: seller.id
+					recordedBy: seller.id,
+					contentHash: hash,
+					late: verdict === 'late'
 				});
 				const order = await placeOrderFromBooth(tx, {
 					piece: row.piece,
@@ -67,24 +118,40 @@ export async function placeBoothOrder(
 					},
 					fair,
 					depositMinor: o.depositMinor,
+					delivery: o.delivery,
+					rates,
 					takenBy: seller.id,
 					now
 				});
 				await tx.update(boothSales).set({ orderId: order.id }).where(eq(boothSales.id, o.id));
-				return { ...order, fairName: fair.name };
+				return { ...order, fairName: fair.name, late: verdict === 'late' };
 			})
 		);
 	} catch (err) {
 		if (err instanceof OrderError) throw new FairError(err.message, 400);
 		if (isDuplicateKey(err)) {
-			const [seen] = await db
-				.select({ id: boothSales.id })
+			const [again] = await db
+				.select({ hash: boothSales.contentHash, fairId: boothSales.fairId })
 				.from(boothSales)
 				.where(eq(boothSales.id, o.id));
-			if (seen) return { status: 'duplicate' as const };
+			if (again) return resent(again, hash, fairId);
 		}
 		throw err;
 	}
-	await afterBoothOrder(placed.id, placed.fairName, origin);
-	return { status: 'accepted' as const, ref: placed.ref, totalMinor: placed.totalMinor };
+	await afterBoothOrder(placed.id, placed.fairName, seller.id, origin);
+	return {
+		status: 'accepted' as const,
+		ref: placed.ref,
+		totalMinor: placed.totalMinor,
+		late: placed.late
+	};
+}
+
+function resent(seen: { hash: string | null; fairId: number }, hash: string, fairId: number) {
+	if (seen.fairId !== fairId || (seen.hash && seen.hash !== hash))
+		throw new FairError(
+			'A different order was already stored under this id; this copy was not stored. Check it and take it again if it was a real order.',
+			409
+		);
+	return { status: 'duplicate' as const };
 }

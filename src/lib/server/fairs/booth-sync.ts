@@ -1,32 +1,33 @@
-import { formatDay } from '$lib/dates';
+import { createHash } from 'node:crypto';
 import { formatMoney, formatRate } from '$lib/money';
-import { eq, inArray } from 'drizzle-orm';
-import { db } from '../db';
-import { boothSales, type Role } from '../db/schema';
+import { and, eq, inArray } from 'drizzle-orm';
+import { db, type Tx } from '../db';
+import { boothSales, fairStock, type Role } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { boothSaleSchema, type BoothSale } from '$lib/schemas/fairs';
 import { maxDiscount, priceSale } from '$lib/reconcile';
+import { lateVerdict, saleFingerprint, saleTimeProblem } from '$lib/booth/rules';
+import { formatMoney } from '$lib/money';
 import { fairPieces, fairStateShared, getFair, type Fair, type FairPiece } from './fairs';
 import { FairError } from './errors';
+import { sendReceipt } from './booth-receipt';
 
 export type SyncAnswer = {
 	accepted: string[];
 	duplicate: string[];
-	rejected: { id: string | null; error: string }[];
+	/** Accepted, but made before the close and received after it. */
+	late: string[];
+	rejected: { id: string | null; error: string; conflict?: boolean }[];
 };
 
 type Seller = { id: string; role: Role };
 
-/** Fair refuses sales once closed; a short, plain reason the phone can show. */
-export function assertOpen(fair: Fair) {
-	if (fair.closedAt) {
-		throw new FairError(
-			`${fair.name} was closed on ${formatDay(fair.closedAt, 'medium')}; it takes no more sales.`,
-			409
-		);
-	}
-}
+import { createHash } from 'node:crypto';
+import { formatMoney, formatRate } from '$lib/money';
+import { and, eq, inArray } from 'drizzle-orm';
+import { db, type Tx } from '../db';
+import { boothSales, fairStock, type Role } from '../db/schema';
 
 function priceEntry(
 	sale: BoothSale,
@@ -34,6 +35,13 @@ function priceEntry(
 	catalogue: Map<string, FairPiece>,
 	seller: Seller
 ) {
+	const at = new Date(sale.at);
+	const when = saleTimeProblem(at, fair);
+	if (when) return { error: when };
+	if (lateVerdict(at, fair.closedAt) === 'after close')
+		return {
+			error: `${fair.name} was closed before this sale was made; it takes no sales after the close.`
+		};
 	const lines: { piece: FairPiece; quantity: number }[] = [];
 	for (const l of sale.lines) {
 		const piece = catalogue.get(`${l.pieceSlug}/${l.woodSlug}`);
@@ -57,25 +65,28 @@ function priceEntry(
 		fair.salesTaxBp,
 		fair.pricesIncludeTax
 	);
-	if (
-		sale.method === 'cash' &&
-		sale.tenderedMinor != null &&
-		sale.tenderedMinor < priced.totalMinor
-	) {
-		return { error: 'The cash handed over is less than the sale’s total.' };
+	const card = sale.cardPartMinor ?? null;
+	if (card !== null) {
+		if (sale.method !== 'cash')
+			return { error: 'A split payment is recorded as cash with a card part.' };
+		if (card >= priced.totalMinor)
+			return { error: 'The card part of a split payment must be less than the total.' };
 	}
-	const at = new Date(sale.at);
-	if (at.getTime() > Date.now() + 24 * 3_600_000)
-		return { error: 'The sale time is in the future.' };
-	return { lines, priced, at };
+	const cashDue = priced.totalMinor - (card ?? 0);
+	if (sale.method === 'cash' && sale.tenderedMinor != null && sale.tenderedMinor < cashDue) {
+		return { error: 'The cash handed over is less than the cash part of the sale.' };
+	}
+	return { lines, priced, at, card };
 }
 
 /**
  * Stores each sale of a batch once, however often and however concurrently it arrives. Each
  * sale is its own transaction: the row is inserted first under its phone-made id, so a second
  * copy waits on the key and then fails as a duplicate; fair stock moves in the same
- * transaction. A sale that takes fair stock below zero is stored and flagged (the buyer
- * already has the piece): the tally shows it.
+ * transaction. A resend of a stored sale is "duplicate" whatever the fair's state; the same id
+ * with other content is a conflict. A sale made before the close is taken after it, marked late.
+ * A sale that takes fair stock below zero is stored and flagged (the buyer already has the
+ * piece): the tally shows it.
  */
 export async function syncSales(
 	fairId: number,
@@ -83,23 +94,40 @@ export async function syncSales(
 	seller: Seller
 ): Promise<SyncAnswer> {
 	const fair = await getFair(fairId);
-	assertOpen(fair);
 	const catalogue = new Map(
 		(await fairPieces(fairId)).map((p) => [`${p.pieceSlug}/${p.woodSlug}`, p])
 	);
-	const answer: SyncAnswer = { accepted: [], duplicate: [], rejected: [] };
+	const answer: SyncAnswer = { accepted: [], duplicate: [], late: [], rejected: [] };
 
 	const parsed = raw.map((r) => ({ r, p: boothSaleSchema.safeParse(r) }));
 	const ids = parsed.flatMap(({ p }) => (p.success ? [p.data.id] : []));
-	const known = new Map<string, number>();
+	const known = new Map<string, { fairId: number; hash: string | null; kind: string }>();
 	for (let i = 0; i < ids.length; i += 500) {
 		const rows = await db
-			.select({ id: boothSales.id, fairId: boothSales.fairId })
+			.select({
+				id: boothSales.id,
+				fairId: boothSales.fairId,
+				hash: boothSales.contentHash,
+				kind: boothSales.kind
+			})
 			.from(boothSales)
 			.where(inArray(boothSales.id, ids.slice(i, i + 500)));
-		for (const row of rows) known.set(row.id, row.fairId);
+		for (const row of rows) known.set(row.id, row);
 	}
-	const seen = new Set<string>();
+	const seen = new Map<string, string>();
+
+	const stored = (sale: BoothSale, row: { fairId: number; hash: string | null; kind: string }) => {
+		if (row.fairId !== fairId || row.kind !== 'sale')
+			answer.rejected.push({ id: sale.id, error: 'This sale id was already used elsewhere.' });
+		else if (row.hash && row.hash !== contentHash(sale))
+			answer.rejected.push({
+				id: sale.id,
+				conflict: true,
+				error:
+					'A different sale was already stored under this id; this copy was not stored. Check it and record it again if it was a real sale.'
+			});
+		else answer.duplicate.push(sale.id);
+	};
 
 	for (const { r, p } of parsed) {
 		if (!p.success) {
@@ -112,37 +140,38 @@ export async function syncSales(
 			continue;
 		}
 		const sale = p.data;
-		const duplicateOf = (otherFair: number) =>
-			otherFair === fairId
-				? answer.duplicate.push(sale.id)
-				: answer.rejected.push({
-						id: sale.id,
-						error: 'This sale id was already used at another fair.'
-					});
-		if (known.has(sale.id)) {
-			duplicateOf(known.get(sale.id)!);
+		const row = known.get(sale.id);
+		if (row) {
+			stored(sale, row);
 			continue;
 		}
-		if (seen.has(sale.id)) {
-			answer.duplicate.push(sale.id);
+		const before = seen.get(sale.id);
+		if (before !== undefined) {
+			stored(sale, { fairId, hash: before, kind: 'sale' });
 			continue;
 		}
-		seen.add(sale.id);
+		seen.set(sale.id, contentHash(sale));
 		const priced = priceEntry(sale, fair, catalogue, seller);
 		if ('error' in priced) {
 			answer.rejected.push({ id: sale.id, error: priced.error! });
 			continue;
 		}
 		try {
-			await withRetry(() => storeSale(fairId, sale, priced, seller));
+			const late = await withRetry(() => storeSale(fairId, sale, priced, seller));
 			answer.accepted.push(sale.id);
+			if (late) answer.late.push(sale.id);
+			if (sale.receiptEmail) await sendReceipt(sale.id);
 		} catch (err) {
 			if (isDuplicateKey(err)) {
-				const [row] = await db
-					.select({ fairId: boothSales.fairId })
+				const [again] = await db
+					.select({
+						fairId: boothSales.fairId,
+						hash: boothSales.contentHash,
+						kind: boothSales.kind
+					})
 					.from(boothSales)
 					.where(eq(boothSales.id, sale.id));
-				duplicateOf(row?.fairId ?? fairId);
+				stored(sale, again ?? { fairId, hash: null, kind: 'sale' });
 			} else if (err instanceof FairError) {
 				answer.rejected.push({ id: sale.id, error: err.message });
 			} else throw err;
@@ -153,11 +182,15 @@ export async function syncSales(
 
 type Priced = Exclude<ReturnType<typeof priceEntry>, { error: string }>;
 
+/** Returns true when the sale arrived after the close (late). */
 async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Seller) {
-	await db.transaction(async (tx) => {
+	return db.transaction(async (tx) => {
 		// Shares the fair row with other sales but waits for a close in progress (and vice versa).
 		const fair = await fairStateShared(tx, fairId);
-		if (fair.closedAt) throw new FairError(`${fair.name} is closed; it takes no more sales.`, 409);
+		const verdict = lateVerdict(p.at, fair.closedAt);
+		if (verdict === 'after close')
+			throw new FairError(`${fair.name} was closed before this sale was made.`, 409);
+		const late = verdict === 'late';
 		await tx.insert(boothSales).values({
 			id: sale.id,
 			fairId,
@@ -174,6 +207,10 @@ async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Sel
 			taxMinor: p.priced.taxMinor,
 			totalMinor: p.priced.totalMinor,
 			tenderedMinor: sale.method === 'cash' ? (sale.tenderedMinor ?? null) : null,
+			cardPartMinor: p.card,
+			receiptEmail: sale.receiptEmail || null,
+			contentHash: contentHash(sale),
+			late,
 			soldAt: p.at,
 			receivedAt: new Date(),
 			recordedBy: seller.id
@@ -183,18 +220,56 @@ async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Sel
 			(a, b) => a.piece.pieceId - b.piece.pieceId || a.piece.woodId - b.piece.woodId
 		);
 		for (const l of sorted) {
-			const r = await adjustStock(tx, {
-				pieceId: l.piece.pieceId,
-				woodId: l.piece.woodId,
-				place: fairPlace(fairId),
-				delta: -l.quantity,
-				reason: `Booth sale ${sale.id}`,
-				userId: seller.id,
-				allowNegative: true
+			const moved = await moveStock(tx, fairId, l.piece, -l.quantity, late, {
+				reason: `Booth sale ${sale.id}${late ? ', arrived after the close' : ''}`,
+				userId: seller.id
 			});
-			flagged ||= r.belowZero;
+			flagged ||= moved;
 		}
 		if (flagged)
 			await tx.update(boothSales).set({ flagged: true }).where(eq(boothSales.id, sale.id));
+		return late;
 	});
+}
+
+/**
+ * Moves a sold (negative) or voided (positive) count for one line. While the fair is open that
+ * is the fair's stock. After the close its stock went home: where the helper counted the line
+ * back, the count already saw the piece go (or stay), so nothing moves; where nobody counted,
+ * the close sent home what the fair's stock showed, so the workshop's shelf is corrected.
+ * Returns true when a count went below zero.
+ */
+export async function moveStock(
+	tx: Tx,
+	fairId: number,
+	piece: { pieceId: number; woodId: number },
+	delta: number,
+	closed: boolean,
+	why: { reason: string; userId: string }
+): Promise<boolean> {
+	let place = fairPlace(fairId);
+	if (closed) {
+		const [line] = await tx
+			.select({ countedBack: fairStock.countedBack })
+			.from(fairStock)
+			.where(
+				and(
+					eq(fairStock.fairId, fairId),
+					eq(fairStock.pieceId, piece.pieceId),
+					eq(fairStock.woodId, piece.woodId)
+				)
+			);
+		if (line?.countedBack != null) return false;
+		place = 'workshop';
+	}
+	const r = await adjustStock(tx, {
+		pieceId: piece.pieceId,
+		woodId: piece.woodId,
+		place,
+		delta,
+		reason: why.reason.slice(0, 200),
+		userId: why.userId,
+		allowNegative: true
+	});
+	return r.belowZero;
 }

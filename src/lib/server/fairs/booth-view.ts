@@ -1,7 +1,7 @@
 import { isoDay, today as todayIso } from '$lib/dates';
 import { and, asc, eq } from 'drizzle-orm';
 import { db } from '../db';
-import { pieces, pieceWoods, woods } from '../db/schema';
+import { pieces, pieceWoods, shippingRates, woods } from '../db/schema';
 import { personalisedPriceMinor } from '$lib/personalised-price';
 import { fairPieces, getFair } from './fairs';
 import { boothEntries } from './tally';
@@ -12,7 +12,7 @@ import { boothEntries } from './tally';
  */
 export async function boothView(fairId: number, owner: boolean, today = todayIso()) {
 	const fair = await getFair(fairId);
-	const [stockLines, entries, orderable] = await Promise.all([
+	const [stockLines, entries, orderable, rates] = await Promise.all([
 		fairPieces(fairId),
 		boothEntries(fairId),
 		db
@@ -22,15 +22,45 @@ export async function boothView(fairId: number, owner: boolean, today = todayIso
 				woodSlug: woods.slug,
 				woodName: woods.name,
 				base: pieces.basePriceMinor,
-				addOn: woods.priceAddOnMinor
+				addOn: woods.priceAddOnMinor,
+				kind: pieces.kind,
+				lengthMm: pieces.lengthMm,
+				widthMm: pieces.widthMm,
+				thicknessMm: pieces.thicknessMm,
+				densityKgM3: woods.densityKgM3
 			})
 			.from(pieces)
 			.innerJoin(pieceWoods, eq(pieceWoods.pieceId, pieces.id))
 			.innerJoin(woods, eq(woods.id, pieceWoods.woodId))
 			.where(and(eq(pieces.personalisable, true), eq(pieces.active, true)))
-			.orderBy(asc(pieces.title), asc(woods.name))
+			.orderBy(asc(pieces.title), asc(woods.name)),
+		db
+			.select({
+				zone: shippingRates.zone,
+				upToGrams: shippingRates.upToGrams,
+				priceMinor: shippingRates.priceMinor
+			})
+			.from(shippingRates)
 	]);
-	const todays = entries.filter((e) => e.kind === 'sale' && isoDay(e.soldAt) === today);
+	const todays = entries.filter(
+		(e) => e.kind === 'sale' && !e.voidedAt && isoDay(e.soldAt) === today
+	);
+	const label = new Map(stockLines.map((p) => [`${p.pieceId}/${p.woodId}`, p.title]));
+	// The day's sales, to check and to void: a helper sees pieces, the owner the amounts too.
+	const sales = entries
+		.filter((e) => e.kind === 'sale' && (owner || isoDay(e.soldAt) === today))
+		.slice(-200)
+		.reverse()
+		.map((e) => ({
+			id: e.id,
+			at: e.soldAt.toISOString(),
+			summary: e.lines
+				.map((l) => `${l.quantity} × ${label.get(`${l.pieceId}/${l.woodId}`) ?? 'piece'}`)
+				.join(', '),
+			totalMinor: owner ? e.totalMinor : null,
+			voided: Boolean(e.voidedAt),
+			late: e.late
+		}));
 	const day = (['cash', 'card', 'other'] as const).map((method) => {
 		const of = todays.filter((e) => e.method === method);
 		return {
@@ -47,8 +77,11 @@ export async function boothView(fairId: number, owner: boolean, today = todayIso
 			salesTaxBp: fair.salesTaxBp,
 			pricesIncludeTax: fair.pricesIncludeTax,
 			helperDiscountBp: fair.helperDiscountBp,
+			startsOn: fair.startsOn,
+			endsOn: fair.endsOn,
 			closed: Boolean(fair.closedAt)
 		},
+		sales,
 		pieces: stockLines.map((p) => ({
 			pieceSlug: p.pieceSlug,
 			woodSlug: p.woodSlug,
@@ -58,6 +91,8 @@ export async function boothView(fairId: number, owner: boolean, today = todayIso
 			onHand: p.onHand
 		})),
 		orderable: orderable.map((o) => ({ ...o, unitMinor: personalisedPriceMinor(o.base, o.addOn) })),
+		// The shop's postage table, so the order form can show what posting a piece costs.
+		rates,
 		day,
 		owner
 	};

@@ -126,5 +126,10 @@ export async function fairStateShared(tx: Tx, fairId: number) {
 	];
 	const row = rows[0];
 	if (!row) throw new FairError('There is no such fair.', 404);
-	return { ...row, pricesIncludeTax: Boolean(row.pricesIncludeTax) };
+	// A raw query gets DATETIME back as the driver's 'YYYY-MM-DD hh:mm:ss' text in UTC.
+	const closedAt =
+		row.closedAt instanceof Date || row.closedAt === null
+			? row.closedAt
+			: new Date(`${String(row.closedAt).replace(' ', 'T')}Z`);
+	return { ...row, closedAt, pricesIncludeTax: Boolean(row.pricesIncludeTax) };
 }

@@ -1,12 +1,20 @@
 import { isoMonth } from '$lib/dates';
-import { isNotNull } from 'drizzle-orm';
+import { eq, isNotNull } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { boothSales, fairs, orders } from '../db/schema';
 import { decimal } from './report';
 import { fairTally } from './tally';
 
-const PAID = new Set(['paid', 'carving', 'finishing', 'packed', 'shipped', 'refunded']);
+const PAID = new Set([
+	'paid',
+	'deposit_held',
+	'carving',
+	'finishing',
+	'packed',
+	'shipped',
+	'refunded'
+]);
 const month = (d: Date) => isoMonth(d);
 
 export type MoneyRow = {
@@ -37,12 +45,14 @@ export async function moneyReport() {
 			})
 			.from(orders),
 		db
-			.select({ orderId: boothSales.orderId })
+			.select({ orderId: boothSales.orderId, place: fairs.place })
 			.from(boothSales)
+			.innerJoin(fairs, eq(fairs.id, boothSales.fairId))
 			.where(isNotNull(boothSales.orderId)),
 		db.select({ id: fairs.id }).from(fairs).orderBy(fairs.startsOn)
 	]);
-	const fromBooth = new Set(boothOrderIds.map((r) => r.orderId));
+	// A booth order's sales tax is due where the fair was, not where it is posted.
+	const fromBooth = new Map(boothOrderIds.map((r) => [r.orderId, r.place]));
 	const rows = new Map<string, MoneyRow>();
 	const row = (m: string, channel: MoneyRow['channel']) => {
 		const key = `${m}|${channel}`;
@@ -61,12 +71,19 @@ export async function moneyReport() {
 		r.taxMinor += o.tax;
 		r.refundsMinor += o.refunded;
 		const a = o.address;
-		if (o.tax > 0) addTax(`Online: ${[a.region, a.country].filter(Boolean).join(', ')}`, o.tax);
+		const fairPlace = fromBooth.get(o.id);
+		if (o.tax > 0)
+			addTax(
+				fairPlace !== undefined
+					? `Fair: ${fairPlace}`
+					: `Online: ${[a.region, a.country].filter(Boolean).join(', ')}`,
+				o.tax
+			);
 	}
 	const fairCosts = [];
 	for (const { id } of fairRows) {
 		const t = await fairTally(id);
-		for (const e of t.entries.filter((x) => x.kind === 'sale')) {
+		for (const e of t.entries.filter((x) => x.kind === 'sale' && !x.voidedAt)) {
 			const r = row(month(e.soldAt), 'fair sales');
 			r.salesMinor += e.totalMinor - e.taxMinor;
 			r.taxMinor += e.taxMinor;

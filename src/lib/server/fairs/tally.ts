@@ -3,7 +3,7 @@ import { db, type Db, type Tx } from '../db';
 import { boothSales, fairs, fairStock, stock, tallies, tallyCounts } from '../db/schema';
 import { withRetry } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
-import { reconcile, type TallyEntry } from '$lib/reconcile';
+import { reconcile, tallyEntries } from '$lib/reconcile';
 import { countingDay, fairDays, wholeFairCounted } from '$lib/cash-up';
 import { isoDay, today as todayIso } from '$lib/dates';
 import { fairPieces, getFair, type Fair } from './fairs';
@@ -73,16 +73,10 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 	const dayOfEntry = (e: BoothEntry) => countingDay(days, isoDay(e.soldAt));
 	const soldOf = (pieceId: number, woodId: number, upTo?: string) =>
 		entries
-			.filter((e) => !upTo || dayOfEntry(e) <= upTo)
+			.filter((e) => !e.voidedAt && (!upTo || dayOfEntry(e) <= upTo))
 			.flatMap((e) => e.lines)
 			.filter((l) => l.pieceId === pieceId && l.woodId === woodId)
 			.reduce((a, l) => a + l.quantity, 0);
-	const asEntry = (e: BoothEntry): TallyEntry => ({
-		kind: e.kind,
-		method: e.method,
-		totalMinor: e.totalMinor,
-		taxMinor: e.taxMinor
-	});
 	const run = (
 		of: BoothEntry[],
 		cash: { paidOut: number; counted: number | null; card: number | null },
@@ -97,7 +91,7 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 			cardFeeBp: fair.cardFeeBp,
 			boothFeeMinor: fair.boothFeeMinor,
 			otherCostsMinor: fair.otherCostsMinor,
-			entries: of.map(asEntry),
+			entries: tallyEntries(of),
 			stock: pieces.map((p) => ({
 				key: String(p.fairStockId),
 				label: `${p.title} · ${p.woodName}`,
@@ -144,7 +138,8 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 		tally,
 		days: perDay,
 		result,
-		flaggedSales: entries.filter((e) => e.flagged).length
+		flaggedSales: entries.filter((e) => e.flagged && !e.voidedAt).length,
+		lateSales: entries.filter((e) => e.late && !e.voidedAt).length
 	};
 }
 

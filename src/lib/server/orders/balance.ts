@@ -36,10 +36,14 @@ export async function recordBalancePaid(
 			.set({ balancePaidAt: at, balanceMethod: method })
 			.where(eq(orders.id, order.id));
 		const words = `Balance of ${formatMoney(owed, order.currency)} paid ${METHOD_WORDS[method]}`;
+		// Paid in full: an order still waiting on its balance joins the flow as paid.
+		const toStatus = order.status === 'deposit_held' ? 'paid' : order.status;
+		if (toStatus !== order.status)
+			await tx.update(orders).set({ status: toStatus }).where(eq(orders.id, order.id));
 		await tx.insert(orderHistory).values({
 			orderId: order.id,
 			fromStatus: order.status,
-			toStatus: order.status,
+			toStatus,
 			userId: by.userId,
 			reason: words,
 			createdAt: at

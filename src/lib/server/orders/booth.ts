@@ -10,6 +10,7 @@ import { orderHistory, orderLines, orders, type Address } from '../db/schema';
 import { personalise } from '../personalise';
 import { personalisedPriceMinor } from '$lib/personalised-price';
 import { priceSale } from '$lib/reconcile';
+import { shippingCharge, type RateRow } from '$lib/shipping';
 import { OrderError, uniqueRef } from './place';
 import type { PiecePattern } from '../db/schema';
 
@@ -17,6 +18,7 @@ export type BoothOrderInput = {
 	piece: {
 		id: number;
 		title: string;
+		kind: string;
 		personalisable: boolean;
 		basePriceMinor: number;
 		pattern: PiecePattern;
@@ -29,6 +31,7 @@ export type BoothOrderInput = {
 		name: string;
 		slug: string;
 		priceAddOnMinor: number;
+		densityKgM3: number;
 		toneLight: string;
 		toneDark: string;
 	};
@@ -37,6 +40,9 @@ export type BoothOrderInput = {
 	/** Where it was taken: the fair's name, currency and sales tax. */
 	fair: { name: string; currency: string; salesTaxBp: number; pricesIncludeTax: boolean };
 	depositMinor: number;
+	/** Collected from the workshop, or posted at the shop's shipping rates. */
+	delivery: 'post' | 'collect';
+	rates: RateRow[];
 	takenBy: string | null;
 	now?: Date;
 };
@@ -58,10 +64,25 @@ export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
 		o.fair.salesTaxBp,
 		o.fair.pricesIncludeTax
 	);
-	if (o.depositMinor > priced.totalMinor) {
+	let shippingMinor = 0;
+	if (o.delivery === 'post') {
+		const ship = shippingCharge(o.rates, o.buyer.address.country, [
+			{ size: o.piece, densityKgM3: o.wood.densityKgM3, quantity: 1 }
+		]);
+		if (ship.priceMinor === null)
+			throw new OrderError(
+				'The shop has no shipping rate to that country for this piece; choose collect.',
+				400
+			);
+		shippingMinor = ship.priceMinor;
+	}
+	const totalMinor = priced.totalMinor + shippingMinor;
+	if (o.depositMinor > totalMinor) {
 		throw new OrderError('The deposit is more than the order’s total.', 400);
 	}
 	const now = o.now ?? new Date();
+	const paidInFull = o.depositMinor === totalMinor;
+	const status = paidInFull ? 'paid' : 'deposit_held';
 	const ref = await uniqueRef(tx);
 	const [{ id }] = await tx
 		.insert(orders)
@@ -70,16 +91,16 @@ export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
 			email: o.buyer.email,
 			buyerName: o.buyer.name,
 			address: o.buyer.address,
-			giftNote: `Ordered at ${o.fair.name}`.slice(0, 500),
 			currency: o.fair.currency,
 			subtotalMinor: priced.taxableMinor,
-			shippingMinor: 0,
+			shippingMinor,
 			taxMinor: priced.taxMinor,
-			totalMinor: priced.totalMinor,
+			totalMinor,
 			depositMinor: o.depositMinor,
 			// A deposit of the whole total leaves nothing owed: the balance is paid with it.
-			balancePaidAt: o.depositMinor === priced.totalMinor ? now : null,
-			status: 'paid',
+			balancePaidAt: paidInFull ? now : null,
+			status,
+			delivery: o.delivery,
 			createdAt: now,
 			paidAt: now
 		})
@@ -97,14 +118,18 @@ export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
 		fromStock: false,
 		personalisation: made.snapshot
 	});
-	// Born paid in part (the deposit is in hand); its history says where and by whom.
+	// Born with its deposit in hand (or paid in full); its history says where and by whom.
 	await tx.insert(orderHistory).values({
 		orderId: id,
 		fromStatus: 'pending',
-		toStatus: 'paid',
+		toStatus: status,
 		userId: o.takenBy,
-		reason: `Ordered at ${o.fair.name}; deposit taken`.slice(0, 500),
+		reason:
+			`Ordered at ${o.fair.name}; ${paidInFull ? 'paid in full' : 'deposit taken, balance due'}`.slice(
+				0,
+				500
+			),
 		createdAt: now
 	});
-	return { id, ref, totalMinor: priced.totalMinor };
+	return { id, ref, totalMinor };
 }

@@ -109,7 +109,12 @@ export async function queueLines(conn: Db | Tx = db) {
 		.innerJoin(woods, eq(woods.id, orderLines.woodId))
 		// Ready-made lines are packed, not carved: they never join the queue. A gone piece joins
 		// only once the owner puts the order back on the bench (status carving).
-		.where(and(eq(orderLines.fromStock, false), inArray(orders.status, ['carving', 'paid'])))
+		.where(
+			and(
+				eq(orderLines.fromStock, false),
+				inArray(orders.status, ['carving', 'paid', 'deposit_held'])
+			)
+		)
 		.orderBy(
 			sql`case when ${orders.status} = 'carving' then 0 else 1 end`,
 			asc(orders.paidAt),

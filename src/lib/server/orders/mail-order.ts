@@ -3,6 +3,7 @@ import { db, type Db, type Tx } from '../db';
 import { orderLines, orders, pieces } from '../db/schema';
 import type { MailOrder } from './shipping-mail';
 import { buyerReadyBy } from '$lib/carving-queue';
+import { orderBalance } from '$lib/order-balance';
 
 /** Just what the workshop's e-mails say about an order. */
 export async function mailOrder(
@@ -33,6 +34,10 @@ export async function mailOrder(
 		totalMinor: o.totalMinor,
 		readyBy: o.readyBy,
 		promisedBy: buyerReadyBy(o),
+		// A booth order: what was taken as a deposit and what is still owed.
+		...(o.depositMinor !== null
+			? { depositMinor: o.depositMinor, balanceMinor: orderBalance(o).balanceMinor }
+			: {}),
 		lines: lines.map((l) => ({
 			quantity: l.quantity,
 			title: l.title,

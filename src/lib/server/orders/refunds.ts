@@ -36,7 +36,15 @@ export class RefundError extends Error {
 }
 
 /** Statuses in which money has been taken and may be given back. */
-const REFUNDABLE = ['paid', 'carving', 'finishing', 'packed', 'shipped', 'piece_gone'] as const;
+const REFUNDABLE = [
+	'paid',
+	'deposit_held',
+	'carving',
+	'finishing',
+	'packed',
+	'shipped',
+	'piece_gone'
+] as const;
 
 async function refundedSoFar(tx: Tx, orderId: number) {
 	const [row] = await tx

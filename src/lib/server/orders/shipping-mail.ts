@@ -16,6 +16,9 @@ export type MailOrder = {
 	buyerName: string;
 	currency: string;
 	totalMinor: number;
+	/** Set for an order taken with a deposit: the deposit and the balance still owed. */
+	depositMinor?: number;
+	balanceMinor?: number;
 	lines: {
 		quantity: number;
 		title: string;
@@ -109,8 +112,15 @@ ${mailButton(link, 'See your order')}`);
 export function newOrderAlertMail(order: MailOrder, origin: string, readyBy: string | null) {
 	const money = formatMoney(order.totalMinor, order.currency);
 	const href = `${origin}/workshop/orders/${encodeURIComponent(order.ref)}`;
+	const owed = order.balanceMinor ?? 0;
+	const deposit =
+		order.depositMinor !== undefined && owed > 0
+			? `Deposit taken: ${formatMoney(order.depositMinor, order.currency)}; balance due: ${formatMoney(owed, order.currency)}.`
+			: null;
+	const headline = deposit ? 'New order, deposit taken,' : 'New paid order';
 	const text = [
-		`New paid order ${order.ref} from ${order.buyerName}: ${money}.`,
+		`${headline} ${order.ref} from ${order.buyerName}: ${money}.`,
+		...(deposit ? [deposit] : []),
 		'',
 		...order.lines.map(lineWords),
 		'',
@@ -118,10 +128,13 @@ export function newOrderAlertMail(order: MailOrder, origin: string, readyBy: str
 		`Open it: ${href}`
 	].join('\n');
 	const html =
-		mailPage(`<h1 style="font-size:22px;margin:0 0 8px">New paid order ${esc(order.ref)}</h1>
-<p>${esc(order.buyerName)} paid <strong>${esc(money)}</strong>.</p>
+		mailPage(`<h1 style="font-size:22px;margin:0 0 8px">${esc(headline)} ${esc(order.ref)}</h1>
+${deposit ? `<p>${esc(order.buyerName)} ordered for <strong>${esc(money)}</strong>. ${esc(deposit)}</p>` : `<p>${esc(order.buyerName)} paid <strong>${esc(money)}</strong>.</p>`}
 <ul>${order.lines.map((l) => `<li>${esc(lineWords(l))}</li>`).join('')}</ul>
 <p>Promised to the buyer: ready to post by <strong>${esc(readyByWords(readyBy))}</strong></p>
 ${mailButton(href, 'Open the order')}`);
-	return { subject: `New order ${order.ref} — ${money}`, text, html };
+	const subject = deposit
+		? `New order ${order.ref} — ${money}, ${formatMoney(owed, order.currency)} still due`
+		: `New order ${order.ref} — ${money}`;
+	return { subject, text, html };
 }

@@ -76,9 +76,9 @@ export async function moveOrder(
 		}
 		// A deposit order ships only once the rest is paid (the parcel is the last leverage).
 		const owed = orderBalance(order).balanceMinor;
-		if (to === 'shipped' && owed > 0) {
+		if ((to === 'shipped' || (from === 'deposit_held' && to === 'paid')) && owed > 0) {
 			throw new StatusMoveError(
-				`Order ${order.ref} still has ${formatMoney(owed, order.currency)} to pay. Record the balance as paid before it ships.`
+				`Order ${order.ref} still has ${formatMoney(owed, order.currency)} to pay. Record the balance as paid ${to === 'paid' ? 'first' : 'before it ships'}.`
 			);
 		}
 		await t

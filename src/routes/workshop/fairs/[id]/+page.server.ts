@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
 import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
+import { fairHistory } from '$lib/server/fairs/booth-void';
 import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
 import {
 	assertFairAccess,
@@ -40,7 +41,9 @@ export const load: PageServerLoad = async (event) => {
 			onHand: p.onHand,
 			returned: p.returned
 		})),
-		shelf: fair.closedAt ? [] : await workshopShelf()
+		shelf: fair.closedAt ? [] : await workshopShelf(),
+		// Voids and discarded entries, with who did them: the owner's view of the fair's history.
+		history: user.role === 'owner' ? await fairHistory(id) : null
 	};
 };
 

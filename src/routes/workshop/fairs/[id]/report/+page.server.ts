@@ -21,6 +21,8 @@ export const load: PageServerLoad = async (event) => {
 		byPiece: r.byPiece,
 		byHour: r.byHour,
 		netPerHourMinor: r.netPerHourMinor,
+		lateSales: r.lateSales,
+		corrections: r.corrections,
 		compared: await fairsCompared()
 	};
 };

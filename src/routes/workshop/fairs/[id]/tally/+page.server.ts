@@ -67,6 +67,7 @@ export const load: PageServerLoad = async (event) => {
 				)
 			: null,
 		flaggedSales: t.flaggedSales,
+		lateSales: t.lateSales,
 		// Only the owner sees what the money should be, the fees and the net.
 		dayMoney: owner && saved ? { ...d.result, stock: undefined } : null,
 		money: owner ? { ...t.result, stock: undefined } : null,
