@@ -8,7 +8,6 @@ import { adjustStock, fairPlace } from '../stock/adjust';
 import { boothSaleSchema, type BoothSale } from '$lib/schemas/fairs';
 import { maxDiscount, priceSale } from '$lib/reconcile';
 import { lateVerdict, saleFingerprint, saleTimeProblem } from '$lib/booth/rules';
-import { formatMoney } from '$lib/money';
 import { fairPieces, fairStateShared, getFair, type Fair, type FairPiece } from './fairs';
 import { FairError } from './errors';
 import { sendReceipt } from './booth-receipt';
@@ -23,11 +22,8 @@ export type SyncAnswer = {
 
 type Seller = { id: string; role: Role };
 
-import { createHash } from 'node:crypto';
-import { formatMoney, formatRate } from '$lib/money';
-import { and, eq, inArray } from 'drizzle-orm';
-import { db, type Tx } from '../db';
-import { boothSales, fairStock, type Role } from '../db/schema';
+export const contentHash = (s: BoothSale) =>
+	createHash('sha256').update(saleFingerprint(s)).digest('hex');
 
 function priceEntry(
 	sale: BoothSale,
