@@ -4,7 +4,7 @@ import { checkoutDetailsFor } from '$lib/server/cart/checkout-details';
 import { OrderError, placeOrder } from '$lib/server/orders/place';
 import { checkoutSchema } from '$lib/schemas/checkout';
 import { COUNTRIES } from '$lib/shipping';
-import { REGION_EXAMPLE, regionsFor, type Region } from '$lib/regions';
+import { REGION_EXAMPLE, regionsFor } from '$lib/regions';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm } from '$lib/forms';
 import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
@@ -24,11 +24,8 @@ export const load: PageServerLoad = async ({ cookies, locals, setHeaders }) => {
 		summary,
 		countries: COUNTRIES,
 		// For the region box's suggestions; any of the names or codes is accepted.
-		regions: Object.fromEntries(COUNTRIES.map((c) => [c, regionsFor(c)])) as Record<
-			string,
-			Region[]
-		>,
-		regionExamples: REGION_EXAMPLE as Record<string, string>,
+		regions: Object.fromEntries(COUNTRIES.map((c) => [c, regionsFor(c)])),
+		regionExamples: REGION_EXAMPLE,
 		buyer: {
 			name: saved?.name ?? locals.user?.name ?? '',
 			email: saved?.email ?? locals.user?.email ?? '',
