@@ -6,6 +6,7 @@ export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	test: {
 		include: ['tests/unit/**/*.test.ts'],
+		setupFiles: ['tests/unit/helpers/test-database.ts'],
 		environment: 'node',
 		testTimeout: 20000,
 		hookTimeout: 60000,

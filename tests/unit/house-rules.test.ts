@@ -5,6 +5,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { config } from '../../src/lib/server/config';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 
@@ -36,5 +37,9 @@ describe('house rules', () => {
 			.filter((f) => importsOf(f).some((i) => /(^\$lib\/server\/db)|(\/server\/db(\/|$))/.test(i)))
 			.map(rel);
 		expect(offenders).toEqual([]);
+	});
+
+	it('unit tests reach a test database, never the demo shop (tests/unit/helpers/test-database.ts)', () => {
+		expect(new URL(config.db.url).pathname).toMatch(/test/);
 	});
 });
