@@ -18,7 +18,8 @@ import { EXPORT_COLUMNS, ordersCsv } from '../../src/lib/server/orders/export';
 import { orderTableQuery } from '../../src/lib/schemas/workshop-orders';
 import { steerSchema } from '../../src/lib/schemas/order-actions';
 import { stepBackTo } from '../../src/lib/order-status';
-import { csvAmount, csvText } from '../../src/lib/csv-safe';
+import { csvText } from '../../src/lib/csv-safe';
+import { majorText } from '../../src/lib/money';
 import { mailTo } from './helpers/fixtures';
 
 const tag = `st${process.pid % 1000}${Date.now() % 10000}`;
@@ -283,10 +284,10 @@ describe('the table’s views, search and export', () => {
 	});
 
 	it('writes amounts with the currency’s own digits (ISO 4217: USD 2, JPY 0, KWD 3)', () => {
-		expect(csvAmount(4200, 2)).toBe('42.00');
-		expect(csvAmount(5, 2)).toBe('0.05');
-		expect(csvAmount(1500, 0)).toBe('1500');
-		expect(csvAmount(1234, 3)).toBe('1.234');
+		expect(majorText(4200, 'USD')).toBe('42.00');
+		expect(majorText(5, 'USD')).toBe('0.05');
+		expect(majorText(1500, 'JPY')).toBe('1500');
+		expect(majorText(1234, 'KWD')).toBe('1.234');
 		expect(csvText('-1+2')).toBe(`'-1+2`);
 		expect(csvText('Anna')).toBe('Anna');
 	});

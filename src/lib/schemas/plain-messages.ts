@@ -9,17 +9,17 @@ export function plainMessage(issue: z.core.$ZodRawIssue): string | undefined {
 	switch (issue.code) {
 		case 'too_big':
 			if (issue.origin === 'string')
-				return `Keep it to ${Number(issue.maximum).toLocaleString('en')} characters or fewer.`;
+				return `Keep it to ${Number(issue.maximum)} characters or fewer.`;
 			if (issue.origin === 'array' || issue.origin === 'set')
-				return `Choose at most ${Number(issue.maximum).toLocaleString('en')}.`;
-			return `Use a number of at most ${Number(issue.maximum).toLocaleString('en')}.`;
+				return `Choose at most ${Number(issue.maximum)}.`;
+			return `Use a number of at most ${Number(issue.maximum)}.`;
 		case 'too_small':
 			if (issue.origin === 'string')
 				return Number(issue.minimum) <= 1
 					? 'Fill this in.'
-					: `Use at least ${Number(issue.minimum).toLocaleString('en')} characters.`;
+					: `Use at least ${Number(issue.minimum)} characters.`;
 			if (issue.origin === 'array' || issue.origin === 'set') return 'Choose at least one.';
-			return `Use a number of at least ${Number(issue.minimum).toLocaleString('en')}.`;
+			return `Use a number of at least ${Number(issue.minimum)}.`;
 		case 'invalid_type':
 			if (issue.input === undefined || issue.input === null || issue.input === '')
 				return 'Fill this in.';

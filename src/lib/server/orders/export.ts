@@ -6,9 +6,10 @@
  */
 import { stringify } from 'csv-stringify/sync';
 import { desc, eq, sql } from 'drizzle-orm';
-import { minorDigits } from '$lib/money';
+import { majorText } from '$lib/money';
+import { localIso } from '$lib/dates';
 import { statusLabel } from '$lib/order-status';
-import { csvAmount, csvText } from '$lib/csv-safe';
+import { csvText } from '$lib/csv-safe';
 import type { OrderTableQuery } from '$lib/schemas/workshop-orders';
 import { db } from '../db';
 import { orders } from '../db/schema';
@@ -19,7 +20,7 @@ export const EXPORT_LIMIT = 5000;
 
 export const EXPORT_COLUMNS = [
 	'reference',
-	'placed_utc',
+	'placed_at',
 	'status',
 	'buyer',
 	'email',
@@ -61,10 +62,10 @@ export async function ordersCsv(q: OrderTableQuery): Promise<string> {
 		.orderBy(desc(orders.createdAt), desc(orders.id))
 		.limit(EXPORT_LIMIT);
 	const body = rows.map((r) => {
-		const money = (m: number) => csvAmount(m, minorDigits(r.currency));
+		const money = (m: number) => majorText(m, r.currency);
 		return [
 			r.ref,
-			r.createdAt.toISOString(),
+			localIso(r.createdAt),
 			statusLabel(r.status),
 			csvText(r.buyerName),
 			csvText(r.email),
