@@ -172,7 +172,9 @@ describe('photo uploads', () => {
 	const bad: [
 		string,
 		() => [Buffer, string, string] | Promise<[Buffer, string, string]>,
-		RegExp
+		RegExp,
+		// 413 Content Too Large for a body over the limit (RFC 9110 §15.5.14), else 400.
+		number?
 	][] = [
 		[
 			'plain text',
@@ -198,7 +200,8 @@ describe('photo uploads', () => {
 				const b = await valid();
 				return [Buffer.concat([b, Buffer.alloc(13 * 1024 * 1024)]), 'big.jpg', 'image/jpeg'];
 			},
-			/larger than 12 MB/
+			/larger than 12 MB/,
+			413
 		],
 		[
 			'an SVG with a script',
@@ -225,13 +228,13 @@ describe('photo uploads', () => {
 		]
 	];
 
-	for (const [label, make, message] of bad) {
+	for (const [label, make, message, status = 400] of bad) {
 		it(`refuses ${label} with a clear message and stores nothing`, async () => {
 			const before = await listKeys('pieces/welcome-plate/');
 			const rowsBefore = (await photoRows()).length;
 			const [bytes, name, type] = await make();
 			const res = await upload(bytes, name, type);
-			expect(res.status).toBe(400);
+			expect(res.status).toBe(status);
 			const body = (await res.json()) as { error: string };
 			expect(body.error).toMatch(message);
 			expect(body.error).toContain(name);
