@@ -229,5 +229,7 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 	'POST /workshop/settings?/shop': ownerAction,
 	'POST /workshop/settings?/away': ownerAction,
 	'POST /workshop/settings?/rates': ownerAction,
-	'POST /workshop/settings?/policies': ownerAction
+	'POST /workshop/settings?/policies': ownerAction,
+	'POST /workshop/settings?/format': ownerAction,
+	'POST /workshop/settings?/words': ownerAction
 };
