@@ -5,8 +5,11 @@
  * leaving rows in the demo shop.
  */
 const e = process.env;
-const name = e.DATABASE_URL ? new URL(e.DATABASE_URL).pathname.slice(1) : e.DB_NAME || 'chipstall';
-if (!name.includes('test')) {
+const dbName = e.DATABASE_URL
+	? new URL(e.DATABASE_URL).pathname.slice(1)
+	: e.DB_NAME || 'chipstall';
+if (!dbName.includes('test')) {
 	delete e.DATABASE_URL;
 	e.DB_NAME = e.TEST_DB_NAME || 'chipstall_test';
 }
+export {};
