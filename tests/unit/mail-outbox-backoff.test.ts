@@ -7,6 +7,7 @@
 import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startMailServer } from '../../mocks/mail/server';
+import { actions, load } from '../../src/routes/workshop/+page.server';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
 import { deliverMail, resetMailTransport } from '../../src/lib/server/mail';
@@ -157,5 +158,35 @@ describe('outbox retries', () => {
 		await due(id);
 		await drainOutbox(deliverMail);
 		expect(copiesTo(to)).toHaveLength(1);
+	});
+
+	it('Today lists given-up mail to the owner only; only the owner may try again; bad ids get a 400', async () => {
+		const to = `page-${tag}@refuse-permanent.test`;
+		const id = await enqueueMail({ to, subject: `Page ${tag}`, text: 'hello' });
+		await drainOutbox(deliverMail);
+		const [o] = await db.select().from(s.users).where(eq(s.users.role, 'owner')).limit(1);
+		const [h] = await db.select().from(s.users).where(eq(s.users.role, 'helper')).limit(1);
+		const event = (user: typeof o, body?: Record<string, string>) =>
+			({
+				locals: { user },
+				url: new URL('http://localhost/workshop?/retryMail'),
+				request: new Request('http://localhost', {
+					method: 'POST',
+					body: new URLSearchParams(body ?? {})
+				})
+			}) as never;
+		type Loaded = { undelivered: { id: number; recipients: string }[] };
+		const seen = (await load(event(o))) as Loaded;
+		expect(seen.undelivered.find((m) => m.id === id)?.recipients).toBe(to);
+		expect(((await load(event(h))) as Loaded).undelivered).toEqual([]);
+		await expect(actions.retryMail(event(h, { id: String(id) }))).rejects.toMatchObject({
+			status: 403
+		});
+		expect(await actions.retryMail(event(o, { id: 'abc' }))).toMatchObject({ status: 400 });
+		// Tried again at once, refused again (550), so it is back on the list with one more try.
+		await actions.retryMail(event(o, { id: String(id) }));
+		const row = await rowOf(id);
+		expect(row).toMatchObject({ status: 'failed', attempts: 1 });
+		expect(row.retriedAt).not.toBeNull();
 	});
 });
