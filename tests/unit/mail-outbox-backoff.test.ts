@@ -189,4 +189,26 @@ describe('outbox retries', () => {
 		expect(row).toMatchObject({ status: 'failed', attempts: 1 });
 		expect(row.retriedAt).not.toBeNull();
 	});
+
+	it('a row whose batch lease ran out while earlier rows were sent is not sent again by this drainer', async () => {
+		const first = `slow-${tag}@example.test`;
+		const second = `later-${tag}@example.test`;
+		const a = await enqueueMail({ to: first, subject: `Slow ${tag}`, text: 'hello' });
+		const b = await enqueueMail({ to: second, subject: `Later ${tag}`, text: 'hello' });
+		// The first row's hand-over is slow; meanwhile the second row's lease runs out and another
+		// drainer (the next tick, or another process) claims and sends it.
+		const slow = async (mail: Parameters<typeof deliverMail>[0]) => {
+			const messageId = await deliverMail(mail);
+			if (String(mail.to).includes(first)) {
+				await due(b);
+				await drainOutbox(deliverMail);
+			}
+			return messageId;
+		};
+		await drainOutbox(slow);
+		expect((await rowOf(a)).status).toBe('sent');
+		expect((await rowOf(b)).status).toBe('sent');
+		expect(copiesTo(first)).toHaveLength(1);
+		expect(copiesTo(second)).toHaveLength(1);
+	});
 });

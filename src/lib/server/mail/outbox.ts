@@ -135,6 +135,17 @@ async function sendClaimed(rows: Row[], token: string, deliver: Deliver) {
 		try {
 			let messageId = handedOver.get(row.id);
 			if (!messageId) {
+				// The batch's lease was set when it was claimed, and rows go one after another: a
+				// slow server could let a later row's lease run out and another drainer send it
+				// meanwhile. So each row's lease starts again just before its own try, and a row
+				// whose claim was lost is left to whoever holds it now.
+				const [renewed] = await db
+					.update(outbox)
+					.set({ claimedUntil: sql`utc_timestamp() + interval ${LEASE_SECONDS} second` })
+					.where(
+						and(eq(outbox.id, row.id), eq(outbox.claimedBy, token), eq(outbox.status, 'pending'))
+					);
+				if (renewed.affectedRows !== 1) continue;
 				if (row.attempts > 1) {
 					// An earlier try failed, or its sender never said how it went (then it may have
 					// gone out): logged, and sent with the same Message-ID.
@@ -279,10 +290,15 @@ export async function pendingCount(): Promise<number> {
 
 /** One timer per process; every process may run it (claims keep them apart). */
 export function startOutboxDrainer() {
+	// One round at a time: a slow round is not joined by the next tick.
+	let running = false;
 	const timer = setInterval(() => {
+		if (running) return;
+		running = true;
 		void import('../mail')
 			.then(({ deliverMail }) => drainOutbox(deliverMail))
-			.catch((err) => console.error('Sending queued mail failed', err));
+			.catch((err) => console.error('Sending queued mail failed', err))
+			.finally(() => (running = false));
 	}, config.mail.outboxEveryMs);
 	timer.unref();
 	process.once('sveltekit:shutdown', () => clearInterval(timer));
