@@ -23,6 +23,16 @@ const listen = (server: net.Server, port: number, host: string) =>
 		server.listen(port, host, () => resolve());
 	});
 
+/** The refusal the stand-in gives a recipient, if any (see `onRcptTo`). */
+export function refusalFor(address: string): { code: number; message: string } | null {
+	const domain = address.split('@').pop()?.toLowerCase() ?? '';
+	if (domain === 'refuse-permanent.test')
+		return { code: 550, message: `5.1.1 <${address}>: no such mailbox here` };
+	if (domain === 'refuse-temporary.test')
+		return { code: 451, message: `4.3.0 <${address}>: mailbox busy, try again later` };
+	return null;
+}
+
 export async function startMailServer(opts: MailServerOptions = {}) {
 	const host = opts.host ?? '127.0.0.1';
 	const store = new MailStore();
@@ -33,6 +43,15 @@ export async function startMailServer(opts: MailServerOptions = {}) {
 		logger: false,
 		// Accept any credentials: the stand-in must not reject a configured SMTP user.
 		onAuth: (_auth, _session, cb) => cb(null, { user: 'local' }),
+		// Refusals on demand, as a real server gives them (RFC 5321 §4.2.1: 5yz is permanent,
+		// 4yz temporary): any recipient at refuse-permanent.test gets 550, at
+		// refuse-temporary.test 451.
+		onRcptTo(address, _session, cb) {
+			const refusal = refusalFor(address.address);
+			if (!refusal) return cb();
+			const err = Object.assign(new Error(refusal.message), { responseCode: refusal.code });
+			cb(err);
+		},
 		onData(stream, session, cb) {
 			// Keep the bytes as sent too, so a test can parse the message itself.
 			const chunks: Buffer[] = [];

@@ -4,7 +4,7 @@
  * carving queue, confirmed to the buyer by e-mail; it cannot ship until the owner records the
  * balance as paid, and two clicks on "balance paid" record it once.
  */
-import { and, eq } from 'drizzle-orm';
+import { and, eq, like } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import * as s from '../../src/lib/server/db/schema';
@@ -137,6 +137,32 @@ describe('booth order through the orders module', () => {
 		expect(mail.text).toContain('Left to pay before it ships: $11.45');
 		expect(mail.text).toContain(`http://shop.test/orders/${ref}?k=`);
 		expect(mail.html).toContain('$11.45');
+	});
+
+	it('queues one owner alert and one buyer letter with the order, also when it is posted twice at once', async () => {
+		const o = boothOrder(40);
+		const both = await Promise.all([
+			placeBoothOrder(fairId, o, helper, 'http://shop.test'),
+			placeBoothOrder(fairId, o, helper, 'http://shop.test')
+		]);
+		expect(both.map((r) => r.status).sort()).toEqual(['accepted', 'duplicate']);
+		const again = await placeBoothOrder(fairId, o, helper, 'http://shop.test');
+		expect(again.status).toBe('duplicate');
+		const { ref } = both.find((r) => r.status === 'accepted') as { ref: string };
+		const rows = await db
+			.select()
+			.from(s.outbox)
+			.where(like(s.outbox.subject, `%${ref}%`));
+		const buyer = rows.filter((r) => r.recipients === o.email);
+		const alert = rows.filter((r) => r.recipients !== o.email);
+		expect(buyer).toHaveLength(1);
+		expect(alert).toHaveLength(1);
+		expect(alert[0].recipients).toContain(owner.email);
+		// Written with the order, so both state the ready-by day it was given in that transaction.
+		const [order] = await db.select().from(s.orders).where(eq(s.orders.ref, ref));
+		expect(order.promisedBy).not.toBeNull();
+		const ordered = await mailTo(o.email, new RegExp(ref));
+		expect(ordered.subject).toContain(ref);
 	});
 
 	it('refuses a deposit above the total and writes nothing', async () => {

@@ -1,8 +1,31 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { todaySummary } from '$lib/server/workshop-today';
-import type { PageServerLoad } from './$types';
+import { retryUndelivered, sendQueued, undeliveredMail } from '$lib/server/mail/outbox';
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'owner', 'helper');
-	return { name: user.name, role: user.role, summary: await todaySummary() };
+	// Mail the outbox gave up on: the owner's to deal with, so only the owner sees it.
+	const [summary, undelivered] = await Promise.all([
+		todaySummary(),
+		user.role === 'owner' ? undeliveredMail() : Promise.resolve([])
+	]);
+	return { name: user.name, role: user.role, summary, undelivered };
+};
+
+const retryForm = z.object({ id: z.coerce.number().int().positive() });
+
+export const actions: Actions = {
+	/** "Try again" on a message the outbox gave up on: pending again, and tried at once. */
+	retryMail: async (event) => {
+		requireRole(event, 'owner');
+		const parsed = retryForm.safeParse(Object.fromEntries(await event.request.formData()));
+		if (!parsed.success) return fail(400, { mailError: 'That message could not be found.' });
+		const { id } = parsed.data;
+		// False when it is no longer given up (a second tap, or another tab already retried it).
+		if (await retryUndelivered(id)) await sendQueued([id]);
+		return { retried: id };
+	}
 };

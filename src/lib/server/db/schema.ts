@@ -545,14 +545,19 @@ export const outbox = mysqlTable(
 		textBody: text('text_body').notNull(),
 		htmlBody: text('html_body'),
 		replyTo: varchar('reply_to', { length: 255 }),
-		status: mysqlEnum('status', ['pending', 'sent']).notNull().default('pending'),
+		/** 'failed': given up (a permanent refusal, or temporary failures past the limit). */
+		status: mysqlEnum('status', ['pending', 'sent', 'failed']).notNull().default('pending'),
 		attempts: int('attempts').notNull().default(0),
 		lastError: varchar('last_error', { length: 500 }),
 		claimedBy: varchar('claimed_by', { length: 64 }),
 		claimedUntil: datetime('claimed_until'),
 		messageId: varchar('message_id', { length: 255 }),
 		createdAt: datetime('created_at').notNull(),
-		sentAt: datetime('sent_at')
+		sentAt: datetime('sent_at'),
+		/** When the outbox gave up on it. */
+		failedAt: datetime('failed_at'),
+		/** When the owner asked for another try: the retry limit counts from here, not createdAt. */
+		retriedAt: datetime('retried_at')
 	},
 	(t) => [index('outbox_status_idx').on(t.status, t.claimedUntil)]
 );

@@ -12,7 +12,9 @@ import {
 } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
-import { afterBoothOrder } from '../orders/booth-mail';
+import { boothOrderSigners, queueBoothOrderLetters } from '../orders/booth-mail';
+import { afterOrderPaid } from '../orders/paid-alert';
+import { sendQueued } from '../mail/outbox';
 import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/schemas/fairs';
 import { lateVerdict, saleTimeProblem } from '$lib/booth/rules';
@@ -47,8 +49,9 @@ const orderHash = (o: BoothOrder) =>
  * A personalised piece ordered at the booth: the orders module writes the order (deposit taken,
  * balance due — or paid in full), and beside it a booth entry of kind 'deposit' under the phone's
  * id, so the deposit counts in the tally's cash or card and a resend stores nothing new. Like a
- * sale, an order made before the close is taken after it (late). After the commit the queue dates
- * the order and the buyer and the workshop hear of it.
+ * sale, an order made before the close is taken after it (late). In the same transaction the
+ * queue dates the order and the buyer's letter and the workshop's alert are queued; they are sent
+ * after the commit.
  */
 export async function placeBoothOrder(
 	fairId: number,
@@ -76,8 +79,15 @@ export async function placeBoothOrder(
 	const when = saleTimeProblem(at, fairDays);
 	if (when) throw new FairError(when.replace('The sale', 'The order'));
 	const rates = o.delivery === 'post' ? await db.select().from(shippingRates) : [];
+	const who = await boothOrderSigners(seller.id);
 
-	let placed: { id: number; ref: string; totalMinor: number; fairName: string; late: boolean };
+	let placed: {
+		id: number;
+		ref: string;
+		totalMinor: number;
+		late: boolean;
+		mails: number[];
+	};
 	try {
 		placed = await withRetry(() =>
 			db.transaction(async (tx) => {
@@ -124,7 +134,8 @@ export async function placeBoothOrder(
 					now
 				});
 				await tx.update(boothSales).set({ orderId: order.id }).where(eq(boothSales.id, o.id));
-				return { ...order, fairName: fair.name, late: verdict === 'late' };
+				const mails = await queueBoothOrderLetters(tx, order.id, fair.name, who, now, origin);
+				return { ...order, late: verdict === 'late', mails };
 			})
 		);
 	} catch (err) {
@@ -138,7 +149,8 @@ export async function placeBoothOrder(
 		}
 		throw err;
 	}
-	await afterBoothOrder(placed.id, placed.fairName, seller.id, origin);
+	await sendQueued(placed.mails);
+	await afterOrderPaid(placed.id);
 	return {
 		status: 'accepted' as const,
 		ref: placed.ref,

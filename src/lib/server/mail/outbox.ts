@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, ne, sql } from 'drizzle-orm';
 import { db, type Tx } from '../db';
 import { outbox } from '../db/schema';
 import { config } from '../config';
@@ -24,9 +24,30 @@ import type { OutgoingMail } from '../mail';
 
 /** How long a claim lasts. Longer than the transport's timeouts put together (see mail.ts). */
 export const LEASE_SECONDS = 30;
-/** After a failed attempt, wait this long before the row may be claimed again. */
-const RETRY_AFTER_SECONDS = 5;
+/** After a failed attempt the wait doubles from this… */
+export const FIRST_RETRY_SECONDS = 5;
+/** …up to this, so a server that is down for a day is still tried every hour. */
+export const MAX_RETRY_SECONDS = 3600;
+/** Temporary failures are retried this long (from writing, or from the owner's "try again"). */
+export const GIVE_UP_AFTER_SECONDS = 2 * 24 * 3600;
 const BATCH = 20;
+
+/** Seconds to wait after the `attempts`-th failed try: 5, 10, 20, … capped at an hour. */
+export function retryDelaySeconds(attempts: number): number {
+	const n = Math.max(1, attempts);
+	// 2^10 × 5 s already passes the cap; bounding the exponent keeps the number finite.
+	return Math.min(MAX_RETRY_SECONDS, FIRST_RETRY_SECONDS * 2 ** Math.min(n - 1, 20));
+}
+
+/**
+ * A permanent refusal: the server answered with a 5yz reply code (RFC 5321 §4.2.1), e.g. 550
+ * "no such mailbox". Sending the same message again cannot help. 4yz replies and connection
+ * errors (no reply code) are temporary.
+ */
+export function isPermanentRefusal(err: unknown): boolean {
+	const code = Number((err as { responseCode?: unknown })?.responseCode);
+	return Number.isInteger(code) && code >= 500 && code <= 599;
+}
 
 export type Deliver = (mail: OutgoingMail) => Promise<string>;
 
@@ -114,6 +135,17 @@ async function sendClaimed(rows: Row[], token: string, deliver: Deliver) {
 		try {
 			let messageId = handedOver.get(row.id);
 			if (!messageId) {
+				// The batch's lease was set when it was claimed, and rows go one after another: a
+				// slow server could let a later row's lease run out and another drainer send it
+				// meanwhile. So each row's lease starts again just before its own try, and a row
+				// whose claim was lost is left to whoever holds it now.
+				const [renewed] = await db
+					.update(outbox)
+					.set({ claimedUntil: sql`utc_timestamp() + interval ${LEASE_SECONDS} second` })
+					.where(
+						and(eq(outbox.id, row.id), eq(outbox.claimedBy, token), eq(outbox.status, 'pending'))
+					);
+				if (renewed.affectedRows !== 1) continue;
 				if (row.attempts > 1) {
 					// An earlier try failed, or its sender never said how it went (then it may have
 					// gone out): logged, and sent with the same Message-ID.
@@ -124,26 +156,101 @@ async function sendClaimed(rows: Row[], token: string, deliver: Deliver) {
 				messageId = await deliver(asMail(row));
 				handedOver.set(row.id, messageId);
 			}
+			// Marked sent whoever holds the claim now: it went out. (Marking only under our own
+			// token once let a lapsed lease lose the mark, forget the hand-over, and the next
+			// claimant send the message a second time.)
 			await db
 				.update(outbox)
 				.set({ status: 'sent', sentAt: new Date(), messageId, claimedBy: null, claimedUntil: null })
-				.where(and(eq(outbox.id, row.id), eq(outbox.claimedBy, token)));
+				.where(and(eq(outbox.id, row.id), ne(outbox.status, 'sent')));
 			handedOver.delete(row.id);
 			sent++;
 		} catch (err) {
 			if (handedOver.has(row.id)) throw err; // the database is away: the claim lapses, we retry
-
-			await db
-				.update(outbox)
-				.set({
-					lastError: String((err as Error)?.message ?? err).slice(0, 500),
-					claimedBy: null,
-					claimedUntil: sql`utc_timestamp() + interval ${RETRY_AFTER_SECONDS} second`
-				})
-				.where(and(eq(outbox.id, row.id), eq(outbox.claimedBy, token)));
+			await recordFailure(row, token, err);
 		}
 	}
 	return sent;
+}
+
+/**
+ * A failed try: a permanent refusal gives up at once; a temporary one waits (doubling) and
+ * gives up once the retry window has passed. Given-up rows are listed for the owner on Today.
+ */
+async function recordFailure(row: Row, token: string, err: unknown) {
+	const lastError = String((err as Error)?.message ?? err).slice(0, 500);
+	const wait = retryDelaySeconds(row.attempts);
+	const from = (row.retriedAt ?? row.createdAt).getTime();
+	const giveUp =
+		isPermanentRefusal(err) || Date.now() + wait * 1000 > from + GIVE_UP_AFTER_SECONDS * 1000;
+	const mine = and(eq(outbox.id, row.id), eq(outbox.claimedBy, token));
+	if (giveUp) {
+		console.warn(`Outbox: gave up on message ${row.id} after ${row.attempts} tries: ${lastError}`);
+		await db
+			.update(outbox)
+			.set({
+				status: 'failed',
+				failedAt: new Date(),
+				lastError,
+				claimedBy: null,
+				claimedUntil: null
+			})
+			.where(mine);
+		return;
+	}
+	await db
+		.update(outbox)
+		.set({
+			lastError,
+			claimedBy: null,
+			claimedUntil: sql`utc_timestamp() + interval ${wait} second`
+		})
+		.where(mine);
+}
+
+export type UndeliveredMail = {
+	id: number;
+	recipients: string;
+	subject: string;
+	lastError: string | null;
+	attempts: number;
+	failedAt: Date | null;
+};
+
+/** Mail the outbox gave up on, newest first (the owner's list on Today). */
+export function undeliveredMail(limit = 20): Promise<UndeliveredMail[]> {
+	return db
+		.select({
+			id: outbox.id,
+			recipients: outbox.recipients,
+			subject: outbox.subject,
+			lastError: outbox.lastError,
+			attempts: outbox.attempts,
+			failedAt: outbox.failedAt
+		})
+		.from(outbox)
+		.where(eq(outbox.status, 'failed'))
+		.orderBy(desc(outbox.failedAt), desc(outbox.id))
+		.limit(limit);
+}
+
+/**
+ * The owner's "try again": a given-up row is pending again, due now, with a fresh retry window.
+ * Keeps its Message-ID. False when the row is not (or no longer) given up.
+ */
+export async function retryUndelivered(id: number): Promise<boolean> {
+	const [res] = await db
+		.update(outbox)
+		.set({
+			status: 'pending',
+			attempts: 0,
+			failedAt: null,
+			retriedAt: new Date(),
+			claimedBy: null,
+			claimedUntil: null
+		})
+		.where(and(eq(outbox.id, id), eq(outbox.status, 'failed')));
+	return res.affectedRows === 1;
 }
 
 /** Tries to send one row now (right after it was written); false leaves it for the drainer. */
@@ -183,10 +290,15 @@ export async function pendingCount(): Promise<number> {
 
 /** One timer per process; every process may run it (claims keep them apart). */
 export function startOutboxDrainer() {
+	// One round at a time: a slow round is not joined by the next tick.
+	let running = false;
 	const timer = setInterval(() => {
+		if (running) return;
+		running = true;
 		void import('../mail')
 			.then(({ deliverMail }) => drainOutbox(deliverMail))
-			.catch((err) => console.error('Sending queued mail failed', err));
+			.catch((err) => console.error('Sending queued mail failed', err))
+			.finally(() => (running = false));
 	}, config.mail.outboxEveryMs);
 	timer.unref();
 	process.once('sveltekit:shutdown', () => clearInterval(timer));

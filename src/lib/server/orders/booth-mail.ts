@@ -7,14 +7,13 @@ import { formatMoney } from '$lib/money';
 import { buyerReadyBy } from '$lib/carving-queue';
 import { orderBalance } from '$lib/order-balance';
 import { eq } from 'drizzle-orm';
-import { db } from '../db';
-import { transact } from '../db/retry';
+import { db, type Tx } from '../db';
 import { users } from '../db/schema';
-import { queueMail, sendQueued } from '../mail/outbox';
+import { queueMail } from '../mail/outbox';
 import { getShopInfo } from '../shop-settings';
 import { promiseReadyBy } from './carving-queue';
 import { esc, mailButton, mailPage } from '../mail-html';
-import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
+import { queueNewOrderAlert } from './paid-alert';
 import { orderLink } from './links';
 import { readyByWords } from './mail';
 import { orderById, type OrderDetail } from './views';
@@ -64,39 +63,37 @@ ${mailButton(link, 'See your order')}`);
 	return { subject: `Order ${order.ref}: your order from ${where}`, text, html };
 }
 
+/** Who took the order and for which shop, as the buyer's letter names them. */
+export async function boothOrderSigners(takenById: string) {
+	const [shop, [taker]] = await Promise.all([
+		getShopInfo(),
+		db.select({ name: users.name }).from(users).where(eq(users.id, takenById))
+	]);
+	return { takenBy: taker?.name ?? shop.name, shop: shop.name };
+}
+
 /**
- * After a booth order is committed: the queue dates it (and the workshop hears of it, as for any
- * paid order), then the buyer gets the confirmation. A failed e-mail stays in the outbox and
- * never undoes the order.
+ * Inside the transaction that writes a booth order: the queue dates it, then the workshop's
+ * alert (as for any paid order) and the buyer's confirmation are queued, both stating that
+ * ready-by day. They exist exactly when the order does; a resent order (its booth entry already
+ * stored) never gets here, so never queues them twice. Returns the outbox ids to send after
+ * the commit (`sendQueued`).
  */
-export async function afterBoothOrder(
+export async function queueBoothOrderLetters(
+	tx: Tx,
 	orderId: number,
 	fairName: string,
-	takenById: string,
+	who: { takenBy: string; shop: string },
+	now: Date,
 	origin?: string
-) {
-	try {
-		const [shop, [taker]] = await Promise.all([
-			getShopInfo(),
-			db.select({ name: users.name }).from(users).where(eq(users.id, takenById))
-		]);
-		const who = { takenBy: taker?.name ?? shop.name, shop: shop.name };
-		// Dated, then both letters queued together: the workshop's alert and the buyer's
-		// confirmation, stating the same ready-by day.
-		const ids = await transact(async (tx) => {
-			await promiseReadyBy(orderId, new Date(), tx);
-			const order = await orderById(orderId, tx);
-			if (!order) return [];
-			const alert = await queueNewOrderAlert(tx, orderId, origin ?? '');
-			const buyer = await queueMail(tx, {
-				to: order.email,
-				...boothOrderMail(order, fairName, who, origin)
-			});
-			return [...alert, buyer];
-		});
-		await sendQueued(ids);
-	} catch (err) {
-		console.error('booth order e-mail failed', orderId, err);
-	}
-	await afterOrderPaid(orderId);
+): Promise<number[]> {
+	await promiseReadyBy(orderId, now, tx);
+	const order = await orderById(orderId, tx);
+	if (!order) return [];
+	const alert = await queueNewOrderAlert(tx, orderId, origin ?? '');
+	const buyer = await queueMail(tx, {
+		to: order.email,
+		...boothOrderMail(order, fairName, who, origin)
+	});
+	return [...alert, buyer];
 }
