@@ -99,6 +99,11 @@ test('the order page’s forms refuse bad input on the page, and the order is un
 	await note.locator('[name="body"]').fill(LONG);
 	await note.getByRole('button').click();
 	await expect(page.getByText('Keep a note under 2,000 characters.')).toBeVisible();
+	await note.locator('[name="body"]').fill('Box \u202edetned');
+	await note.getByRole('button').click();
+	await expect(
+		page.getByText(/Remove the hidden control or text-direction characters/)
+	).toBeVisible();
 	await expect(page.getByText(/^Error \d{3}$/)).toHaveCount(0);
 	await expect(page).toHaveURL(new RegExp(`${url}$`));
 });
