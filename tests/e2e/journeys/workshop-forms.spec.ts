@@ -212,3 +212,18 @@ test('the layout planner answers bad numbers with its page, not an error', async
 		await expect(page.getByText(/^Error \d{3}$/)).toHaveCount(0);
 	}
 });
+
+test('on a phone the stock panel’s refusal is where the eye is, nothing counted', async ({
+	page
+}) => {
+	await page.setViewportSize({ width: 390, height: 844 });
+	await signInAs(page, 'owner');
+	const href = await firstLink(page, '/workshop/pieces', /^\/workshop\/pieces\/\d+$/);
+	await page.goto(href);
+	const table = await page.getByTestId('stock-table').textContent();
+	await page.locator('#stock-count').fill('-');
+	await page.getByRole('button', { name: 'Save the change' }).click();
+	await expect(page.locator('#stock-count')).toHaveAttribute('aria-invalid', 'true');
+	await expect(page.locator('#stock-count')).toBeInViewport();
+	await expect(page.getByTestId('stock-table')).toHaveText(table!);
+});
