@@ -19,6 +19,20 @@ export type SyncResult = {
 	stopped?: string;
 };
 
+/** Said when the server will not take anything from this phone yet; the entries keep waiting. */
+export const NOT_A_HELPER = 'You are not named as a helper for this fair: ask the owner.';
+export const SIGNED_OUT = 'Sign in again to send.';
+
+/**
+ * A 401 or 403 is about the person, not the entry: signed out, or not (yet) named a helper for
+ * this fair. Nothing is refused for good then, since the owner can name them and it sends.
+ */
+function notAllowed(res: Response): string | null {
+	if (res.status === 401) return SIGNED_OUT;
+	if (res.status === 403) return NOT_A_HELPER;
+	return null;
+}
+
 /**
  * Sends what waits in the outbox: sales in batches that fit the route's limits, then booth
  * orders, voids and discards one by one (a void after its sale). A network failure or a 5xx
@@ -46,7 +60,7 @@ export async function sendWaiting(
 		} catch {
 			return { ...result, offline: true };
 		}
-		if (!res.ok) return { ...result, stopped: await reason(res) };
+		if (!res.ok) return { ...result, stopped: notAllowed(res) ?? (await reason(res)) };
 		const answer = (await res.json()) as {
 			accepted: string[];
 			duplicate: string[];
@@ -76,10 +90,12 @@ export async function sendWaiting(
 		} catch {
 			return { ...result, offline: true };
 		}
+		const stop = notAllowed(res);
+		if (stop) return { ...result, stopped: stop };
 		if (res.ok) {
 			await settle([q.id]);
 			result.sent++;
-		} else if (res.status >= 400 && res.status < 500 && res.status !== 401) {
+		} else if (res.status >= 400 && res.status < 500) {
 			await refuse([{ entry: q, error: await reason(res), conflict: res.status === 409 }]);
 			result.refused++;
 		} else return { ...result, stopped: await reason(res) };

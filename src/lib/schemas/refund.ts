@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plain } from './plain-text';
 import { parseMajor } from '$lib/money';
 
 /** What the domain needs: an amount in minor units (null = everything left), why, and restock. */
@@ -13,11 +14,13 @@ export function refundFormSchema(currency: string) {
 		.object({
 			kind: z.enum(['full', 'part'], { error: 'Choose a full or a part refund.' }),
 			amount: z.string().optional().default(''),
-			reason: z
-				.string()
-				.trim()
-				.min(3, 'Say why, in a few words: the buyer reads this.')
-				.max(300, 'Keep the reason under 300 characters.'),
+			reason: plain(
+				z
+					.string()
+					.trim()
+					.min(3, 'Say why, in a few words: the buyer reads this.')
+					.max(300, 'Keep the reason under 300 characters.')
+			),
 			restock: z
 				.string()
 				.optional()

@@ -6,7 +6,8 @@ import { randomInt } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
-import { orderLines, orders, type Address } from '../db/schema';
+import { orderLines, orders } from '../db/schema';
+import { addressOf } from './address';
 import { priceCart, type PricedCart } from '../cart/pricing';
 import { carvedMinutes, readyByNow } from './carving-queue';
 import { saveCheckoutDetails } from '../cart/checkout-details';
@@ -47,17 +48,6 @@ export type PendingOrder = {
 	/** Payment sessions of orders this one replaced; closed once the new order is committed. */
 	replacedSessions: string[];
 };
-
-function addressOf(buyer: CheckoutInput): Address {
-	return {
-		line1: buyer.line1,
-		...(buyer.line2 ? { line2: buyer.line2 } : {}),
-		city: buyer.city,
-		...(buyer.region ? { region: buyer.region.toUpperCase() } : {}),
-		postcode: buyer.postcode,
-		country: buyer.country
-	};
-}
 
 /** A fresh order reference no order holds yet. */
 export async function uniqueRef(tx: Tx) {

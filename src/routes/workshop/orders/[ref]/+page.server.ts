@@ -1,6 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { firstError, formTexts, parseForm } from '$lib/forms';
+import { firstError, parseForm } from '$lib/forms';
 import { workshopOrderDetail } from '$lib/server/orders/views';
 import { canCancel, nextStatuses, statusLabel, stepBackTo } from '$lib/order-status';
 import { formatMoney } from '$lib/money';
@@ -126,9 +126,8 @@ export const actions: Actions = {
 
 	balance: async (event) => {
 		const user = requireRole(event, 'owner');
-		const parsed = balanceSchema.safeParse(formTexts(await event.request.formData()));
-		if (!parsed.success)
-			return fail(400, { form: 'balance', error: parsed.error.issues[0].message });
+		const parsed = await parseForm(event.request, balanceSchema);
+		if (!parsed.ok) return fail(400, { form: 'balance', error: firstError(parsed.errors) });
 		try {
 			await recordBalancePaid(event.params.ref, parsed.data.method, { userId: user.id });
 			return { form: 'balance', done: 'Balance recorded as paid. The order can ship.' };
