@@ -11,9 +11,8 @@ import { scriptPreloadsIntoHead } from './link-preloads';
 /**
  * Whole rendered public pages, the same for every visitor, kept per process.
  *
- * Such a visitor gets the same bytes as every other one until the owner changes the catalogue or
- * the shop's settings, yet each request ran the loads, the queries and the server render (the
- * piece page draws its rosettes twice). The key is what the client asked (page-cache-key.ts: the
+ * Every visitor gets the same bytes until the owner changes the catalogue or the shop's settings,
+ * yet each request would run the loads, the queries and the server render. The key is what the client asked (page-cache-key.ts: the
  * path as sent, `/__data.json` included, and the query parameters the page reads), and an answer
  * is kept only when its type fits the request (HTML for a page, JSON for data). Entries live
  * until the catalogue version changes (a counter row that triggers bump in the same transaction
