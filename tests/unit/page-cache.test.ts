@@ -108,11 +108,50 @@ describe('page cache answers', () => {
 		expect(second.res.headers.get('x-page-cache')).toBeNull();
 	});
 
-	it('leaves visitors with a cookie to a fresh render', async () => {
+	it('serves a stored public page to a visitor with a session cookie and a basket', async () => {
 		const path = freshPath();
 		await call(path, {}, HASHED);
-		const withCookie = await call(path, { cookie: 'chipstall_cart=x' }, HASHED);
+		const stranger = await call(path, {}, HASHED);
+		const plain = await stranger.res.text();
+		const withCookie = await call(path, { cookie: 'auth_session=abc; cart=x' }, HASHED);
+		expect(withCookie.rendered).toBe(0);
+		expect(withCookie.res.headers.get('x-page-cache')).toBe('hit');
+		expect(withCookie.res.headers.has('set-cookie')).toBe(false);
+		expect(await withCookie.res.text()).toBe(plain);
+	});
+
+	it('never stores a page rendered for a request with cookies', async () => {
+		const path = freshPath();
+		const withCookie = await call(path, { cookie: 'auth_session=abc' }, HASHED);
 		expect(withCookie.rendered).toBe(1);
+		const stranger = await call(path, {}, HASHED);
+		expect(stranger.rendered).toBe(1);
+		expect(stranger.res.headers.get('x-page-cache')).toBe('miss');
+	});
+
+	it('never stores an answer that sets a cookie', async () => {
+		const path = freshPath();
+		let rendered = 0;
+		const event = {
+			request: new Request(`http://localhost${path}`),
+			url: new URL(`http://localhost${path}`)
+		} as unknown as RequestEvent;
+		const resolve = (): Promise<Response> => {
+			rendered++;
+			return Promise.resolve(
+				new Response(PAGE, {
+					headers: {
+						'content-type': 'text/html',
+						'content-security-policy': HASHED,
+						'set-cookie': 'cart=y; Path=/; HttpOnly'
+					}
+				})
+			);
+		};
+		await pageCacheHandle({ event, resolve });
+		const again: Response = await pageCacheHandle({ event, resolve });
+		expect(rendered).toBe(2);
+		expect(again.headers.get('x-page-cache')).toBeNull();
 	});
 });
 

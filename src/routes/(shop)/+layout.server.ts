@@ -1,17 +1,14 @@
-import { cartCount, cartIdFrom } from '$lib/server/cart';
 import { addressLines, awayNotice, getAway, getShopInfo } from '$lib/server/shop-settings';
 import type { LayoutServerLoad } from './$types';
 
-export const load: LayoutServerLoad = async ({ locals, cookies, depends }) => {
-	depends('app:cart');
-	const [count, shop, away] = await Promise.all([
-		cartCount(cartIdFrom(cookies)),
-		getShopInfo(),
-		getAway()
-	]);
+/**
+ * Shop-wide only: nothing here depends on the visitor, so the public pages under this layout can
+ * be cached and served to anyone. The basket count and the signed-in name come from /api/me in
+ * the browser (cart-count.svelte.ts).
+ */
+export const load: LayoutServerLoad = async () => {
+	const [shop, away] = await Promise.all([getShopInfo(), getAway()]);
 	return {
-		user: locals.user,
-		cartCount: count,
 		shop: { name: shop.name, email: shop.email, address: addressLines(shop.address) },
 		away: awayNotice(away)
 	};

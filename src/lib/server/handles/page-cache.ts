@@ -9,18 +9,19 @@ import { fitsRequest, pageCacheKey } from './page-cache-key';
 import { scriptPreloadsIntoHead } from './link-preloads';
 
 /**
- * Whole rendered public pages for visitors without cookies, kept per process.
+ * Whole rendered public pages, the same for every visitor, kept per process.
  *
- * Such a visitor gets the same bytes as every other one until the owner changes the catalogue or
- * the shop's settings, yet each request ran the loads, the queries and the server render (the
- * piece page draws its rosettes twice). The key is what the client asked (page-cache-key.ts: the
+ * Every visitor gets the same bytes until the owner changes the catalogue or the shop's settings,
+ * yet each request would run the loads, the queries and the server render. The key is what the client asked (page-cache-key.ts: the
  * path as sent, `/__data.json` included, and the query parameters the page reads), and an answer
  * is kept only when its type fits the request (HTML for a page, JSON for data). Entries live
  * until the catalogue version changes (a counter row that triggers bump in the same transaction
  * as any catalogue or settings write, asked at most once a second) or the shop's day turns, in
  * its zone (the away notice and "ready to ship by" move with the date). An edit made through any
  * app process, a script or by hand bumps the counter, so every process drops its pages within a
- * second. Anyone with a cookie (signed in, or with a basket) is rendered afresh, as before.
+ * second. Visitors with cookies (signed in, or with a basket) are answered from the same entries:
+ * what depends on the visitor (basket count, name) is asked by the browser from /api/me after the
+ * page loads. A page is stored only from a request without cookies whose answer sets none.
  *
  * A hit does as little as it can, since it is most of the shop's traffic: the page's
  * Content-Security-Policy names its inline script by hash (`kit.csp.mode: 'hash'`), so the stored
@@ -145,13 +146,13 @@ function answer(stored: Stored, request: Request): Response {
 export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	const { request } = event;
 	const method = request.method;
-	if (
-		(method !== 'GET' && method !== 'HEAD') ||
-		request.headers.has('cookie') ||
-		request.headers.has('authorization')
-	) {
+	if ((method !== 'GET' && method !== 'HEAD') || request.headers.has('authorization')) {
 		return resolve(event);
 	}
+	// A visitor with cookies (a basket, signed in) is served stored pages like anyone else, since
+	// the public pages carry nothing personal; but a page is only ever stored from a request
+	// without cookies, so nothing a load might read from a cookie can enter the cache.
+	const storable = !request.headers.has('cookie');
 	// The address as the client sent it: SvelteKit has taken `/__data.json` and its own
 	// parameters out of `event.url`.
 	const asked = new URL(request.url);
@@ -176,6 +177,7 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 
 	const response = await resolve(event);
 	if (
+		!storable ||
 		method !== 'GET' ||
 		response.status !== 200 ||
 		!fitsRequest(response.headers.get('content-type'), target.data) ||

@@ -79,16 +79,34 @@ function previewFor(
 	});
 }
 
+type Piece = NonNullable<Awaited<ReturnType<typeof getPiece>>>;
+type Drawn = { standard: Record<string, number>; preview: ReturnType<typeof previewFor> };
+
+/**
+ * The page's rosettes (the first preview, close up and whole, and the standard layout in every
+ * wood) depend on the piece alone, and getPiece hands out one object per catalogue version: they
+ * are drawn once per version, not on every render (they were most of a render's time).
+ */
+const drawn = new WeakMap<Piece, Drawn>();
+function drawnFor(piece: Piece): Drawn {
+	let d = drawn.get(piece);
+	if (!d) {
+		// The standard layout's minutes per wood are worked out here, so the page's script needs no
+		// pattern engine until the buyer starts typing (the engine then loads on its own).
+		const standard = Object.fromEntries(
+			piece.personalisable
+				? piece.woods.map((w) => [w.slug, standardMinutes(piece.pattern, piece, w.slug)])
+				: []
+		) as Record<string, number>;
+		drawn.set(piece, (d = { standard, preview: previewFor(piece) }));
+	}
+	return d;
+}
+
 export const load: PageServerLoad = async ({ params }) => {
 	const piece = await getPiece(params.slug);
 	if (!piece) error(404, 'We do not have a piece at this address.');
-	// The standard layout's minutes per wood are worked out here, so the page's script needs no
-	// pattern engine until the buyer starts typing (the engine then loads on its own).
-	const standard = Object.fromEntries(
-		piece.personalisable
-			? piece.woods.map((w) => [w.slug, standardMinutes(piece.pattern, piece, w.slug)])
-			: []
-	) as Record<string, number>;
+	const { standard, preview } = drawnFor(piece);
 	const queue = { ...(await queueOutlook()), standardMinutes: standard };
 	const firstWood = piece.woods[0]?.slug;
 	// The date shown before the buyer types anything: the standard layout joining the queue now.
@@ -104,7 +122,7 @@ export const load: PageServerLoad = async ({ params }) => {
 			: null;
 	return {
 		sharing: await sharing(piece),
-		preview: previewFor(piece),
+		preview,
 		// Where a buyer whose initials are too small here can go: chosen here, checked in the page.
 		larger: piece.personalisable ? await largerRosettePieces(piece.pattern.diameterMm) : [],
 		queue,
