@@ -107,6 +107,7 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 
 	// JSON API.
 	'GET /api/cart': every('ok'),
+	'GET /api/me': every('ok'),
 	'POST /api/cart': every('allowed'),
 	'PATCH /api/cart': every('allowed'),
 	'DELETE /api/cart': every('allowed'),
@@ -145,6 +146,7 @@ export const EXPECTATIONS: Record<string, Expectation> = {
 
 	// Workshop.
 	'GET /workshop': staff,
+	'POST /workshop?/retryMail': ownerAction,
 	'GET /workshop/safety': staff,
 	'GET /workshop/orders': staff,
 	'GET /workshop/orders/[ref]': { ...staff, url: '/workshop/orders/CS-1001' },
