@@ -200,7 +200,7 @@ describe('photo uploads', () => {
 				const b = await valid();
 				return [Buffer.concat([b, Buffer.alloc(13 * 1024 * 1024)]), 'big.jpg', 'image/jpeg'];
 			},
-			/larger than 12 MB/,
+			/at most 12 MB/,
 			413
 		],
 		[
