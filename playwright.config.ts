@@ -39,7 +39,7 @@ export default defineConfig({
 		url: `${origin}/`,
 		// Photo uploads need more than adapter-node's 512 kB default body limit, as npm start sets.
 		env: {
-			BODY_SIZE_LIMIT: '16M',
+			BODY_SIZE_LIMIT: '32M',
 			...(process.env as Record<string, string>),
 			PORT: String(port),
 			ORIGIN: origin

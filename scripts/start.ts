@@ -15,7 +15,9 @@ const port = config.port;
 process.env.PORT = String(port);
 process.env.ORIGIN = config.origin;
 // Room for photo uploads (adapter-node's default request body limit is 512 kB).
-process.env.BODY_SIZE_LIMIT ??= '16M';
+// As large as the most the app drains after an early answer (DRAIN_LIMIT in body-limit.ts), so a
+// refused body up to that size is read and thrown away and the client reads the 413.
+process.env.BODY_SIZE_LIMIT ??= '32M';
 
 const BUILD_DIR = path.join(ROOT, 'build');
 const SOURCES = [

@@ -102,7 +102,8 @@ test('a fair day on a phone: one tap one sale, a void offline, a deposit order, 
 	await signInAs(owner, 'owner');
 	const closed = await owner.request.post(`${fairUrl}/tally?/close`, {
 		headers: { origin: new URL(owner.url()).origin, 'x-sveltekit-action': 'true' },
-		form: {}
+		// The owner has said yes to "Close the fair?" (the tally asks before closing).
+		form: { confirm: 'yes' }
 	});
 	expect(closed.status()).toBeLessThan(400);
 	await page.context().setOffline(false);
