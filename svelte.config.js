@@ -13,7 +13,7 @@ const config = {
 		// `node build` runs WEB_CONCURRENCY processes (scripts/adapter/cluster.js).
 		adapter: clustered(adapter({ out }), out),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
-		// The cross-site form check is made in src/lib/server/handles/address.ts, just as strictly
+		// The cross-site form check is made in src/lib/server/http/address.ts, just as strictly
 		// (form content types, Origin must equal ORIGIN), so a refusal can say why and link to the
 		// shop's own address. '*' is how this SvelteKit turns its own (bare text) check off.
 		csrf: { trustedOrigins: ['*'] },
@@ -23,7 +23,7 @@ const config = {
 		// planner drawings set. Non-page responses get a deny-all policy in hooks.server.ts.
 		csp: {
 			// Hashes rather than nonces: a cached public page is answered with the same bytes and the same
-			// policy every time (a nonce must never repeat), see src/lib/server/handles/page-cache.ts.
+			// policy every time (a nonce must never repeat), see src/lib/server/http/page-cache.ts.
 			mode: 'hash',
 			directives: {
 				'default-src': ['self'],

@@ -6,7 +6,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
-import { buildIco } from '../src/lib/ico';
+import { buildIco } from '../src/lib/seo/ico';
 
 const dir = path.resolve(import.meta.dirname, '..', 'static');
 const svg = readFileSync(path.join(dir, 'favicon.svg'));

@@ -6,21 +6,21 @@ import {
 	setSessionCookie,
 	validateToken
 } from '$lib/server/auth/lucia';
-import { toApiErrorResponse } from '$lib/server/api-errors';
-import { startHoldSweeper } from '$lib/server/orders/holds';
+import { toApiErrorResponse } from '$lib/server/http/api-errors';
+import { startHoldSweeper } from '$lib/server/stock/holds';
 import { startCheckoutDetailsSweeper } from '$lib/server/cart/checkout-details';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
-import { addressHandle } from '$lib/server/handles/address';
-import { availabilityHandle, noteDatabaseDown } from '$lib/server/handles/availability';
-import { httpCacheHandle } from '$lib/server/handles/http-cache';
-import { pageCacheHandle } from '$lib/server/handles/page-cache';
-import { photoCacheHandle } from '$lib/server/handles/photo-cache';
-import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/body-limit';
-import { answerClientErrorsWithJson } from '$lib/server/http-client-errors';
-import { refuseDefaultSecrets } from '$lib/server/secrets-check';
-import { withSecurityHeaders } from '$lib/server/security-headers';
-import { freshShopProfile, loadShopProfile } from '$lib/server/shop-settings';
-import { usePlainMessages } from '$lib/schemas/plain-messages';
+import { addressHandle } from '$lib/server/http/address';
+import { availabilityHandle, noteDatabaseDown } from '$lib/server/http/availability';
+import { httpCacheHandle } from '$lib/server/http/http-cache';
+import { pageCacheHandle } from '$lib/server/http/page-cache';
+import { photoCacheHandle } from '$lib/server/http/photo-cache';
+import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/http/body-limit';
+import { answerClientErrorsWithJson } from '$lib/server/http/client-errors';
+import { refuseDefaultSecrets } from '$lib/server/http/secrets-check';
+import { withSecurityHeaders } from '$lib/server/http/security-headers';
+import { freshShopProfile, loadShopProfile } from '$lib/server/settings/shop-settings';
+import { usePlainMessages } from '$lib/forms/plain-messages';
 
 // Before any request is parsed: plain sentences for checks written without their own message.
 usePlainMessages();

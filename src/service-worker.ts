@@ -10,7 +10,7 @@
  * page (which says what still works) instead of an error. The shop is left to the network.
  */
 import { build, files, version } from '$service-worker';
-import { KEPT_PAGES, OFFLINE_PAGE, isKeptPage, offlineAddress } from '$lib/offline-pages';
+import { KEPT_PAGES, OFFLINE_PAGE, isKeptPage, offlineAddress } from '$lib/offline/offline-pages';
 
 const sw = self as unknown as ServiceWorkerGlobalScope;
 const ASSETS_CACHE = `chipstall-assets-${version}`;

@@ -17,7 +17,7 @@ import { pipeline } from 'node:stream/promises';
 import type { Readable } from 'node:stream';
 import { GetObjectCommand, ListObjectsV2Command, PutObjectCommand } from '@aws-sdk/client-s3';
 import { config } from '../../config/settings';
-import { s3 } from '../../src/lib/server/storage';
+import { s3 } from '../../src/lib/server/catalogue/photo-storage';
 
 const bin = (name: string) =>
 	['/usr/bin', '/usr/sbin', '/bin'].map((d) => path.join(d, name)).find(existsSync) ?? name;

@@ -1,7 +1,7 @@
 /**
  * The demo scenario, an invented one: Hollis Marsh carves at the "Chipstall" workshop in the
  * (invented) town of Linden Ford, sells online and at two fairs, helped by Wren. Woods carry
- * their published Wood Handbook values (see src/lib/woods.ts).
+ * their published Wood Handbook values (see src/lib/catalogue/woods.ts).
  *
  * This file only orchestrates: the scenario itself is plain data in ./data/, and the orders are
  * priced, taxed and snapshotted by the shop's own functions (./orders.ts). It lives in scripts/,
@@ -12,13 +12,14 @@ import { drizzle } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { hashPassword } from '../../src/lib/server/auth/password';
 import * as schema from '../../src/lib/server/db/schema';
-import { WOODS, densityAt12 } from '../../src/lib/woods';
+import { WOODS, densityAt12 } from '../../src/lib/catalogue/woods';
 import { DEMO_ACCOUNTS } from './data/accounts';
 import { DEMO_PIECES, DEMO_SHIPPING_RATES } from './data/pieces';
 import { WOOD_ADD_ON } from './data/woods';
-import { demoExtras, type DemoSeedResult, type SeedDb } from './extras';
+import { demoExtras } from './extras';
+import type { DemoSeedResult, SeedDb } from './types';
 import { DEMO_FORMAT, DEMO_WORDS, seedSettings } from './settings';
-import { useShopFormat, useShopWords } from '../../src/lib/shop-format';
+import { useShopFormat, useShopWords } from '../../src/lib/locale/shop-format';
 import { seedDemoFairs } from './fairs';
 import { daysFromNow, seedOrders } from './orders';
 

@@ -1,22 +1,7 @@
-import type { MySql2Database } from 'drizzle-orm/mysql2';
-import type * as schema from '../../src/lib/server/db/schema';
 import { demoPhotos } from './photos';
 import { demoReadyBy } from './ready-by';
 import { demoBoothOrder } from './fairs';
-
-export type SeedDb = MySql2Database<typeof schema>;
-
-/** What the demo seed hands each extra step once its transaction has committed. */
-export type DemoSeedResult = {
-	pieceIds: Record<string, number>;
-	woodIds: Record<string, number>;
-	userIds: Record<string, string>;
-};
-
-export type DemoExtra = {
-	name: string;
-	run: (db: SeedDb, seeded: DemoSeedResult) => Promise<void>;
-};
+import type { DemoExtra } from './types';
 
 /**
  * Steps that run after the demo data is committed and need more than the database (photos

@@ -10,9 +10,9 @@
 import { and, eq } from 'drizzle-orm';
 import * as schema from '../../src/lib/server/db/schema';
 import { adjustStock, fairPlace } from '../../src/lib/server/stock/adjust';
-import { priceSale } from '../../src/lib/reconcile';
-import { isoDay } from '../../src/lib/dates';
-import type { DemoExtra, SeedDb } from './extras';
+import { priceSale } from '../../src/lib/booth/reconcile';
+import { isoDay } from '../../src/lib/locale/dates';
+import type { DemoExtra, SeedDb } from './types';
 
 type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
 type Ids = {

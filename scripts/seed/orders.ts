@@ -5,15 +5,15 @@
  */
 import * as schema from '../../src/lib/server/db/schema';
 import { priceLines } from '../../src/lib/server/cart/pricing';
-import { personalise } from '../../src/lib/server/personalise';
-import { getSalesTaxBp } from '../../src/lib/server/settings';
-import { getCarvingSchedule } from '../../src/lib/server/orders/carving-queue';
-import { addDays } from '../../src/lib/dates';
-import { WOODS, densityAt12 } from '../../src/lib/woods';
+import { personalise } from '../../src/lib/server/catalogue/personalise';
+import { getSalesTaxBp } from '../../src/lib/server/settings/sales-tax';
+import { getCarvingSchedule } from '../../src/lib/server/queue/carving-queue';
+import { addDays } from '../../src/lib/locale/dates';
+import { WOODS, densityAt12 } from '../../src/lib/catalogue/woods';
 import { DEMO_ORDERS } from './data/orders';
 import { DEMO_PIECES, DEMO_SHIPPING_RATES } from './data/pieces';
 import { WOOD_ADD_ON } from './data/woods';
-import type { DemoSeedResult, SeedDb } from './extras';
+import type { DemoSeedResult, SeedDb } from './types';
 
 type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
 

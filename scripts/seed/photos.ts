@@ -6,8 +6,8 @@
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import * as schema from '../../src/lib/server/db/schema';
-import { storePhoto } from '../../src/lib/server/storage';
-import type { DemoExtra } from './extras';
+import { storePhoto } from '../../src/lib/server/catalogue/photo-storage';
+import type { DemoExtra } from './types';
 
 const W = 1200;
 const H = 900;

@@ -1,4 +1,4 @@
-import type { DemoExtra } from './extras';
+import type { DemoExtra } from './types';
 
 /**
  * The demo's queued orders get their ready-by dates from the carving queue, through the same
@@ -10,7 +10,7 @@ export const demoReadyBy: DemoExtra = {
 	name: 'ready-by dates from the carving queue',
 	run: async (db) => {
 		const { keepPlansAsPromises, recomputeReadyBy } =
-			await import('../../src/lib/server/orders/carving-queue');
+			await import('../../src/lib/server/queue/carving-queue');
 		await db.transaction(async (tx) => {
 			await recomputeReadyBy(new Date(), tx);
 			// What the buyers of the demo's paid orders were told: the plan as it stands now.

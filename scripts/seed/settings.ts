@@ -3,8 +3,8 @@
  * contact address, no closed dates, and the returns window. Relative imports only (runs under tsx).
  */
 import * as schema from '../../src/lib/server/db/schema';
-import type { SeedDb } from './extras';
-import type { ShopFormat, ShopWords } from '../../src/lib/shop-format';
+import type { SeedDb } from './types';
+import type { ShopFormat, ShopWords } from '../../src/lib/locale/shop-format';
 
 type SeedTx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
 

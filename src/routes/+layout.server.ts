@@ -1,4 +1,4 @@
-import { shopFormat, shopWords } from '$lib/shop-format';
+import { shopFormat, shopWords } from '$lib/locale/shop-format';
 import type { LayoutServerLoad } from './$types';
 
 /**

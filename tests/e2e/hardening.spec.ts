@@ -178,7 +178,7 @@ test.describe('throttling (ASVS V2.2.1; RFC 6585 §4: 429 with Retry-After)', ()
 				headers: { origin: baseURL!, accept: 'text/html' },
 				maxRedirects: 0
 			});
-		// 10 per account and address per window (src/lib/server/throttles.ts, signInPair).
+		// 10 per account and address per window (src/lib/server/http/throttles.ts, signInPair).
 		for (let i = 0; i < 10; i++) expect((await post()).status()).toBe(400);
 		const res = await post();
 		expect(res.status()).toBe(429);

@@ -44,7 +44,7 @@ test('signed in on one process, the next request on the other is signed in too',
 });
 
 test('the sign-in limit counts attempts on both processes together', async () => {
-	// The limit per account and address is 10 tries in the window (src/lib/server/throttles.ts,
+	// The limit per account and address is 10 tries in the window (src/lib/server/http/throttles.ts,
 	// signInPair; OWASP ASVS 4.0 V2.2.1 asks for a limit per account). Counted per process, 10
 	// tries alternated over two processes would be 5 on each and the 11th would still be checked;
 	// counted in MariaDB it is refused, exactly as on one process (tests/e2e/hardening.spec.ts).

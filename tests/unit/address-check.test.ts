@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-	isFormWrite,
-	otherHost,
-	refusal,
-	rightAddress
-} from '../../src/lib/server/handles/address';
+import { isFormWrite, otherHost, refusal, rightAddress } from '$lib/server/http/address';
 
 const ORIGIN = new URL('http://localhost:3000');
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isHttpError, json } from '@sveltejs/kit';
-import { toApiErrorResponse } from '$lib/server/api-errors';
+import { toApiErrorResponse } from '$lib/server/http/api-errors';
 import { requireRoleApi } from '$lib/server/auth/guard';
 
 const read = async (r: Response) => ({ status: r.status, body: (await r.json()) as unknown });

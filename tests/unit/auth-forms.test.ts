@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { safeNext } from '$lib/safe-redirect';
+import { safeNext } from '$lib/auth/safe-redirect';
 import {
 	addHelperSchema,
 	resetPasswordSchema,
 	signInSchema,
 	signUpSchema
-} from '$lib/schemas/auth';
+} from '$lib/auth/auth-schema';
 
 describe('safeNext', () => {
 	it('keeps a path on this site, with its query and fragment', () => {

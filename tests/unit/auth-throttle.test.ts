@@ -128,7 +128,7 @@ describe('sign-in throttle (ASVS V2.2.1, OWASP Authentication Cheat Sheet, RFC 6
 
 	it('counts per client address too', async () => {
 		const { actions } = await import('../../src/routes/(auth)/signin/+page.server');
-		const { throttles } = await import('$lib/server/throttles');
+		const { throttles } = await import('$lib/server/http/throttles');
 		const address = '203.0.113.99';
 		// 300 attempts from one address (counted straight on its limiter: 300 password checks
 		// would outlast the test's short window), then a sign-in to a fresh account from it.

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { afterAll, describe, expect, it } from 'vitest';
-import { config } from '../../src/lib/server/config';
+import { config } from '$lib/server/config';
 import { backup, restore } from '../../scripts/lib/backup';
 
 const source = config.db.url;

@@ -5,13 +5,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { checkoutSchema } from '$lib/schemas/checkout';
-import { signInSchema, signUpSchema } from '$lib/schemas/auth';
-import { addLineSchema } from '$lib/schemas/cart';
-import { HIDDEN_CHARACTERS_MESSAGE } from '$lib/schemas/plain-text';
-import { getPiece } from '$lib/server/catalogue';
-import { MAX_PATTERN_WORK, patternJson, patternWork } from '$lib/server/pattern-api';
-import { patternQuerySchema } from '$lib/schemas/pattern';
+import { checkoutSchema } from '$lib/cart/checkout-schema';
+import { signInSchema, signUpSchema } from '$lib/auth/auth-schema';
+import { addLineSchema } from '$lib/cart/cart-schema';
+import { HIDDEN_CHARACTERS_MESSAGE } from '$lib/forms/plain-text';
+import { getPiece } from '$lib/server/catalogue/catalogue';
+import { MAX_PATTERN_WORK, patternJson, patternWork } from '$lib/server/pattern/api';
+import { patternQuerySchema } from '$lib/pattern/pattern-schema';
 
 const address = {
 	name: 'Ada Linden',

@@ -2,7 +2,7 @@
  * Each kind of body has its own cap, and an answer given before a body is read leaves the
  * connection usable. Sources: RFC 9110 §15.5.14 (413 Content Too Large), RFC 9112 §9.6 (a server
  * that will not read the rest closes the connection), the 12 MB the upload page promises
- * ($lib/photo-limits) and the booth route's 2 MB. The raw-socket walk is in
+ * ($lib/catalogue/photo-limits) and the booth route's 2 MB. The raw-socket walk is in
  * tests/e2e/journeys/forms.spec.ts.
  */
 import { describe, expect, it } from 'vitest';
@@ -14,9 +14,9 @@ import {
 	bodyLimitFor,
 	readJsonObject,
 	settleUnreadBody
-} from '$lib/server/body-limit';
-import { MAX_PHOTO_BYTES } from '$lib/photo-limits';
-import { plainMessage } from '$lib/schemas/plain-messages';
+} from '$lib/server/http/body-limit';
+import { MAX_PHOTO_BYTES } from '$lib/catalogue/photo-limits';
+import { plainMessage } from '$lib/forms/plain-messages';
 
 const MB = 1024 * 1024;
 

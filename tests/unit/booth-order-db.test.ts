@@ -6,14 +6,14 @@
  */
 import { and, eq, like } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
 import { mailTo, testPiece, testWood } from './helpers/fixtures';
-import { createFair } from '../../src/lib/server/fairs/fairs';
-import { placeBoothOrder } from '../../src/lib/server/fairs/booth-order';
-import { FairError } from '../../src/lib/server/fairs/errors';
-import { moveOrder } from '../../src/lib/server/orders/status';
-import { fairFormSchema } from '../../src/lib/schemas/fairs';
+import { createFair } from '$lib/server/fairs/fairs';
+import { placeBoothOrder } from '$lib/server/booth/order';
+import { FairError } from '$lib/server/booth/errors';
+import { moveOrder } from '$lib/server/orders/status';
+import { fairFormSchema } from '$lib/fairs/schemas';
 import { POST as shipApi } from '../../src/routes/api/workshop/orders/[ref]/shipments/+server';
 import { actions } from '../../src/routes/workshop/orders/[ref]/+page.server';
 

@@ -7,20 +7,20 @@
  */
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
 import { mailTo, testPiece, testWood } from './helpers/fixtures';
-import { createFair } from '../../src/lib/server/fairs/fairs';
-import { loadOut } from '../../src/lib/server/fairs/load-out';
-import { syncSales } from '../../src/lib/server/fairs/booth-sync';
-import { voidSale } from '../../src/lib/server/fairs/booth-void';
-import { placeBoothOrder } from '../../src/lib/server/fairs/booth-order';
-import { closeFair, fairTally } from '../../src/lib/server/fairs/tally';
-import { fairCsv, fairReport } from '../../src/lib/server/fairs/report';
-import { moneyReport } from '../../src/lib/server/fairs/money-report';
-import { FairError } from '../../src/lib/server/fairs/errors';
-import { getShopInfo } from '../../src/lib/server/shop-settings';
-import { fairFormSchema } from '../../src/lib/schemas/fairs';
+import { createFair } from '$lib/server/fairs/fairs';
+import { loadOut } from '$lib/server/fairs/load-out';
+import { syncSales } from '$lib/server/booth/sync';
+import { voidSale } from '$lib/server/booth/void';
+import { placeBoothOrder } from '$lib/server/booth/order';
+import { closeFair, fairTally } from '$lib/server/booth/tally';
+import { fairCsv, fairReport } from '$lib/server/fairs/report';
+import { moneyReport } from '$lib/server/fairs/money-report';
+import { FairError } from '$lib/server/booth/errors';
+import { getShopInfo } from '$lib/server/settings/shop-settings';
+import { fairFormSchema } from '$lib/fairs/schemas';
 
 const tag = `bs${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;

@@ -7,7 +7,7 @@ import {
 	scheduleQueue,
 	surchargeMinor,
 	type CarvingSchedule
-} from '../../src/lib/carving-queue';
+} from '$lib/queue/carving-queue';
 
 /**
  * A week worked out by hand on paper (the figures below are the working, not output copied

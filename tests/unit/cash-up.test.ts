@@ -3,8 +3,8 @@
  * fair's cash tin: each day starts with the float, the day's takings are lifted out at its count).
  */
 import { describe, expect, it } from 'vitest';
-import { countCheck, countingDay, fairDays, wholeFairCounted } from '../../src/lib/cash-up';
-import { formatMoney } from '../../src/lib/money';
+import { countCheck, countingDay, fairDays, wholeFairCounted } from '$lib/booth/cash-up';
+import { formatMoney } from '$lib/locale/money';
 
 const usd = (m: number) => formatMoney(m, 'USD');
 

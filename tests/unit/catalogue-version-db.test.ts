@@ -6,9 +6,9 @@
  */
 import { eq, sql } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { readVersion } from '../../src/lib/server/catalogue-cache';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { readVersion } from '$lib/server/catalogue/cache';
 
 const tag = `cv${process.pid}${Date.now() % 100000}`;
 

@@ -8,9 +8,9 @@
 import mysql from 'mysql2/promise';
 import { sql } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import { config } from '../../src/lib/server/config';
-import { isDatabaseDown } from '../../src/lib/server/handles/availability';
+import { db } from '$lib/server/db';
+import { config } from '$lib/server/config';
+import { isDatabaseDown } from '$lib/server/http/availability';
 
 describe('isDatabaseDown', () => {
 	it('a query on a connection that is gone', async () => {

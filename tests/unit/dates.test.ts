@@ -19,9 +19,9 @@ import {
 	offsetMinutes,
 	today,
 	weekdayOf
-} from '$lib/dates';
-import { readyBy } from '$lib/personalised-price';
-import { DEFAULT_FORMAT, useShopFormat } from '$lib/shop-format';
+} from '$lib/locale/dates';
+import { readyBy } from '$lib/catalogue/personalised-price';
+import { DEFAULT_FORMAT, useShopFormat } from '$lib/locale/shop-format';
 
 const NY = { timeZone: 'America/New_York', locale: 'en-US', currency: 'USD' };
 const savedTz = process.env.TZ;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DECLINED, declineHeading } from '../../src/lib/decline-words';
+import { DECLINED, declineHeading } from '$lib/orders/decline-words';
 
 // The reasons are the payment API's decline messages for its test cards (Stripe's testing
 // documentation, "Declined payments"; also what mocks/stripe/cards.ts answers).

@@ -8,12 +8,12 @@
  */
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { createFair } from '../../src/lib/server/fairs/fairs';
-import { fairTally, saveTally } from '../../src/lib/server/fairs/tally';
-import { setFairHelpers } from '../../src/lib/server/fairs/fair-helpers';
-import { fairFormSchema } from '../../src/lib/schemas/fairs';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { createFair } from '$lib/server/fairs/fairs';
+import { fairTally, saveTally } from '$lib/server/booth/tally';
+import { setFairHelpers } from '$lib/server/fairs/fair-helpers';
+import { fairFormSchema } from '$lib/fairs/schemas';
 import { POST as salesPost } from '../../src/routes/api/booth/[fairId]/sales/+server';
 import { POST as ordersPost } from '../../src/routes/api/booth/[fairId]/orders/+server';
 import { POST as tallyPost } from '../../src/routes/api/booth/[fairId]/tally/+server';

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { fieldErrors, firstError, formValues, parseForm } from '$lib/forms';
-import { shopInfo } from '$lib/schemas/settings';
-import { signInSchema } from '$lib/schemas/auth';
+import { fieldErrors, firstError, formValues, parseForm } from '$lib/forms/parse-form';
+import { shopInfo } from '$lib/settings/settings-schema';
+import { signInSchema } from '$lib/auth/auth-schema';
 
 const post = (fields: [string, string][]) => {
 	const f = new FormData();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buyableWoods, fromPriceMinor } from '../../src/lib/from-price';
+import { buyableWoods, fromPriceMinor } from '$lib/catalogue/from-price';
 
 // The demo's wood add-ons (scripts/seed/data/woods.ts): cherry $8, maple $10, walnut $12.
 const cherry = { priceAddOnMinor: 800, inStock: 3 };

@@ -5,7 +5,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { config } from '../../src/lib/server/config';
+import { config } from '$lib/server/config';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 

@@ -2,10 +2,10 @@
  * Once-per-interval jobs and the connection settings for a cluster, against the test database.
  */
 import { afterAll, describe, expect, it } from 'vitest';
-import { config } from '../../src/lib/server/config';
-import { db } from '../../src/lib/server/db';
-import { openPool } from '../../src/lib/server/db/pool';
-import { runIfDue } from '../../src/lib/server/jobs/once-per-interval';
+import { config } from '$lib/server/config';
+import { db } from '$lib/server/db';
+import { openPool } from '$lib/server/db/pool';
+import { runIfDue } from '$lib/server/jobs/once-per-interval';
 
 describe('once-per-interval jobs claim their turn by a row', () => {
 	it('of 12 concurrent attempts in one turn exactly one runs the job', async () => {

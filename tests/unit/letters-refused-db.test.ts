@@ -6,12 +6,12 @@
  */
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { addLine, CartError, setQuantity } from '../../src/lib/server/cart';
-import { createPendingOrder, OrderError } from '../../src/lib/server/orders/place';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { addLine, CartError, setQuantity } from '$lib/server/cart';
+import { createPendingOrder, OrderError } from '$lib/server/orders/place';
 import { testPiece, testWood } from './helpers/fixtures';
-import type { CheckoutInput } from '../../src/lib/schemas/checkout';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
 
 /** What a call threw, for checking; fails the test when it did not throw. */
 async function thrown<E>(p: Promise<unknown>, kind: new (...a: never[]) => E): Promise<E> {

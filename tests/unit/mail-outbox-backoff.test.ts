@@ -8,9 +8,9 @@ import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startMailServer } from '../../mocks/mail/server';
 import { actions, load } from '../../src/routes/workshop/+page.server';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { deliverMail, resetMailTransport } from '../../src/lib/server/mail';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { deliverMail, resetMailTransport } from '$lib/server/mail/send';
 import {
 	drainOutbox,
 	enqueueMail,
@@ -18,7 +18,7 @@ import {
 	retryDelaySeconds,
 	retryUndelivered,
 	undeliveredMail
-} from '../../src/lib/server/mail/outbox';
+} from '$lib/server/mail/outbox';
 
 const tag = `b${process.pid}${Date.now() % 100000}`;
 let server: Awaited<ReturnType<typeof startMailServer>>;

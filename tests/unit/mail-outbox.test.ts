@@ -7,11 +7,11 @@
 import { eq, like } from 'drizzle-orm';
 import { SMTPServer } from 'smtp-server';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
-import { deliverMail, resetMailTransport, sendMail } from '../../src/lib/server/mail';
-import { drainOutbox, enqueueMail, LEASE_SECONDS } from '../../src/lib/server/mail/outbox';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { config } from '$lib/server/config';
+import { deliverMail, resetMailTransport, sendMail } from '$lib/server/mail/send';
+import { drainOutbox, enqueueMail, LEASE_SECONDS } from '$lib/server/mail/outbox';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 import { freePort } from '../../scripts/lib/services';
 import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';

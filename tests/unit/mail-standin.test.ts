@@ -13,14 +13,14 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-	const { resetMailTransport } = await import('../../src/lib/server/mail');
+	const { resetMailTransport } = await import('$lib/server/mail/send');
 	resetMailTransport();
 	await server.close();
 });
 
 describe('mail stand-in', () => {
 	it('receives a nodemailer message from sendMail and lists it in the JSON API', async () => {
-		const { sendMail } = await import('../../src/lib/server/mail');
+		const { sendMail } = await import('$lib/server/mail/send');
 		await sendMail({
 			to: 'ada.buyer@example.test',
 			subject: 'Your rosette plate is on its way',

@@ -6,7 +6,7 @@ import {
 	minorDigits,
 	parseMajor,
 	totals
-} from '../../src/lib/money';
+} from '$lib/locale/money';
 
 describe('minor units per currency', () => {
 	it('follows ISO 4217 minor-unit digits', () => {

@@ -10,13 +10,13 @@
 import Stripe from 'stripe';
 import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
-import { addLine } from '../../src/lib/server/cart';
-import { createPendingOrder, placeOrder } from '../../src/lib/server/orders/place';
-import { stripe } from '../../src/lib/server/payments';
-import type { CheckoutInput } from '../../src/lib/schemas/checkout';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { config } from '$lib/server/config';
+import { addLine } from '$lib/server/cart';
+import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
+import { stripe } from '$lib/server/orders/stripe';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 
 const tag = `ob${process.pid}${Date.now() % 100000}`;

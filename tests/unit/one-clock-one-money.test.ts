@@ -1,13 +1,13 @@
 /**
- * Keeps the rules of $lib/dates, $lib/money and $lib/shop-format: the conversion of moments to
+ * Keeps the rules of $lib/locale/dates, $lib/locale/money and $lib/locale/shop-format: the conversion of moments to
  * days and hours, and the writing of dates and amounts, live in those modules only; nothing of
  * the demo scenario is written into src/ (the seed in scripts/seed sets the shop's words).
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_WORDS, useShopWords } from '$lib/shop-format';
-import { withSignOff } from '$lib/server/mail';
+import { DEFAULT_WORDS, useShopWords } from '$lib/locale/shop-format';
+import { withSignOff } from '$lib/server/mail/send';
 import { shippingMail } from '$lib/server/orders/shipping-mail';
 
 function files(dir: string): string[] {
@@ -26,12 +26,12 @@ describe('one module for the clock, one for money', () => {
 	it('no screen, e-mail or export picks its own zone or locale', () => {
 		expect(
 			offenders(/timeZone:\s*'UTC'|toISOString\(\)\.slice|getUTC(Hours|Day|Date)\(/, [
-				'src/lib/dates.ts',
-				'src/lib/shop-format.ts'
+				'src/lib/locale/dates.ts',
+				'src/lib/locale/shop-format.ts'
 			])
 		).toEqual([]);
 		expect(
-			offenders(/toLocale(Date|Time)?String\(|Intl\.DateTimeFormat/, ['src/lib/dates.ts'])
+			offenders(/toLocale(Date|Time)?String\(|Intl\.DateTimeFormat/, ['src/lib/locale/dates.ts'])
 		).toEqual([]);
 		expect(offenders(/\(UTC\)|_utc\b/)).toEqual([]);
 	});
@@ -39,18 +39,18 @@ describe('one module for the clock, one for money', () => {
 	it('no currency code, division by 100 or number format outside money.ts', () => {
 		expect(
 			offenders(/'USD'/, [
-				'src/lib/money.ts',
-				'src/lib/shop-format.ts',
+				'src/lib/locale/money.ts',
+				'src/lib/locale/shop-format.ts',
 				'src/lib/server/db/schema.ts'
 			])
 		).toEqual([]);
-		expect(offenders(/\/\s*100\b(?!\s*%)/, ['src/lib/money.ts'])).toEqual([]);
-		expect(offenders(/Intl\.NumberFormat|toFixed\(2\)/, ['src/lib/money.ts'])).toEqual([]);
+		expect(offenders(/\/\s*100\b(?!\s*%)/, ['src/lib/locale/money.ts'])).toEqual([]);
+		expect(offenders(/Intl\.NumberFormat|toFixed\(2\)/, ['src/lib/locale/money.ts'])).toEqual([]);
 		expect(
 			offenders(/\b(en|de)-[A-Z]{2}\b/, [
-				'src/lib/dates.ts',
-				'src/lib/shop-format.ts',
-				'src/lib/schemas/settings.ts'
+				'src/lib/locale/dates.ts',
+				'src/lib/locale/shop-format.ts',
+				'src/lib/settings/settings-schema.ts'
 			])
 		).toEqual([]);
 	});

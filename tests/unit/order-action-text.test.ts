@@ -5,9 +5,9 @@
  * Line breaks stay allowed in a note (common practice for a multi-line note).
  */
 import { describe, expect, it } from 'vitest';
-import { moveSchema, noteSchema, steerSchema } from '$lib/schemas/order-actions';
-import { refundFormSchema } from '$lib/schemas/refund';
-import { HIDDEN_CHARACTERS_MESSAGE } from '$lib/schemas/plain-text';
+import { moveSchema, noteSchema, steerSchema } from '$lib/orders/actions-schema';
+import { refundFormSchema } from '$lib/orders/refund-schema';
+import { HIDDEN_CHARACTERS_MESSAGE } from '$lib/forms/plain-text';
 
 const NUL = 'Box\u0000dented';
 const RLO = 'Box \u202edetned';

@@ -4,7 +4,7 @@
  * Vermont, whose code is also the US Postal Service's abbreviation (USPS Publication 28, app. B).
  */
 import { describe, expect, it } from 'vitest';
-import { checkoutSchema } from '$lib/schemas/checkout';
+import { checkoutSchema } from '$lib/cart/checkout-schema';
 import { addressOf } from '$lib/server/orders/address';
 
 const buyer = (country: string, region: string, postcode: string) =>

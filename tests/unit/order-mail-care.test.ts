@@ -7,10 +7,10 @@
 import { describe, expect, it } from 'vitest';
 import MailComposer from 'nodemailer/lib/mail-composer';
 import { simpleParser } from 'mailparser';
-import { confirmationMail } from '../../src/lib/server/orders/mail';
-import { orderByRef } from '../../src/lib/server/orders/views';
-import { mailOrder } from '../../src/lib/server/orders/mail-order';
-import { shippingMail } from '../../src/lib/server/orders/shipping-mail';
+import { confirmationMail } from '$lib/server/orders/mail';
+import { orderByRef } from '$lib/server/orders/views';
+import { mailOrder } from '$lib/server/orders/mail-order';
+import { shippingMail } from '$lib/server/orders/shipping-mail';
 
 /** The "on its way" e-mail as the buyer's mail program reads it. */
 async function parsedShipping(ref: string) {

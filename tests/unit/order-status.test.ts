@@ -12,8 +12,8 @@ import {
 	statusLabel,
 	transitions,
 	type OrderStatus
-} from '../../src/lib/order-status';
-import { orderStatuses as schemaStatuses } from '../../src/lib/server/db/schema';
+} from '$lib/orders/status';
+import { orderStatuses as schemaStatuses } from '$lib/server/db/schema';
 
 const carved = { needsCarving: true };
 const readyMade = { needsCarving: false };

@@ -5,13 +5,13 @@
  */
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { addLine } from '../../src/lib/server/cart';
-import { createPendingOrder, OrderError } from '../../src/lib/server/orders/place';
-import { releaseExpiredHolds, releaseOrder } from '../../src/lib/server/orders/holds';
-import { handlePaymentEvent } from '../../src/lib/server/orders/payment';
-import type { Stripe } from '../../src/lib/server/payments';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { addLine } from '$lib/server/cart';
+import { createPendingOrder, OrderError } from '$lib/server/orders/place';
+import { releaseExpiredHolds, releaseOrder } from '$lib/server/stock/holds';
+import { handlePaymentEvent } from '$lib/server/orders/payment';
+import type { Stripe } from '$lib/server/orders/stripe';
 
 type Ev = {
 	eventId: string;
@@ -38,9 +38,9 @@ async function deliver(e: Ev) {
 }
 const markPaid = deliver;
 const markExpired = deliver;
-import type { CheckoutInput } from '../../src/lib/schemas/checkout';
-import { queueOutlook } from '../../src/lib/server/orders/carving-queue';
-import { readyByFor } from '../../src/lib/carving-queue';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
+import { queueOutlook } from '$lib/server/queue/carving-queue';
+import { readyByFor } from '$lib/queue/carving-queue';
 
 const tag = `t${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;

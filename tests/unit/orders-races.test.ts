@@ -8,16 +8,16 @@
 import Stripe from 'stripe';
 import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
-import { addLine } from '../../src/lib/server/cart';
-import { createPendingOrder, placeOrder } from '../../src/lib/server/orders/place';
-import { releaseExpiredHolds } from '../../src/lib/server/orders/holds';
-import { moveOrder, orderHistoryOf, StatusMoveError } from '../../src/lib/server/orders/status';
-import { stripe } from '../../src/lib/server/payments';
-import { orderStatuses, nextStatuses } from '../../src/lib/order-status';
-import type { CheckoutInput } from '../../src/lib/schemas/checkout';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { config } from '$lib/server/config';
+import { addLine } from '$lib/server/cart';
+import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
+import { releaseExpiredHolds } from '$lib/server/stock/holds';
+import { moveOrder, orderHistoryOf, StatusMoveError } from '$lib/server/orders/status';
+import { stripe } from '$lib/server/orders/stripe';
+import { orderStatuses, nextStatuses } from '$lib/orders/status';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 
 const tag = `r${process.pid}${Date.now() % 100000}`;

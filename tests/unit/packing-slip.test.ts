@@ -10,8 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { GET as packingSlip } from '../../src/routes/workshop/orders/[ref]/packing-slip.pdf/+server';
 import { GET as giftSlip } from '../../src/routes/workshop/orders/[ref]/gift-slip.pdf/+server';
 import { GET as batch } from '../../src/routes/workshop/orders/packing-slips.pdf/+server';
-import { slipOrders, slipShop } from '../../src/lib/server/pdf/slip-data';
-import { config } from '../../src/lib/server/config';
+import { slipOrders, slipShop } from '$lib/server/pdf/slip-data';
+import { config } from '$lib/server/config';
 
 const fontDir = new URL('../../node_modules/pdfjs-dist/standard_fonts/', import.meta.url).pathname;
 

@@ -7,7 +7,7 @@
  * WHATWG URL standard says (URLSearchParams), percent-decoding as RFC 3986 §2.1.
  */
 import { describe, expect, it } from 'vitest';
-import { canonicalShopQuery, fitsRequest, pageCacheKey } from '$lib/server/handles/page-cache-key';
+import { canonicalShopQuery, fitsRequest, pageCacheKey } from '$lib/server/http/page-cache-key';
 
 const WOODS = new Set(['basswood', 'black-walnut']);
 const key = (address: string) => pageCacheKey(new URL(address, 'http://shop.test'), WOODS);

@@ -8,7 +8,7 @@
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
-import { pageCacheHandle } from '$lib/server/handles/page-cache';
+import { pageCacheHandle } from '$lib/server/http/page-cache';
 
 const HEAD = `<!doctype html><html><head><title>t</title><link rel="preload" as="image" type="image/webp" imagesrcset="/photos/p/400.webp 400w, /photos/p/800.webp 800w" imagesizes="92vw" fetchpriority="high"/>
 <link href="./_app/immutable/assets/0.css" rel="stylesheet"></head><body>`;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { patternResponse } from '../../src/lib/server/pattern-api';
-import { personalisationSchema } from '../../src/lib/schemas/pattern';
-import { letterFont } from '../../src/lib/pattern/letter-font';
+import { patternResponse } from '$lib/server/pattern/api';
+import { personalisationSchema } from '$lib/pattern/pattern-schema';
+import { letterFont } from '$lib/pattern/letter-font';
 
 const font = letterFont();
 const call = (q: string) => patternResponse(new URLSearchParams(q), font);
@@ -81,7 +81,7 @@ describe('GET /api/pattern handler (route module)', () => {
 
 describe('planner settings', () => {
 	it('reads border offsets and refuses bad ones with a message', async () => {
-		const { plannerSchema } = await import('../../src/lib/schemas/pattern');
+		const { plannerSchema } = await import('$lib/pattern/pattern-schema');
 		const base = { diameter: '70', width: '100', length: '300' };
 		expect(plannerSchema.parse({ ...base, border: '1', offsets: '5, 2, 1.5' }).offsets).toEqual([
 			5, 2, 1.5

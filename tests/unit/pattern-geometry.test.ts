@@ -1,8 +1,8 @@
 import Flatten from '@flatten-js/core';
 import { describe, expect, it } from 'vitest';
-import { computePattern } from '../../src/lib/pattern';
-import { lensArea } from '../../src/lib/pattern/geometry';
-import { rosetteAt, stepRound } from '../../src/lib/pattern/rosette';
+import { computePattern } from '$lib/pattern';
+import { lensArea } from '$lib/pattern/geometry';
+import { rosetteAt, stepRound } from '$lib/pattern/rosette';
 
 const { point, circle, arc } = Flatten;
 const one = (diameterMm: number, split = false) =>

@@ -6,9 +6,9 @@
 import { readFileSync } from 'node:fs';
 import opentype, { type Font } from 'opentype.js';
 import { describe, expect, it } from 'vitest';
-import { LETTERS } from '../../src/lib/pattern/fonts/letters.generated';
-import { letterFont, parsePath } from '../../src/lib/pattern/letter-font';
-import type { PathCommand } from '../../src/lib/pattern/lettering';
+import { LETTERS } from '$lib/pattern/fonts/letters.generated';
+import { letterFont, parsePath } from '$lib/pattern/letter-font';
+import type { PathCommand } from '$lib/pattern/lettering';
 
 const bytes = readFileSync(
 	new URL('../../src/lib/pattern/fonts/nunito-latin-800-normal.woff', import.meta.url)

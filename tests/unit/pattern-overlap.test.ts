@@ -1,7 +1,7 @@
 import Flatten from '@flatten-js/core';
 import { describe, expect, it } from 'vitest';
-import { computePattern } from '../../src/lib/pattern';
-import { letterFont } from '../../src/lib/pattern/letter-font';
+import { computePattern } from '$lib/pattern';
+import { letterFont } from '$lib/pattern/letter-font';
 
 const { point, circle, Polygon, BooleanOperations } = Flatten;
 

@@ -2,9 +2,9 @@ import { PDFDocument } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
 import { pageContent } from './helpers/pdf-content';
 import { pdfText } from '../helpers/pdf-text';
-import { computePattern } from '../../src/lib/pattern';
-import { letterFont } from '../../src/lib/pattern/letter-font';
-import { templatePdf, tileGrid } from '../../src/lib/server/pdf/template';
+import { computePattern } from '$lib/pattern';
+import { letterFont } from '$lib/pattern/letter-font';
+import { templatePdf, tileGrid } from '$lib/server/pdf/template';
 
 const font = letterFont();
 const small = computePattern(

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { computePattern } from '../../src/lib/pattern';
-import { layoutBorder, BORDER_DEFAULTS } from '../../src/lib/pattern/borders';
-import { hardnessFactor } from '../../src/lib/pattern/effort';
-import { WOODS } from '../../src/lib/woods';
-import { letterFont } from '../../src/lib/pattern/letter-font';
+import { computePattern } from '$lib/pattern';
+import { layoutBorder, BORDER_DEFAULTS } from '$lib/pattern/borders';
+import { hardnessFactor } from '$lib/pattern/effort';
+import { WOODS } from '$lib/catalogue/woods';
+import { letterFont } from '$lib/pattern/letter-font';
 
 describe('trade practice', () => {
 	it('a 70 mm rosette is drawn with the compass at 35 mm (common practice)', () => {

@@ -6,9 +6,9 @@
  */
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { config } from '$lib/server/config';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';
 

@@ -7,13 +7,13 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { slipsPdf, type SlipPaper } from '../../src/lib/server/pdf/packing-slip';
-import type { SlipOrder } from '../../src/lib/server/pdf/slip-data';
-import { checklistPdf } from '../../src/lib/server/fairs/checklist-pdf';
-import { templatePdf } from '../../src/lib/server/pdf/template';
-import { PLACEHOLDER, unprintable } from '../../src/lib/server/pdf/fonts';
-import { computePattern } from '../../src/lib/pattern';
-import { letterFont } from '../../src/lib/pattern/letter-font';
+import { slipsPdf, type SlipPaper } from '$lib/server/pdf/packing-slip';
+import type { SlipOrder } from '$lib/server/pdf/slip-data';
+import { checklistPdf } from '$lib/server/fairs/checklist-pdf';
+import { templatePdf } from '$lib/server/pdf/template';
+import { PLACEHOLDER, unprintable } from '$lib/server/pdf/fonts';
+import { computePattern } from '$lib/pattern';
+import { letterFont } from '$lib/pattern/letter-font';
 import { pdfText } from '../helpers/pdf-text';
 
 const shop = { name: 'Test Workshop', email: 'shop@example.test', address: ['1 Bench Row'] };

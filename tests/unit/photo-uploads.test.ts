@@ -29,11 +29,11 @@ afterAll(async () => {
 
 const load = async () => ({
 	POST: (await import('../../src/routes/api/uploads/+server')).POST,
-	storage: await import('../../src/lib/server/storage'),
-	config: (await import('../../src/lib/server/config')).config,
-	photosDomain: await import('../../src/lib/server/catalogue/photos'),
-	db: (await import('../../src/lib/server/db')).db,
-	schema: await import('../../src/lib/server/db/schema')
+	storage: await import('$lib/server/catalogue/photo-storage'),
+	config: (await import('$lib/server/config')).config,
+	photosDomain: await import('$lib/server/catalogue/photos'),
+	db: (await import('$lib/server/db')).db,
+	schema: await import('$lib/server/db/schema')
 });
 
 async function pieceId() {

@@ -4,9 +4,9 @@
  */
 import { and, eq, sql } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { pieceStock } from '../../src/lib/server/stock/piece-stock';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { pieceStock } from '$lib/server/stock/piece-stock';
 import { testPiece, testWood } from './helpers/fixtures';
 import { actions } from '../../src/routes/workshop/pieces/[id]/+page.server';
 

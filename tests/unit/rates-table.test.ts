@@ -4,7 +4,7 @@
  * read in the currency's major units (8.95 → 895 minor units, as ISO 4217 gives USD two digits).
  */
 import { describe, expect, it } from 'vitest';
-import { rateLine } from '../../src/lib/schemas/settings';
+import { rateLine } from '$lib/settings/settings-schema';
 import {
 	parseRateInputs,
 	rateInputs,

@@ -5,20 +5,16 @@
  */
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import {
-	carvingQueue,
-	promiseReadyBy,
-	recomputeReadyBy
-} from '../../src/lib/server/orders/carving-queue';
-import { readyAfterCarving } from '../../src/lib/carving-queue';
-import { confirmationMail } from '../../src/lib/server/orders/mail';
-import { orderById } from '../../src/lib/server/orders/views';
-import { mailOrder } from '../../src/lib/server/orders/mail-order';
-import { newOrderAlertMail } from '../../src/lib/server/orders/shipping-mail';
-import { slipOrders } from '../../src/lib/server/pdf/slip-data';
-import { addIsoDays } from '../../src/lib/dates';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { carvingQueue, promiseReadyBy, recomputeReadyBy } from '$lib/server/queue/carving-queue';
+import { readyAfterCarving } from '$lib/queue/carving-queue';
+import { confirmationMail } from '$lib/server/orders/mail';
+import { orderById } from '$lib/server/orders/views';
+import { mailOrder } from '$lib/server/orders/mail-order';
+import { newOrderAlertMail } from '$lib/server/orders/shipping-mail';
+import { slipOrders } from '$lib/server/pdf/slip-data';
+import { addIsoDays } from '$lib/locale/dates';
 
 const row = async (id: number) => (await db.select().from(s.orders).where(eq(s.orders.id, id)))[0];
 

@@ -12,7 +12,7 @@ import {
 	taxAdded,
 	taxIncluded,
 	type TallyInput
-} from '../../src/lib/reconcile';
+} from '$lib/booth/reconcile';
 
 describe('sales tax on one sale', () => {
 	it('adds tax to tax-exclusive prices: 20.00 at 7.25 % is 1.45, so 21.45', () => {

@@ -7,9 +7,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { checkRegion, findRegion, regionsFor } from '$lib/regions';
-import { checkoutSchema } from '$lib/schemas/checkout';
-import { COUNTRIES } from '$lib/shipping';
+import { checkRegion, findRegion, regionsFor } from '$lib/locale/regions';
+import { checkoutSchema } from '$lib/cart/checkout-schema';
+import { COUNTRIES } from '$lib/orders/shipping';
 
 const address = {
 	name: 'Ada Linden',

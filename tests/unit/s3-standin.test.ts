@@ -25,7 +25,7 @@ describe('S3 stand-in with the app storage module', () => {
 	// STACK.md: with the SDK's default checksums a streamed upload to s3rver is stored with chunk
 	// framing inside the object; compare the bytes read back, for a buffer and for a stream.
 	it('returns the identical bytes that were put, from a buffer and from a stream', async () => {
-		const { putObject, getObjectBytes } = await import('../../src/lib/server/storage');
+		const { putObject, getObjectBytes } = await import('$lib/server/catalogue/photo-storage');
 		const bytes = crypto.randomBytes(300_000);
 		await putObject('tests/random.bin', bytes, 'application/octet-stream');
 		await putObject(
@@ -45,7 +45,7 @@ describe('S3 stand-in with the app storage module', () => {
 
 	it('storePhoto writes WebP variants at each width, never upscaled (JPEG beside each)', async () => {
 		const { storePhoto, getObjectBytes, PHOTO_WIDTHS } =
-			await import('../../src/lib/server/storage');
+			await import('$lib/server/catalogue/photo-storage');
 		const input = await sharp({
 			create: {
 				width: 800,

@@ -7,7 +7,7 @@
  * parser itself (Node's `URL`): every answer must resolve back to our own origin.
  */
 import { describe, expect, it } from 'vitest';
-import { safeNext } from '$lib/safe-redirect';
+import { safeNext } from '$lib/auth/safe-redirect';
 
 const ORIGIN = 'http://localhost:3100';
 

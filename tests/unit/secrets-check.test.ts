@@ -4,7 +4,7 @@
  * the ones README.md and .env.example publish.
  */
 import { describe, expect, it } from 'vitest';
-import { isProduction, secretProblems } from '$lib/server/secrets-check';
+import { isProduction, secretProblems } from '$lib/server/http/secrets-check';
 
 const REAL = {
 	STRIPE_SECRET_KEY: 'sk_live_x9Q2rT',

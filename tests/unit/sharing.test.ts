@@ -10,11 +10,11 @@
 import { readFileSync } from 'node:fs';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { ldPrice, productJsonLd, scriptJson } from '../../src/lib/seo/product-ld';
-import { metaDescription } from '../../src/lib/seo/describe';
-import { robotsTxt } from '../../src/lib/seo/robots';
-import { sitemapXml } from '../../src/lib/seo/sitemap';
-import { readIcoEntries } from '../../src/lib/ico';
+import { ldPrice, productJsonLd, scriptJson } from '$lib/seo/product-ld';
+import { metaDescription } from '$lib/seo/describe';
+import { robotsTxt } from '$lib/seo/robots';
+import { sitemapXml } from '$lib/seo/sitemap';
+import { readIcoEntries } from '$lib/seo/ico';
 
 /** Properties schema.org lists for Product and Offer (a subset of each type's own table). */
 const PRODUCT_PROPS = new Set(['name', 'description', 'image', 'sku', 'url', 'brand', 'offers']);

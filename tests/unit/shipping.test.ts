@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { densityAt12 } from '../../src/lib/woods';
+import { densityAt12 } from '$lib/catalogue/woods';
 import {
 	billableGrams,
 	dimWeightKg,
@@ -9,7 +9,7 @@ import {
 	rateFor,
 	woodGrams,
 	zoneFor
-} from '../../src/lib/shipping';
+} from '$lib/orders/shipping';
 
 describe('weight from the Wood Handbook density', () => {
 	// Wood Handbook (FPL-GTR-190, Table 5-3a; FPL-GTR-282, Table 5-3b): specific gravity at 12 % MC;

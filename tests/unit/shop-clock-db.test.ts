@@ -5,15 +5,15 @@
  */
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { createFair } from '../../src/lib/server/fairs/fairs';
-import { loadOut } from '../../src/lib/server/fairs/load-out';
-import { syncSales } from '../../src/lib/server/fairs/booth-sync';
-import { boothView } from '../../src/lib/server/fairs/booth-view';
-import { fairCsv, fairReport } from '../../src/lib/server/fairs/report';
-import { fairFormSchema } from '../../src/lib/schemas/fairs';
-import { DEFAULT_FORMAT, useShopFormat } from '../../src/lib/shop-format';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { createFair } from '$lib/server/fairs/fairs';
+import { loadOut } from '$lib/server/fairs/load-out';
+import { syncSales } from '$lib/server/booth/sync';
+import { boothView } from '$lib/server/booth/view';
+import { fairCsv, fairReport } from '$lib/server/fairs/report';
+import { fairFormSchema } from '$lib/fairs/schemas';
+import { DEFAULT_FORMAT, useShopFormat } from '$lib/locale/shop-format';
 
 const tag = `clk${process.pid}${Date.now() % 100000}`;
 const pieceSlug = `${tag}-orn`;

@@ -3,9 +3,9 @@
  * Daylight saving per the IANA tz database (US rule: second Sunday of March, 2026-03-08).
  */
 import { afterEach, describe, expect, it } from 'vitest';
-import { DEFAULT_SCHEDULE, readyByFor, scheduleQueue } from '$lib/carving-queue';
-import { isoDay, today } from '$lib/dates';
-import { DEFAULT_FORMAT, useShopFormat } from '$lib/shop-format';
+import { DEFAULT_SCHEDULE, readyByFor, scheduleQueue } from '$lib/queue/carving-queue';
+import { isoDay, today } from '$lib/locale/dates';
+import { DEFAULT_FORMAT, useShopFormat } from '$lib/locale/shop-format';
 
 afterEach(() => useShopFormat(DEFAULT_FORMAT));
 

@@ -1,6 +1,6 @@
 /**
- * Amounts written the shop's way: the one formatter in $lib/money takes the shop's currency and
- * locale from settings ($lib/shop-format), so a switch of settings changes every price with no
+ * Amounts written the shop's way: the one formatter in $lib/locale/money takes the shop's currency and
+ * locale from settings ($lib/locale/shop-format), so a switch of settings changes every price with no
  * code change. Expected strings are the ICU/CLDR conventions behind Intl.NumberFormat (German
  * writes "1.234,56 €" with a no-break space before the sign; US English "$1,234.56").
  */
@@ -14,11 +14,11 @@ import {
 	percentText,
 	shopCurrency,
 	toMajor
-} from '$lib/money';
-import { DEFAULT_FORMAT, useShopFormat } from '$lib/shop-format';
-import { fairFormValues } from '$lib/fair-form-values';
-import { priceMinor } from '$lib/schemas/piece';
-import { moneyField } from '$lib/schemas/fairs';
+} from '$lib/locale/money';
+import { DEFAULT_FORMAT, useShopFormat } from '$lib/locale/shop-format';
+import { fairFormValues } from '$lib/fairs/form-values';
+import { priceMinor } from '$lib/catalogue/piece-schema';
+import { moneyField } from '$lib/fairs/schemas';
 
 afterEach(() => useShopFormat(DEFAULT_FORMAT));
 

@@ -27,7 +27,7 @@ const receiver = http.createServer((req, res) => {
 
 let standIn: Awaited<ReturnType<typeof startStripeServer>>;
 let sdk: Stripe;
-let payments: typeof import('../../src/lib/server/payments');
+let payments: typeof import('$lib/server/orders/stripe');
 
 beforeAll(async () => {
 	await new Promise<void>((r) => receiver.listen(0, '127.0.0.1', r));
@@ -48,7 +48,7 @@ beforeAll(async () => {
 		STRIPE_API_PORT: String(standIn.port),
 		STRIPE_API_PROTOCOL: 'http'
 	});
-	payments = await import('../../src/lib/server/payments');
+	payments = await import('$lib/server/orders/stripe');
 	sdk = payments.stripe();
 });
 

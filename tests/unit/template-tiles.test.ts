@@ -8,8 +8,8 @@ import Flatten from '@flatten-js/core';
 import { PDFDocument } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
 import { pageContent } from './helpers/pdf-content';
-import { computePattern } from '../../src/lib/pattern';
-import type { PatternResult } from '../../src/lib/pattern/types';
+import { computePattern } from '$lib/pattern';
+import type { PatternResult } from '$lib/pattern/types';
 import {
 	PAPER_MM,
 	MARGIN_MM,
@@ -17,7 +17,7 @@ import {
 	registrationMarks,
 	templatePdf,
 	tileGrid
-} from '../../src/lib/server/pdf/template';
+} from '$lib/server/pdf/template';
 
 type Block = { tx: number; ty: number; s: number; width: number; points: [number, number][] };
 type Tile = { clip: { x: number; y: number; w: number; h: number }; strokes: Block[] };

@@ -8,21 +8,21 @@
 import { eq } from 'drizzle-orm';
 import { simpleParser } from 'mailparser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { config } from '../../src/lib/server/config';
-import { stripe } from '../../src/lib/server/payments';
-import { shipOrder } from '../../src/lib/server/orders/ship';
-import { StatusMoveError } from '../../src/lib/server/orders/status';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { config } from '$lib/server/config';
+import { stripe } from '$lib/server/orders/stripe';
+import { shipOrder } from '$lib/server/orders/ship';
+import { StatusMoveError } from '$lib/server/orders/status';
 import {
 	handleRefundEvent,
 	refundedChargeObject,
 	refundObject,
 	refundOrder,
 	RefundError
-} from '../../src/lib/server/orders/refunds';
-import { shipmentSchema } from '../../src/lib/schemas/shipment';
-import { orderLink } from '../../src/lib/server/orders/links';
+} from '$lib/server/orders/refunds';
+import { shipmentSchema } from '$lib/orders/shipment-schema';
+import { orderLink } from '$lib/server/orders/links';
 
 const tag = `wo${process.pid}${Date.now() % 100000}`;
 const inbox = `http://127.0.0.1:${config.mail.inboxPort}/api/messages`;

@@ -5,22 +5,18 @@
  */
 import { eq, like } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '../../src/lib/server/db';
-import * as s from '../../src/lib/server/db/schema';
-import { listWorkshopOrders } from '../../src/lib/server/orders/table';
-import {
-	carvingQueue,
-	queueLines,
-	recomputeReadyBy
-} from '../../src/lib/server/orders/carving-queue';
-import { todaySummary } from '../../src/lib/server/workshop-today';
-import { readyAfterCarving } from '../../src/lib/carving-queue';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import { listWorkshopOrders } from '$lib/server/orders/table';
+import { carvingQueue, queueLines, recomputeReadyBy } from '$lib/server/queue/carving-queue';
+import { todaySummary } from '$lib/server/workshop/today';
+import { readyAfterCarving } from '$lib/queue/carving-queue';
 import {
 	orderTableQuery,
 	parseOrderTableQuery,
 	tableStateFromUrl,
 	tableStateToParams
-} from '../../src/lib/schemas/workshop-orders';
+} from '$lib/orders/workshop-orders-schema';
 import { GET } from '../../src/routes/api/workshop/orders/+server';
 import { actions } from '../../src/routes/workshop/orders/[ref]/+page.server';
 

@@ -1,5 +1,5 @@
 /** Hollis Marsh's eight pieces and the shop's shipping rates, as plain data. */
-import type { PieceKind } from '../../../src/lib/kinds';
+import type { PieceKind } from '../../../src/lib/catalogue/kinds';
 import type { PiecePattern } from '../../../src/lib/pattern/snapshot';
 
 export type DemoPiece = {

@@ -1,6 +1,6 @@
 /**
  * The demo's wood prices; the woods themselves (Wood Handbook values) are the engine's list in
- * src/lib/woods.ts, the one source for wood facts.
+ * src/lib/catalogue/woods.ts, the one source for wood facts.
  */
 
 /** Price add-on per wood over the base price (USD cents): harder woods take longer to carve. */

@@ -3,11 +3,11 @@
  * may be dated, whether it arrived after the close, who may void it, and what makes two copies
  * of one sale "the same".
  */
-import { isoDay } from '$lib/dates';
+import { isoDay } from '$lib/locale/dates';
 
 /**
  * How far outside the fair's days a sale may be dated and still be taken. Fair days are stored
- * as calendar days in UTC (see $lib/dates); time zones run from UTC−12 to UTC+14, so 24 hours
+ * as calendar days in UTC (see $lib/locale/dates); time zones run from UTC−12 to UTC+14, so 24 hours
  * covers every zone plus a phone clock some hours out. A clock a year out (1999) is refused.
  */
 export const CLOCK_MARGIN_HOURS = 24;

@@ -1,4 +1,4 @@
-import { BOOTH_CHUNK, BOOTH_CHUNK_BYTES } from '$lib/schemas/fairs';
+import { BOOTH_CHUNK, BOOTH_CHUNK_BYTES } from '$lib/fairs/schemas';
 import { chunkByLimits } from './chunks';
 import {
 	refuse,

@@ -13,7 +13,7 @@
  */
 import { setInitials, LETTERING_DEFAULTS, type GlyphSource } from './lettering';
 import { fmt } from './geometry';
-import { WOODS, woodBySlug } from '../woods';
+import { WOODS, woodBySlug } from '../catalogue/woods';
 
 /** Basswood, common practice (see above). */
 export const BASE_LIMITS = { capHeightMm: 6, strokeMm: 1.2, sideHardnessN: 1800 };

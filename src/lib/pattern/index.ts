@@ -2,7 +2,7 @@
  * The rosette layout engine: one call from inputs to geometry, counts, estimate, steps and SVG.
  * Pure and synchronous; the same code runs for the live preview and the server's PDF.
  */
-import { woodBySlug, WOODS } from '../woods';
+import { woodBySlug, WOODS } from '../catalogue/woods';
 import { type CurveSpec, type Face, type SegSpec, buildArrangement } from './arrangement';
 import { axisOf } from './split';
 import { blankOutline, fitWarnings, placeRosettes, type Blank } from './blank';

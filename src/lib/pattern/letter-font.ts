@@ -6,23 +6,9 @@
  */
 import type { GlyphSource, PathCommand } from './lettering';
 import { LETTERS } from './fonts/letters.generated';
+import type { LetterFontData } from './letter-font-data';
 
-export type LetterGlyph = {
-	/** Pen advance in font units. */
-	advance: number;
-	/** Outline bounds [xMin, yMin, xMax, yMax] in font units, y down (yMin is the top). */
-	bounds: [number, number, number, number];
-	/** SVG-style path, absolute commands M L Q C Z, font units, y down, baseline y = 0, pen at x = 0. */
-	path: string;
-};
-
-export type LetterFontData = {
-	unitsPerEm: number;
-	capHeight: number;
-	glyphs: Record<string, LetterGlyph>;
-	/** Kerning by letter pair ("AV"); pairs not listed kern by 0. */
-	kerning: Record<string, number>;
-};
+export type { LetterFontData, LetterGlyph } from './letter-font-data';
 
 const ARGS = { M: 2, L: 2, Q: 4, C: 6, Z: 0 } as const;
 

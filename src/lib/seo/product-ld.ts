@@ -6,7 +6,7 @@
  * Vocabulary: https://schema.org/Product, https://schema.org/Offer,
  * https://schema.org/ItemAvailability.
  */
-import { minorDigits } from '$lib/money';
+import { minorDigits } from '$lib/locale/money';
 
 export type ProductFacts = {
 	slug: string;

@@ -1,4 +1,4 @@
-import { addressLines, awayNotice, getAway, getShopInfo } from '$lib/server/shop-settings';
+import { addressLines, awayNotice, getAway, getShopInfo } from '$lib/server/settings/shop-settings';
 import type { LayoutServerLoad } from './$types';
 
 /**

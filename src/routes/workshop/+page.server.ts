@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { todaySummary } from '$lib/server/workshop-today';
+import { todaySummary } from '$lib/server/workshop/today';
 import { retryUndelivered, sendQueued, undeliveredMail } from '$lib/server/mail/outbox';
 import type { Actions, PageServerLoad } from './$types';
 

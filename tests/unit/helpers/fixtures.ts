@@ -3,10 +3,10 @@
  * their own, and reading a message back from the mail stand-in with a general-purpose parser.
  */
 import { simpleParser } from 'mailparser';
-import { db } from '../../../src/lib/server/db';
-import * as s from '../../../src/lib/server/db/schema';
-import type { PieceKind } from '../../../src/lib/kinds';
-import { config } from '../../../src/lib/server/config';
+import { db } from '$lib/server/db';
+import * as s from '$lib/server/db/schema';
+import type { PieceKind } from '$lib/catalogue/kinds';
+import { config } from '$lib/server/config';
 
 export async function testWood(slug: string) {
 	const [{ id }] = await db

@@ -4,7 +4,7 @@
  * Nunito, copyright 2014 The Nunito Project Authors, SIL Open Font License 1.1 (OFL-LICENSE.txt).
  * Font units, y down, baseline at y = 0; kerning pairs not listed are 0.
  */
-import type { LetterFontData } from '../letter-font';
+import type { LetterFontData } from '../letter-font-data';
 
 export const LETTERS: LetterFontData = {
 	unitsPerEm: 1000,

@@ -1,5 +1,5 @@
 import { config } from '../config';
-import { sendMail } from '../mail';
+import { sendMail } from '../mail/send';
 import { createResetToken } from './reset';
 
 /**

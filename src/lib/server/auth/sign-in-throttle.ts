@@ -15,9 +15,9 @@
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Cookies } from '@sveltejs/kit';
 import { config } from '../config';
-import { sendMail } from '../mail';
-import { Limiter, takeAll, type Verdict } from '../rate-limit';
-import { throttles } from '../throttles';
+import { sendMail } from '../mail/send';
+import { Limiter, takeAll, type Verdict } from '../http/rate-limit';
+import { throttles } from '../http/throttles';
 import { findUserByEmail } from './users';
 
 export const DEVICE_COOKIE = 'chipstall_device';

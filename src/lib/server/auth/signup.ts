@@ -3,7 +3,7 @@ import { config } from '../config';
 import { db } from '../db';
 import { transact } from '../db/retry';
 import { pendingSignups } from '../db/schema';
-import { sendMail } from '../mail';
+import { sendMail } from '../mail/send';
 import { hashPassword } from './password';
 import { generateToken, hashToken } from './token';
 import { createAccountWithHash, findUserByEmail } from './users';

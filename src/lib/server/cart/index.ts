@@ -11,10 +11,10 @@ import {
 	type Personalisation
 } from '../db/schema';
 import { priceCart } from './pricing';
-import { stockOnHand } from '../orders/holds';
-import { personalise, previewSvg, snapshotRefusal } from '../personalise';
-import { HOME_COUNTRY } from '$lib/shipping';
-import { basketReadyBy, carvedMinutes, readyByNow } from '../orders/carving-queue';
+import { stockOnHand } from '../stock/holds';
+import { personalise, previewSvg, snapshotRefusal } from '../catalogue/personalise';
+import { HOME_COUNTRY } from '$lib/orders/shipping';
+import { basketReadyBy, carvedMinutes, readyByNow } from '../queue/carving-queue';
 import { BASKET_LIFETIME_MS } from './checkout-details';
 
 export const CART_COOKIE = 'cart';

@@ -1,14 +1,14 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { cartLines, pieces, shippingRates, stock, woods, WORKSHOP } from '../db/schema';
-import { getSalesTaxBp } from '../settings';
-import { getCarvingSchedule } from '../orders/carving-queue';
-import { surchargeMinor, type CarvingSchedule } from '$lib/carving-queue';
-import { standardMinutes } from '$lib/layout-minutes';
-import { lineTax, lineTotal, shopCurrency } from '$lib/money';
-import { shippingCharge, zoneFor, type RateRow } from '$lib/shipping';
+import { getSalesTaxBp } from '../settings/sales-tax';
+import { getCarvingSchedule } from '../queue/carving-queue';
+import { surchargeMinor, type CarvingSchedule } from '$lib/queue/carving-queue';
+import { standardMinutes } from '$lib/queue/layout-minutes';
+import { lineTax, lineTotal, shopCurrency } from '$lib/locale/money';
+import { shippingCharge, zoneFor, type RateRow } from '$lib/orders/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
-import { snapshotRefusal } from '../personalise';
+import { snapshotRefusal } from '../catalogue/personalise';
 
 /**
  * Prices a cart from the database alone: unit prices, per-line tax, shipping by destination.

@@ -6,7 +6,7 @@ import { randomBytes } from 'node:crypto';
 import { and, asc, eq, max } from 'drizzle-orm';
 import { db } from '../db';
 import { photos, pieces } from '../db/schema';
-import { deletePrefix, storePhoto } from '../storage';
+import { deletePrefix, storePhoto } from './photo-storage';
 
 export class PhotoNotFound extends Error {}
 

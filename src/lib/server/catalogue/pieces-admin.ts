@@ -1,4 +1,4 @@
-import { majorText, shopCurrency } from '$lib/money';
+import { majorText, shopCurrency } from '$lib/locale/money';
 /**
  * The owner's side of the catalogue: every piece (retired ones too), create, edit, retire.
  * A retired piece leaves the shop (the shop reads active pieces only) but its row stays, so the
@@ -7,7 +7,7 @@ import { majorText, shopCurrency } from '$lib/money';
 import { asc, eq, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { photos, pieces, pieceWoods, woods } from '../db/schema';
-import type { PieceForm } from '$lib/schemas/piece';
+import type { PieceForm } from '$lib/catalogue/piece-schema';
 import type { PiecePattern } from '../db/schema';
 import { isDuplicateKey, withRetry } from '../db/retry';
 

@@ -14,8 +14,8 @@ import {
 	tinyint
 } from 'drizzle-orm/mysql-core';
 import { json } from './json';
-import { orderStatuses, type OrderStatus } from '../../order-status';
-import { pieceKinds } from '../../kinds';
+import { orderStatuses, type OrderStatus } from '$lib/orders/status';
+import { pieceKinds } from '$lib/catalogue/kinds';
 import type { Personalisation, PiecePattern } from '../../pattern/snapshot';
 
 export const roles = ['owner', 'helper', 'customer'] as const;

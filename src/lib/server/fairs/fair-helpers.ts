@@ -2,7 +2,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairHelpers, users } from '../db/schema';
 import { withRetry } from '../db/retry';
-import { FairError } from './errors';
+import { FairError } from '../booth/errors';
 import { getFair } from './fairs';
 
 type Who = { id: string; role: string };

@@ -1,11 +1,11 @@
-import { today as todayIso } from '$lib/dates';
-import { shopCurrency } from '$lib/money';
+import { today as todayIso } from '$lib/locale/dates';
+import { shopCurrency } from '$lib/locale/money';
 import { and, asc, desc, eq, gte, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
-import type { FairForm } from '$lib/schemas/fairs';
+import type { FairForm } from '$lib/fairs/schemas';
 import { fairPlace } from '../stock/adjust';
-import { FairError } from './errors';
+import { FairError } from '../booth/errors';
 
 export type Fair = typeof fairs.$inferSelect;
 

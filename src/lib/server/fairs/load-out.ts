@@ -3,7 +3,7 @@ import { db } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import { withRetry } from '../db/retry';
 import { adjustStock, fairPlace, StockError } from '../stock/adjust';
-import { FairError } from './errors';
+import { FairError } from '../booth/errors';
 
 /** Finished pieces on the workshop shelf that could go to a fair. */
 export async function workshopShelf() {

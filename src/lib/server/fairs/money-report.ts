@@ -1,10 +1,10 @@
-import { isoMonth } from '$lib/dates';
+import { isoMonth } from '$lib/locale/dates';
 import { eq, isNotNull } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { boothSales, fairs, orders } from '../db/schema';
 import { decimal } from './report';
-import { fairTally } from './tally';
+import { fairTally } from '../booth/tally';
 
 const PAID = new Set([
 	'paid',

@@ -1,11 +1,11 @@
-import { localHour, localIso } from '$lib/dates';
-import { majorText } from '$lib/money';
+import { localHour, localIso } from '$lib/locale/dates';
+import { majorText } from '$lib/locale/money';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { fairs } from '../db/schema';
-import { netPerHour, tallyEntries } from '$lib/reconcile';
-import { fairTally } from './tally';
-import { fairCorrections } from './booth-void';
+import { netPerHour, tallyEntries } from '$lib/booth/reconcile';
+import { fairTally } from '../booth/tally';
+import { fairCorrections } from '../booth/void';
 
 /** Minor units as a plain decimal for the bookkeeper's spreadsheet (no currency sign). */
 export const decimal = (minor: number, currency?: string) => majorText(minor, currency);

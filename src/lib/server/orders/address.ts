@@ -1,9 +1,9 @@
 import type { Address } from '../db/schema';
-import type { CheckoutInput } from '$lib/schemas/checkout';
-import { checkRegion } from '$lib/regions';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
+import { checkRegion } from '$lib/locale/regions';
 
 /**
- * The address an order keeps. The region is stored as $lib/regions gives it (the code for US, CA
+ * The address an order keeps. The region is stored as $lib/locale/regions gives it (the code for US, CA
  * and AU, the list's own spelling elsewhere, else as typed), never uppercased: "Tôkyô" and
  * "Łódzkie" are names, not codes, and a label printed in capitals of them reads wrong.
  */

@@ -3,8 +3,8 @@
  * and from then on it may ship. Locks the order row so two clicks record it once.
  */
 import { eq } from 'drizzle-orm';
-import { formatMoney } from '$lib/money';
-import { orderBalance } from '$lib/order-balance';
+import { formatMoney } from '$lib/locale/money';
+import { orderBalance } from '$lib/orders/balance';
 import { transact } from '../db/retry';
 import { orderHistory, orders, type BalanceMethod } from '../db/schema';
 import { OrderNotFoundError } from './ship';

@@ -3,16 +3,16 @@
  * what is left to pay before it ships, and the signed link to follow it. Plain text and HTML carry
  * the same facts. Sent through the outbox like every other message.
  */
-import { formatMoney } from '$lib/money';
-import { buyerReadyBy } from '$lib/carving-queue';
-import { orderBalance } from '$lib/order-balance';
+import { formatMoney } from '$lib/locale/money';
+import { buyerReadyBy } from '$lib/queue/carving-queue';
+import { orderBalance } from '$lib/orders/balance';
 import { eq } from 'drizzle-orm';
 import { db, type Tx } from '../db';
 import { users } from '../db/schema';
 import { queueMail } from '../mail/outbox';
-import { getShopInfo } from '../shop-settings';
-import { promiseReadyBy } from './carving-queue';
-import { esc, mailButton, mailPage } from '../mail-html';
+import { getShopInfo } from '../settings/shop-settings';
+import { promiseReadyBy } from '../queue/carving-queue';
+import { esc, mailButton, mailPage } from '../mail/html';
 import { queueNewOrderAlert } from './paid-alert';
 import { orderLink } from './links';
 import { readyByWords } from './mail';

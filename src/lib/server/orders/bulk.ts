@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm';
-import { statusLabel, type OrderStatus } from '$lib/order-status';
+import { statusLabel, type OrderStatus } from '$lib/orders/status';
 import { db } from '../db';
 import { orders } from '../db/schema';
-import { recomputeReadyBy } from './carving-queue';
+import { recomputeReadyBy } from '../queue/carving-queue';
 import { moveOrder, StatusMoveError } from './status';
 
 /**

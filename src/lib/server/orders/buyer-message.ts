@@ -8,10 +8,10 @@
 import { eq } from 'drizzle-orm';
 import { db } from '../db';
 import { users } from '../db/schema';
-import { sendMail } from '../mail';
-import { esc, mailButton, mailPage } from '../mail-html';
-import { takeAll, type Verdict } from '../rate-limit';
-import { throttles } from '../throttles';
+import { sendMail } from '../mail/send';
+import { esc, mailButton, mailPage } from '../mail/html';
+import { takeAll, type Verdict } from '../http/rate-limit';
+import { throttles } from '../http/throttles';
 
 type From = { ref: string; buyerName: string; email: string };
 

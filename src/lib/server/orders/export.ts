@@ -6,11 +6,11 @@
  */
 import { stringify } from 'csv-stringify/sync';
 import { desc, eq, sql } from 'drizzle-orm';
-import { majorText } from '$lib/money';
-import { localIso } from '$lib/dates';
-import { statusLabel } from '$lib/order-status';
-import { csvText } from '$lib/csv-safe';
-import type { OrderTableQuery } from '$lib/schemas/workshop-orders';
+import { majorText } from '$lib/locale/money';
+import { localIso } from '$lib/locale/dates';
+import { statusLabel } from '$lib/orders/status';
+import { csvText } from '$lib/orders/csv-safe';
+import type { OrderTableQuery } from '$lib/orders/workshop-orders-schema';
 import { db } from '../db';
 import { orders } from '../db/schema';
 import { cityOf, lineCounts, orderTableWhere } from './table';

@@ -2,8 +2,8 @@ import { eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { orderLines, orders, pieces } from '../db/schema';
 import type { MailOrder } from './shipping-mail';
-import { buyerReadyBy } from '$lib/carving-queue';
-import { orderBalance } from '$lib/order-balance';
+import { buyerReadyBy } from '$lib/queue/carving-queue';
+import { orderBalance } from '$lib/orders/balance';
 
 /** Just what the workshop's e-mails say about an order. */
 export async function mailOrder(
@@ -18,7 +18,7 @@ export async function mailOrder(
 			title: orderLines.title,
 			woodName: orderLines.woodName,
 			personalisation: orderLines.personalisation,
-			// The piece's kind and food flag choose the care words (see $lib/care).
+			// The piece's kind and food flag choose the care words (see $lib/catalogue/care).
 			kind: pieces.kind,
 			foodContact: pieces.foodContact
 		})

@@ -1,15 +1,15 @@
-import { carverObject, carverSubject, workshopWords } from '$lib/shop-format';
-import { formatMoney } from '$lib/money';
+import { carverObject, carverSubject, workshopWords } from '$lib/locale/shop-format';
+import { formatMoney } from '$lib/locale/money';
 import { styleWords } from '$lib/pattern/styles';
-import { countryName } from '$lib/shipping';
-import { formatDay } from '$lib/dates';
+import { countryName } from '$lib/orders/shipping';
+import { formatDay } from '$lib/locale/dates';
 import type { Tx } from '../db';
 import { queueMail } from '../mail/outbox';
-import { esc } from '../mail-html';
+import { esc } from '../mail/html';
 import { orderLink } from './links';
 import type { OrderDetail } from './views';
-import { careForAll, LETTERS_CARE } from '$lib/care';
-import { buyerReadyBy } from '$lib/carving-queue';
+import { careForAll, LETTERS_CARE } from '$lib/catalogue/care';
+import { buyerReadyBy } from '$lib/queue/carving-queue';
 
 /** Said to every buyer: finishes can come from nuts, and two of the woods are nut trees. */
 const ALLERGY_LINE =

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { db, type Db, type Tx } from '../db';
 import { settings, users } from '../db/schema';
 import { queueMail } from '../mail/outbox';
-import { recomputeReadyBy } from './carving-queue';
+import { recomputeReadyBy } from '../queue/carving-queue';
 import { mailOrder } from './mail-order';
 import { newOrderAlertMail } from './shipping-mail';
 

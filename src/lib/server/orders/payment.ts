@@ -9,22 +9,22 @@
  * transaction; refunds and the first try at sending go out only after the commit.
  */
 import { and, eq, gt } from 'drizzle-orm';
-import { formatRate } from '$lib/money';
+import { formatRate } from '$lib/locale/money';
 import { styleWords } from '$lib/pattern/styles';
 import { z } from 'zod';
-import { countryName } from '$lib/shipping';
+import { countryName } from '$lib/orders/shipping';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
 import { cartLines, orders, processedEvents } from '../db/schema';
-import { stripe, type Stripe } from '../payments';
+import { stripe, type Stripe } from './stripe';
 import type { PricedCart } from '../cart/pricing';
 import { forgetCheckoutDetails } from '../cart/checkout-details';
-import { heldLines, releaseInTx, releaseOrder, takeStock } from './holds';
+import { heldLines, releaseInTx, releaseOrder, takeStock } from '../stock/holds';
 import { moveOrder } from './status';
 import { queueConfirmation, queuePieceGone, queueReplacedPaid } from './mail';
 import { orderById, orderByRef } from './views';
 import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
-import { promiseReadyBy } from './carving-queue';
+import { promiseReadyBy } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import {
 	handleRefundEvent,

@@ -9,14 +9,14 @@ import { transact } from '../db/retry';
 import { orderLines, orders } from '../db/schema';
 import { addressOf } from './address';
 import { priceCart, type PricedCart } from '../cart/pricing';
-import { carvedMinutes, readyByNow } from './carving-queue';
+import { carvedMinutes, readyByNow } from '../queue/carving-queue';
 import { saveCheckoutDetails } from '../cart/checkout-details';
 import { lockCart } from '../cart/lock';
 import { confirmedAccountFor } from '../auth/guest-orders';
-import type { CheckoutInput } from '$lib/schemas/checkout';
-import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from './holds';
+import type { CheckoutInput } from '$lib/cart/checkout-schema';
+import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from '../stock/holds';
 import { createCheckoutSession, expireCheckoutSession, sessionState } from './payment';
-import { stripe } from '../payments';
+import { stripe } from './stripe';
 
 /** A checkout that cannot go ahead; the message is for the buyer. */
 export class OrderError extends Error {

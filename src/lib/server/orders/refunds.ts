@@ -14,14 +14,14 @@
  */
 import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
-import { formatMoney } from '$lib/money';
-import type { RefundInput } from '$lib/schemas/refund';
+import { formatMoney } from '$lib/locale/money';
+import type { RefundInput } from '$lib/orders/refund-schema';
 import { db, type Tx } from '../db';
 import { transact } from '../db/retry';
 import { orderLines, orderNotes, orderRefunds, orders } from '../db/schema';
 import { queueMail, sendQueued } from '../mail/outbox';
-import { stripe, type Stripe } from '../payments';
-import { putBackStock } from './holds';
+import { stripe, type Stripe } from './stripe';
+import { putBackStock } from '../stock/holds';
 import { mailOrder } from './mail-order';
 import { refundMail } from './shipping-mail';
 import { moveOrder } from './status';

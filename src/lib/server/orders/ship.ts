@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import { transact } from '../db/retry';
 import { orders, shipments } from '../db/schema';
 import { queueMail, sendQueued } from '../mail/outbox';
-import type { ShipmentInput } from '$lib/schemas/shipment';
+import type { ShipmentInput } from '$lib/orders/shipment-schema';
 import { moveOrder, StatusMoveError } from './status';
 import { mailOrder } from './mail-order';
 import { shippingMail } from './shipping-mail';

@@ -1,15 +1,15 @@
-import { workshopWords } from '$lib/shop-format';
+import { workshopWords } from '$lib/locale/shop-format';
 /**
  * The e-mails the workshop's order work sends: the buyer's "on its way" and "refunded" letters,
  * and the workshop's own alert for each paid order. Each has a text and an HTML part carrying
  * the same facts.
  */
-import { formatMoney } from '$lib/money';
+import { formatMoney } from '$lib/locale/money';
 import { trackingLink } from './tracking';
-import { esc, mailButton, mailPage } from '../mail-html';
+import { esc, mailButton, mailPage } from '../mail/html';
 import { orderLink } from './links';
 import { readyByWords } from './mail';
-import { careForAll, LETTERS_CARE } from '$lib/care';
+import { careForAll, LETTERS_CARE } from '$lib/catalogue/care';
 
 export type MailOrder = {
 	ref: string;
@@ -24,7 +24,7 @@ export type MailOrder = {
 		title: string;
 		woodName: string;
 		initials?: string | null;
-		/** The piece's kind and food flag: they choose the care words (see $lib/care). */
+		/** The piece's kind and food flag: they choose the care words (see $lib/catalogue/care). */
 		kind: string;
 		foodContact: boolean;
 	}[];

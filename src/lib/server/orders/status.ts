@@ -2,9 +2,9 @@ import { and, eq, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { inTx } from '../db/retry';
 import { orderHistory, orderLines, orders } from '../db/schema';
-import { canMove, statusLabel, stepBackTo, type OrderStatus } from '$lib/order-status';
-import { orderBalance } from '$lib/order-balance';
-import { formatMoney } from '$lib/money';
+import { canMove, statusLabel, stepBackTo, type OrderStatus } from '$lib/orders/status';
+import { orderBalance } from '$lib/orders/balance';
+import { formatMoney } from '$lib/locale/money';
 
 /** A move the status table does not allow; the message is for a person, the status for HTTP. */
 export class StatusMoveError extends Error {
@@ -32,7 +32,7 @@ export async function needsCarving(tx: Tx, orderId: number): Promise<boolean> {
 
 /**
  * The one way an order changes status: lock the order row, check the move against the table in
- * `$lib/order-status`, update it, and write who/when/why to the order's history. Pass `tx` to
+ * `$lib/orders/status`, update it, and write who/when/why to the order's history. Pass `tx` to
  * make the move part of a larger write (the payment event, a refund); without it the move is
  * its own transaction, retried on deadlock. `extra` sets other order columns in the same update.
  */

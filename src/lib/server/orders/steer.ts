@@ -5,12 +5,12 @@
  * the buyer and the move to "Refunded" happen exactly as they do from the refund form.
  */
 import { eq } from 'drizzle-orm';
-import { canCancel, stepBackTo, statusLabel, type OrderStatus } from '$lib/order-status';
+import { canCancel, stepBackTo, statusLabel, type OrderStatus } from '$lib/orders/status';
 import { db } from '../db';
 import { transact } from '../db/retry';
 import { orders } from '../db/schema';
-import { recomputeReadyBy } from './carving-queue';
-import { releaseInTx } from './holds';
+import { recomputeReadyBy } from '../queue/carving-queue';
+import { releaseInTx } from '../stock/holds';
 import { refundOrder } from './refunds';
 import { OrderNotFoundError } from './ship';
 import { moveOrder, needsCarving, StatusMoveError } from './status';

@@ -4,8 +4,8 @@
  * (a correlated count had bound the wrong table and said 5 for every order).
  */
 import { and, asc, desc, gte, inArray, like, lt, or, sql, eq, type SQL } from 'drizzle-orm';
-import type { OrderTableQuery, WorkshopOrderRow } from '$lib/schemas/workshop-orders';
-import { addIsoDays } from '$lib/dates';
+import type { OrderTableQuery, WorkshopOrderRow } from '$lib/orders/workshop-orders-schema';
+import { addIsoDays } from '$lib/locale/dates';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
 

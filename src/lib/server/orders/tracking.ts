@@ -2,7 +2,7 @@
  * Where each carrier publishes its tracking page. A carrier not in the list is still accepted
  * (a local courier); the buyer then gets the number without a link.
  */
-import { CARRIER_NAMES } from '$lib/carriers';
+import { CARRIER_NAMES } from '$lib/orders/carriers';
 
 export type Carrier = { id: string; name: string; trackUrl: (n: string) => string };
 

@@ -7,11 +7,11 @@ import { and, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { snapshotInput } from '$lib/pattern/snapshot';
-import { buyerReadyBy } from '$lib/carving-queue';
+import { buyerReadyBy } from '$lib/queue/carving-queue';
 import { unprintable } from '../pdf/fonts';
 import { db, type Db, type Tx } from '../db';
 import { orderLines, orders, pieces, shipments, woods } from '../db/schema';
-import { previewSvg } from '../personalise';
+import { previewSvg } from '../catalogue/personalise';
 import { orderPath } from './links';
 import { trackingLink } from './tracking';
 

@@ -7,7 +7,7 @@
 import { PDFDocument, rgb, type PDFImage, type PDFPage } from 'pdf-lib';
 import QRCode from 'qrcode';
 import { styleWords } from '../../pattern/styles';
-import { formatMoney } from '../../money';
+import { formatMoney } from '$lib/locale/money';
 import { PdfFonts, type Weight } from './fonts';
 import type { SlipOrder, SlipShop } from './slip-data';
 

@@ -2,13 +2,13 @@
  * What a packing or gift slip prints for one order: the buyer's address, the lines with wood and
  * personalisation, the gift note, the shop's return address. Read-only, one query per order.
  */
-import { isoDay } from '$lib/dates';
-import { buyerReadyBy } from '$lib/carving-queue';
+import { isoDay } from '$lib/locale/dates';
+import { buyerReadyBy } from '$lib/queue/carving-queue';
 import { readyByWords } from '../orders/mail';
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';
-import { addressLines, getShopInfo } from '../shop-settings';
+import { addressLines, getShopInfo } from '../settings/shop-settings';
 
 export type SlipLine = {
 	title: string;

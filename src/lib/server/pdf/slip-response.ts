@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import { config } from '../config';
 import { slipsPdf, type SlipKind, type SlipPaper } from './packing-slip';
 import { slipOrders, slipShop } from './slip-data';
-import { orderRef, slipQuery } from '../../schemas/slips';
+import { orderRef, slipQuery } from '$lib/orders/slips-schema';
 
 /** Reads the query with a schema; `{ error }` with 400 when it does not fit. */
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S) {

@@ -1,7 +1,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { pieces } from '../db/schema';
-import { cachedCatalogue } from '../catalogue-cache';
+import { cachedCatalogue } from '../catalogue/cache';
 
 /** The address of every piece on sale, for the sitemap; cached until the catalogue changes. */
 export function activePieceSlugs(): Promise<string[]> {

@@ -18,7 +18,7 @@ import {
 } from '../db/schema';
 import { adjustStock, StockError, type StockPlace } from './adjust';
 import { fairStateShared } from '../fairs/fairs';
-import { FairError } from '../fairs/errors';
+import { FairError } from '../booth/errors';
 
 /** A change the owner asked for that cannot be made; `status` is the HTTP answer. */
 export class StockChangeError extends Error {

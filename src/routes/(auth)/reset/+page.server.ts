@@ -1,10 +1,10 @@
 import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms';
-import { resetRequestSchema } from '$lib/schemas/auth';
+import { parseForm } from '$lib/forms/parse-form';
+import { resetRequestSchema } from '$lib/auth/auth-schema';
 import { requestPasswordReset } from '$lib/server/auth/reset-mail';
 import { afterResponse } from '$lib/server/auth/after-response';
-import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
-import { throttles } from '$lib/server/throttles';
+import { takeAll, tryAgainIn } from '$lib/server/http/rate-limit';
+import { throttles } from '$lib/server/http/throttles';
 import type { Actions } from './$types';
 
 export const actions: Actions = {

@@ -1,10 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { formText, parseForm } from '$lib/forms';
-import { signInSchema } from '$lib/schemas/auth';
-import { homeFor, safeNext } from '$lib/safe-redirect';
+import { formText, parseForm } from '$lib/forms/parse-form';
+import { signInSchema } from '$lib/auth/auth-schema';
+import { homeFor, safeNext } from '$lib/auth/safe-redirect';
 import { authenticate } from '$lib/server/auth/users';
 import { invalidateSession, signIn } from '$lib/server/auth/lucia';
-import { tryAgainIn } from '$lib/server/rate-limit';
+import { tryAgainIn } from '$lib/server/http/rate-limit';
 import {
 	DEVICE_COOKIE,
 	signInGate,

@@ -1,11 +1,11 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms';
-import { signUpSchema } from '$lib/schemas/auth';
-import { safeNext } from '$lib/safe-redirect';
+import { parseForm } from '$lib/forms/parse-form';
+import { signUpSchema } from '$lib/auth/auth-schema';
+import { safeNext } from '$lib/auth/safe-redirect';
 import { afterResponse } from '$lib/server/auth/after-response';
 import { requestSignUp } from '$lib/server/auth/signup';
-import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
-import { throttles } from '$lib/server/throttles';
+import { takeAll, tryAgainIn } from '$lib/server/http/rate-limit';
+import { throttles } from '$lib/server/http/throttles';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {

@@ -10,9 +10,9 @@ import {
 	setQuantity
 } from '$lib/server/cart';
 import { returnUnpaid } from '$lib/server/orders/payment';
-import { destinationSchema, removeLineSchema, setQuantitySchema } from '$lib/schemas/cart';
-import { parseForm } from '$lib/forms';
-import { COUNTRIES } from '$lib/shipping';
+import { destinationSchema, removeLineSchema, setQuantitySchema } from '$lib/cart/cart-schema';
+import { parseForm } from '$lib/forms/parse-form';
+import { COUNTRIES } from '$lib/orders/shipping';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async ({ cookies, url }) => {

@@ -2,13 +2,13 @@ import { fail, redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
 import { checkoutDetailsFor } from '$lib/server/cart/checkout-details';
 import { OrderError, placeOrder } from '$lib/server/orders/place';
-import { checkoutSchema } from '$lib/schemas/checkout';
-import { COUNTRIES } from '$lib/shipping';
-import { REGION_EXAMPLE, regionsFor } from '$lib/regions';
+import { checkoutSchema } from '$lib/cart/checkout-schema';
+import { COUNTRIES } from '$lib/orders/shipping';
+import { REGION_EXAMPLE, regionsFor } from '$lib/locale/regions';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/forms';
-import { takeAll, tryAgainIn } from '$lib/server/rate-limit';
-import { throttles } from '$lib/server/throttles';
+import { parseForm } from '$lib/forms/parse-form';
+import { takeAll, tryAgainIn } from '$lib/server/http/rate-limit';
+import { throttles } from '$lib/server/http/throttles';
 
 export const load: PageServerLoad = async ({ cookies, locals, setHeaders }) => {
 	const cartId = cartIdFrom(cookies);
@@ -48,7 +48,7 @@ export const actions: Actions = {
 		const cartId = cartIdFrom(cookies);
 		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });
 
-		// Throttle: pieces held per basket and per client address (see $lib/server/throttles).
+		// Throttle: pieces held per basket and per client address (see $lib/server/http/throttles).
 		const held = await takeAll([
 			[throttles.checkoutBasket, cartId],
 			[throttles.checkoutAddress, getClientAddress()]

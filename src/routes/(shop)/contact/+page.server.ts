@@ -1,4 +1,4 @@
-import { addressLines, getShopInfo } from '$lib/server/shop-settings';
+import { addressLines, getShopInfo } from '$lib/server/settings/shop-settings';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => {

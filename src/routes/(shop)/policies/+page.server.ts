@@ -1,4 +1,4 @@
-import { getPolicies, getShopInfo } from '$lib/server/shop-settings';
+import { getPolicies, getShopInfo } from '$lib/server/settings/shop-settings';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => {

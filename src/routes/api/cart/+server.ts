@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/api-errors';
-import { fieldErrors, type FieldErrors } from '$lib/forms';
+import { apiError } from '$lib/server/http/api-errors';
+import { fieldErrors, type FieldErrors } from '$lib/forms/parse-form';
 import {
 	addLine,
 	CartError,
@@ -16,9 +16,9 @@ import {
 	destinationSchema,
 	removeLineSchema,
 	setQuantitySchema
-} from '$lib/schemas/cart';
-import { COUNTRIES } from '$lib/shipping';
-import { readJsonObject } from '$lib/server/body-limit';
+} from '$lib/cart/cart-schema';
+import { COUNTRIES } from '$lib/orders/shipping';
+import { readJsonObject } from '$lib/server/http/body-limit';
 import type { RequestEvent, RequestHandler } from './$types';
 
 const knownCountry = (c: string) => (COUNTRIES as readonly string[]).includes(c);

@@ -1,7 +1,7 @@
-import { apiError } from '$lib/server/api-errors';
+import { apiError } from '$lib/server/http/api-errors';
 import { letterFont } from '$lib/pattern/letter-font';
-import { patternJson } from '$lib/server/pattern-api';
-import { throttles } from '$lib/server/throttles';
+import { patternJson } from '$lib/server/pattern/api';
+import { throttles } from '$lib/server/http/throttles';
 import type { RequestHandler } from './$types';
 
 /** Public: the layout for a set of rosette settings, the same the preview draws. */

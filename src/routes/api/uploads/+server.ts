@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/api-errors';
+import { apiError, apiInvalid } from '$lib/server/http/api-errors';
 import { addPhoto, PhotoNotFound } from '$lib/server/catalogue/photos';
-import { PhotoRejected } from '$lib/server/storage';
-import { uploadFields } from '$lib/schemas/photo';
-import { MAX_PHOTO_BYTES } from '$lib/photo-limits';
-import { UPLOAD_TOO_LARGE } from '$lib/server/body-limit';
+import { PhotoRejected } from '$lib/server/catalogue/photo-storage';
+import { uploadFields } from '$lib/catalogue/photo-schema';
+import { MAX_PHOTO_BYTES } from '$lib/catalogue/photo-limits';
+import { UPLOAD_TOO_LARGE } from '$lib/server/http/body-limit';
 import type { RequestHandler } from './$types';
 
 /**

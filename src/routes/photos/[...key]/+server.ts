@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { getObject } from '$lib/server/storage';
+import { getObject } from '$lib/server/catalogue/photo-storage';
 import type { RequestHandler } from './$types';
 
 const MAX_KEY_LENGTH = 300;

@@ -1,10 +1,10 @@
 import { redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { createFair, listFairs } from '$lib/server/fairs/fairs';
-import { fairTally } from '$lib/server/fairs/tally';
+import { fairTally } from '$lib/server/booth/tally';
 import { helperFairIds } from '$lib/server/fairs/fair-helpers';
-import { fairFormSchema } from '$lib/schemas/fairs';
-import { parseForm } from '$lib/forms';
+import { fairFormSchema } from '$lib/fairs/schemas';
+import { parseForm } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { plannerSchema } from '$lib/schemas/pattern';
-import { WOODS } from '$lib/woods';
+import { plannerSchema } from '$lib/pattern/pattern-schema';
+import { WOODS } from '$lib/catalogue/woods';
 import type { PageServerLoad } from './$types';
 
 /** Planner defaults: a bottle holder blank with three 70 mm rosettes; the URL may override them. */

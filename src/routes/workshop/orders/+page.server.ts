@@ -2,9 +2,9 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { moveOrders } from '$lib/server/orders/bulk';
-import { orderStatuses } from '$lib/order-status';
-import { isBenchMove } from '$lib/bench-moves';
-import { firstError, parseForm } from '$lib/forms';
+import { orderStatuses } from '$lib/orders/status';
+import { isBenchMove } from '$lib/queue/workbench-moves';
+import { firstError, parseForm } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */

@@ -1,6 +1,6 @@
 import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms';
-import { addHelperSchema, promoteSchema, removeHelperSchema } from '$lib/schemas/auth';
+import { parseForm } from '$lib/forms/parse-form';
+import { addHelperSchema, promoteSchema, removeHelperSchema } from '$lib/auth/auth-schema';
 import { requireRole } from '$lib/server/auth/guard';
 import { addHelper, listStaff, promoteCustomer, removeHelper } from '$lib/server/auth/staff';
 import type { Actions, PageServerLoad } from './$types';

@@ -1,8 +1,8 @@
 import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms';
-import { pieceForm, pieceFormInput } from '$lib/schemas/piece';
+import { parseForm } from '$lib/forms/parse-form';
+import { pieceForm, pieceFormInput } from '$lib/catalogue/piece-schema';
 import { SlugTaken, unknownWoodIds } from '$lib/server/catalogue/pieces-admin';
-import type { PieceForm } from '$lib/schemas/piece';
+import type { PieceForm } from '$lib/catalogue/piece-schema';
 
 /**
  * Parses the piece form and runs the save; on bad input or a taken address answers 400 with the

@@ -1,9 +1,9 @@
-import { daysBetween } from '$lib/carving-queue';
+import { daysBetween } from '$lib/queue/carving-queue';
 import { requireRole } from '$lib/server/auth/guard';
-import { parseForm } from '$lib/forms';
-import { carvingQueue, setCarvingSchedule } from '$lib/server/orders/carving-queue';
+import { parseForm } from '$lib/forms/parse-form';
+import { carvingQueue, setCarvingSchedule } from '$lib/server/queue/carving-queue';
 import { alertHelperIds, setAlertOptIn } from '$lib/server/orders/paid-alert';
-import { carvingHoursForm } from '$lib/schemas/carving-hours';
+import { carvingHoursForm } from '$lib/queue/carving-hours-schema';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

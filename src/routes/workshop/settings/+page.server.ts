@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { getSalesTaxBp, setSalesTaxBp } from '$lib/server/settings';
+import { getSalesTaxBp, setSalesTaxBp } from '$lib/server/settings/sales-tax';
 import {
 	getAway,
 	getPolicies,
@@ -13,9 +13,9 @@ import {
 	setShopFormat,
 	setShopInfo,
 	setShopWords
-} from '$lib/server/shop-settings';
-import { formatClock, timeZoneNames } from '$lib/dates';
-import { MINOR_DIGITS, parsePercent } from '$lib/money';
+} from '$lib/server/settings/shop-settings';
+import { formatClock, timeZoneNames } from '$lib/locale/dates';
+import { MINOR_DIGITS, parsePercent } from '$lib/locale/money';
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
 import {
 	away,
@@ -25,11 +25,11 @@ import {
 	shopFormat,
 	shopInfo,
 	shopWords
-} from '$lib/schemas/settings';
+} from '$lib/settings/settings-schema';
 import { parseRateInputs, rateInputs, rateInputsFromForm } from './rates-table';
-import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
+import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/forms';
+import { parseForm } from '$lib/forms/parse-form';
 
 /** The rate as typed, in percent with up to two decimals (7.25 → 725 basis points). */
 const taxSchema = z.object({

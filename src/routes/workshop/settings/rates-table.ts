@@ -1,8 +1,8 @@
 import type { z } from 'zod';
-import { ZONES, type RateRow, type Zone } from '$lib/shipping';
-import type { RateLine } from '$lib/schemas/settings';
-import { formText } from '$lib/forms';
-import { majorText } from '$lib/money';
+import { ZONES, type RateRow, type Zone } from '$lib/orders/shipping';
+import type { RateLine } from '$lib/settings/settings-schema';
+import { formText } from '$lib/forms/parse-form';
+import { majorText } from '$lib/locale/money';
 
 /** The zones as the owner reads them. */
 export const ZONE_LABELS: Record<Zone, string> = {

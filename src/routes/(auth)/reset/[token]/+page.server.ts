@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms';
-import { resetPasswordSchema } from '$lib/schemas/auth';
-import { homeFor } from '$lib/safe-redirect';
+import { parseForm } from '$lib/forms/parse-form';
+import { resetPasswordSchema } from '$lib/auth/auth-schema';
+import { homeFor } from '$lib/auth/safe-redirect';
 import { checkResetToken, completeReset } from '$lib/server/auth/reset';
 import { signIn } from '$lib/server/auth/lucia';
 import { findUserById } from '$lib/server/auth/users';

@@ -2,9 +2,9 @@ import { error, fail } from '@sveltejs/kit';
 import { buyerOrderView, orderByRef } from '$lib/server/orders/views';
 import { verifyOrderKey } from '$lib/server/orders/links';
 import { messageShop } from '$lib/server/orders/buyer-message';
-import { tryAgainIn } from '$lib/server/rate-limit';
-import { parseForm } from '$lib/forms';
-import { orderMessageSchema } from '$lib/schemas/order-message';
+import { tryAgainIn } from '$lib/server/http/rate-limit';
+import { parseForm } from '$lib/forms/parse-form';
+import { orderMessageSchema } from '$lib/orders/message-schema';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 /** Reachable by the signed link from the e-mail, or by the signed-in account that placed it. */

@@ -1,19 +1,19 @@
 import { error, fail } from '@sveltejs/kit';
-import { readyByFor } from '$lib/carving-queue';
-import { standardMinutes } from '$lib/layout-minutes';
-import { queueOutlook } from '$lib/server/orders/carving-queue';
-import { getPiece, largerRosettePieces } from '$lib/server/catalogue';
+import { readyByFor } from '$lib/queue/carving-queue';
+import { standardMinutes } from '$lib/queue/layout-minutes';
+import { queueOutlook } from '$lib/server/queue/carving-queue';
+import { getPiece, largerRosettePieces } from '$lib/server/catalogue/catalogue';
 import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
-import { addLineSchema } from '$lib/schemas/cart';
-import { hardnessWords, weightWords } from '$lib/woods';
+import { addLineSchema } from '$lib/cart/cart-schema';
+import { hardnessWords, weightWords } from '$lib/catalogue/woods';
 import type { Actions, PageServerLoad } from './$types';
-import { fieldErrors, formTexts } from '$lib/forms';
+import { fieldErrors, formTexts } from '$lib/forms/parse-form';
 import { drawPreview } from '$lib/pattern/personaliser-draw';
 import { isRosetteStyle } from '$lib/pattern/styles';
 import type { LargerPiece } from '$lib/pattern/ways-out';
 import { config } from '$lib/server/config';
-import { getShopInfo } from '$lib/server/shop-settings';
-import { photoUrl } from '$lib/photos';
+import { getShopInfo } from '$lib/server/settings/shop-settings';
+import { photoUrl } from '$lib/catalogue/photos';
 import { metaDescription } from '$lib/seo/describe';
 import { jsonLdTag, productJsonLd } from '$lib/seo/product-ld';
 

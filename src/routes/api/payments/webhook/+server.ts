@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/api-errors';
+import { apiError } from '$lib/server/http/api-errors';
 import { config } from '$lib/server/config';
-import { verifyWebhook, WebhookSignatureError } from '$lib/server/payments';
+import { verifyWebhook, WebhookSignatureError } from '$lib/server/orders/stripe';
 import { handlePaymentEvent, PaymentEventError } from '$lib/server/orders/payment';
 import type { RequestHandler } from './$types';
 

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiInvalid } from '$lib/server/api-errors';
+import { apiInvalid } from '$lib/server/http/api-errors';
 import { listWorkshopOrders } from '$lib/server/orders/table';
-import { parseOrderTableQuery } from '$lib/schemas/workshop-orders';
+import { parseOrderTableQuery } from '$lib/orders/workshop-orders-schema';
 import type { RequestHandler } from './$types';
 
 /** One page of the workshop's order table: `?sort&dir&status&from&to&personalised&q&page&size`. */

@@ -2,16 +2,16 @@ import { fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
 import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
-import { fairHistory } from '$lib/server/fairs/booth-void';
-import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
+import { fairHistory } from '$lib/server/booth/void';
+import { fairIdParam, orFail, orPageError } from '$lib/server/booth/http';
 import {
 	assertFairAccess,
 	fairHelperChoices,
 	setFairHelpers
 } from '$lib/server/fairs/fair-helpers';
-import { fairFormSchema, loadOutLineSchema } from '$lib/schemas/fairs';
-import { fairFormValues } from '$lib/fair-form-values';
-import { formTexts, parseForm } from '$lib/forms';
+import { fairFormSchema, loadOutLineSchema } from '$lib/fairs/schemas';
+import { fairFormValues } from '$lib/fairs/form-values';
+import { formTexts, parseForm } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

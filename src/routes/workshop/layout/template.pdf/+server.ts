@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { computePattern } from '$lib/pattern';
-import { patternFieldErrors, patternInputFrom, plannerSchema } from '$lib/schemas/pattern';
+import { patternFieldErrors, patternInputFrom, plannerSchema } from '$lib/pattern/pattern-schema';
 import { letterFont } from '$lib/pattern/letter-font';
 import { templatePdf } from '$lib/server/pdf/template';
 import { json } from '@sveltejs/kit';

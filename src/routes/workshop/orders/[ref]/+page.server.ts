@@ -1,21 +1,21 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { firstError, parseForm } from '$lib/forms';
+import { firstError, parseForm } from '$lib/forms/parse-form';
 import { workshopOrderDetail } from '$lib/server/orders/views';
-import { canCancel, nextStatuses, statusLabel, stepBackTo } from '$lib/order-status';
-import { formatMoney } from '$lib/money';
-import { isBenchMove } from '$lib/bench-moves';
-import { moveSchema, noteSchema, steerSchema } from '$lib/schemas/order-actions';
-import { shipmentSchema } from '$lib/schemas/shipment';
-import { refundFormSchema } from '$lib/schemas/refund';
-import { balanceSchema } from '$lib/schemas/balance';
+import { canCancel, nextStatuses, statusLabel, stepBackTo } from '$lib/orders/status';
+import { formatMoney } from '$lib/locale/money';
+import { isBenchMove } from '$lib/queue/workbench-moves';
+import { moveSchema, noteSchema, steerSchema } from '$lib/orders/actions-schema';
+import { shipmentSchema } from '$lib/orders/shipment-schema';
+import { refundFormSchema } from '$lib/orders/refund-schema';
+import { balanceSchema } from '$lib/orders/balance-schema';
 import { recordBalancePaid } from '$lib/server/orders/balance';
 import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
 import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
 import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
-import { recomputeReadyBy } from '$lib/server/orders/carving-queue';
+import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import { cancelOrder, stepBackOrder } from '$lib/server/orders/steer';
-import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/orders/workbench';
+import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/queue/workbench';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { ordersCsv } from '$lib/server/orders/export';
-import { tableStateFromUrl } from '$lib/schemas/workshop-orders';
+import { tableStateFromUrl } from '$lib/orders/workshop-orders-schema';
 import type { RequestHandler } from './$types';
 
 /** The table's filters from the same query string; a bad one falls back as the page does. */

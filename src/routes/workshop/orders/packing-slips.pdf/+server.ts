@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { parseQuery, slipResponse } from '$lib/server/pdf/slip-response';
-import { slipBatchQuery } from '$lib/schemas/slips';
+import { slipBatchQuery } from '$lib/orders/slips-schema';
 import type { RequestHandler } from './$types';
 
 /** Several orders' slips in one PDF: ?refs=A,B,C&paper=a4|letter|label&kind=packing|gift. */

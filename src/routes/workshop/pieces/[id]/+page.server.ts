@@ -14,10 +14,10 @@ import {
 	PhotoNotFound,
 	setPhotoAlt
 } from '$lib/server/catalogue/photos';
-import { photoAlt } from '$lib/schemas/photo';
-import { stockAdjustForm, stockDelta } from '$lib/schemas/stock';
+import { photoAlt } from '$lib/catalogue/photo-schema';
+import { stockAdjustForm, stockDelta } from '$lib/stock/stock-schema';
 import { adjustPieceStock, pieceStock, StockChangeError } from '$lib/server/stock/piece-stock';
-import { fieldErrors, firstError, formTexts, parseForm } from '$lib/forms';
+import { fieldErrors, firstError, formTexts, parseForm } from '$lib/forms/parse-form';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/api-errors';
-import { discardEntry } from '$lib/server/fairs/booth-void';
+import { apiError, apiInvalid } from '$lib/server/http/api-errors';
+import { discardEntry } from '$lib/server/booth/void';
 import { getFair } from '$lib/server/fairs/fairs';
-import { readBoothJson } from '$lib/server/fairs/read-json';
-import { FairError } from '$lib/server/fairs/errors';
-import { boothDiscardSchema } from '$lib/schemas/fairs';
+import { readBoothJson } from '$lib/server/http/read-json';
+import { FairError } from '$lib/server/booth/errors';
+import { boothDiscardSchema } from '$lib/fairs/schemas';
 import type { RequestHandler } from './$types';
 
 /** A refused entry the helper discarded on the phone: kept so the owner still sees it. */

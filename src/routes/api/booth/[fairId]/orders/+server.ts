@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/api-errors';
-import { placeBoothOrder } from '$lib/server/fairs/booth-order';
-import { readBoothJson } from '$lib/server/fairs/read-json';
-import { FairError } from '$lib/server/fairs/errors';
+import { apiError, apiInvalid } from '$lib/server/http/api-errors';
+import { placeBoothOrder } from '$lib/server/booth/order';
+import { readBoothJson } from '$lib/server/http/read-json';
+import { FairError } from '$lib/server/booth/errors';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
-import { boothOrderSchema } from '$lib/schemas/fairs';
+import { boothOrderSchema } from '$lib/fairs/schemas';
 import type { RequestHandler } from './$types';
 
 /** A personalised order taken at the booth, with its deposit; resending it stores nothing new. */

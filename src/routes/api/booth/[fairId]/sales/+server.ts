@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError } from '$lib/server/api-errors';
-import { syncSales } from '$lib/server/fairs/booth-sync';
-import { readBoothJson } from '$lib/server/fairs/read-json';
-import { FairError } from '$lib/server/fairs/errors';
+import { apiError } from '$lib/server/http/api-errors';
+import { syncSales } from '$lib/server/booth/sync';
+import { readBoothJson } from '$lib/server/http/read-json';
+import { FairError } from '$lib/server/booth/errors';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
-import { BOOTH_MAX_SALES, boothBatchSchema } from '$lib/schemas/fairs';
+import { BOOTH_MAX_SALES, boothBatchSchema } from '$lib/fairs/schemas';
 import type { RequestHandler } from './$types';
 
 /** The booth's queue lands here: each sale stored once by its phone-made id. */

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError } from '$lib/server/api-errors';
-import { saveTally } from '$lib/server/fairs/tally';
-import { parseTallyFields, tallySaveSchema } from '$lib/server/fairs/tally-input';
-import { readBoothJson } from '$lib/server/fairs/read-json';
-import { FairError } from '$lib/server/fairs/errors';
+import { apiError } from '$lib/server/http/api-errors';
+import { saveTally } from '$lib/server/booth/tally';
+import { parseTallyFields, tallySaveSchema } from '$lib/server/booth/tally-input';
+import { readBoothJson } from '$lib/server/http/read-json';
+import { FairError } from '$lib/server/booth/errors';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
 import type { RequestHandler } from './$types';
 

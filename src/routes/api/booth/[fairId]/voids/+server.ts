@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/api-errors';
-import { voidSale } from '$lib/server/fairs/booth-void';
-import { readBoothJson } from '$lib/server/fairs/read-json';
-import { FairError } from '$lib/server/fairs/errors';
-import { boothVoidSchema } from '$lib/schemas/fairs';
+import { apiError, apiInvalid } from '$lib/server/http/api-errors';
+import { voidSale } from '$lib/server/booth/void';
+import { readBoothJson } from '$lib/server/http/read-json';
+import { FairError } from '$lib/server/booth/errors';
+import { boothVoidSchema } from '$lib/fairs/schemas';
 import type { RequestHandler } from './$types';
 
 /** A void of a booth sale, queued on the phone like a sale; resending it stores nothing new. */

@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { boothView } from '$lib/server/fairs/booth-view';
-import { fairIdParam, orPageError } from '$lib/server/fairs/http';
+import { boothView } from '$lib/server/booth/view';
+import { fairIdParam, orPageError } from '$lib/server/booth/http';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
 import type { PageServerLoad } from './$types';
 

@@ -1,7 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair } from '$lib/server/fairs/fairs';
 import { checklistPdf } from '$lib/server/fairs/checklist-pdf';
-import { fairIdParam, orPageError } from '$lib/server/fairs/http';
+import { fairIdParam, orPageError } from '$lib/server/booth/http';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

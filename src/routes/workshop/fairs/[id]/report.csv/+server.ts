@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { fairCsv, fairReport } from '$lib/server/fairs/report';
-import { fairIdParam, orPageError } from '$lib/server/fairs/http';
+import { fairIdParam, orPageError } from '$lib/server/booth/http';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { fairReport, fairsCompared } from '$lib/server/fairs/report';
-import { fairIdParam, orPageError } from '$lib/server/fairs/http';
+import { fairIdParam, orPageError } from '$lib/server/booth/http';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

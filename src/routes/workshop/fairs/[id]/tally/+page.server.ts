@@ -1,15 +1,15 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { closeFair, fairTally, saveTally } from '$lib/server/fairs/tally';
-import { fairIdParam, orFail, orPageError } from '$lib/server/fairs/http';
+import { closeFair, fairTally, saveTally } from '$lib/server/booth/tally';
+import { fairIdParam, orFail, orPageError } from '$lib/server/booth/http';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
-import { parseTallyFields, tallyDaySchema } from '$lib/server/fairs/tally-input';
-import { closeCheck } from '$lib/server/fairs/close-check';
-import { countCheck, countingDay } from '$lib/cash-up';
-import { today } from '$lib/dates';
-import { formatMoney } from '$lib/money';
-import { formTexts } from '$lib/forms';
+import { parseTallyFields, tallyDaySchema } from '$lib/server/booth/tally-input';
+import { closeCheck } from '$lib/server/booth/close-check';
+import { countCheck, countingDay } from '$lib/booth/cash-up';
+import { today } from '$lib/locale/dates';
+import { formatMoney } from '$lib/locale/money';
+import { formTexts } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

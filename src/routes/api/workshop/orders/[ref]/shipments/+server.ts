@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/api-errors';
+import { apiError, apiInvalid } from '$lib/server/http/api-errors';
 import { OrderNotFoundError, shipOrder, StatusMoveError } from '$lib/server/orders/ship';
-import { shipmentSchema } from '$lib/schemas/shipment';
+import { shipmentSchema } from '$lib/orders/shipment-schema';
 import type { RequestHandler } from './$types';
 
 /** Marks the order shipped with its carrier and tracking number; the buyer gets an e-mail. */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { apiError } from '$lib/server/api-errors';
+import { apiError } from '$lib/server/http/api-errors';
 import { letterFont } from '$lib/pattern/letter-font';
 import { orderLineForTemplate } from '$lib/server/orders/views';
 import { orderLineTemplatePdf } from '$lib/server/pdf/order-template';
