@@ -13,7 +13,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-	const { resetMailTransport } = await import('$lib/server/mail/send');
+	const { resetMailTransport } = await import('$lib/server/mail/smtp');
 	resetMailTransport();
 	await server.close();
 });
