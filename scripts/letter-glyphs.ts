@@ -8,7 +8,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import opentype from 'opentype.js';
 import * as prettier from 'prettier';
-import type { LetterFontData, LetterGlyph } from '../src/lib/pattern/letter-font';
+import type { LetterFontData, LetterGlyph } from '../src/lib/pattern/letter-font-data';
 import type { PathCommand } from '../src/lib/pattern/lettering';
 import { ROOT } from './lib/paths';
 

@@ -8,8 +8,6 @@ import type { GlyphSource, PathCommand } from './lettering';
 import { LETTERS } from './fonts/letters.generated';
 import type { LetterFontData } from './letter-font-data';
 
-export type { LetterFontData, LetterGlyph } from './letter-font-data';
-
 const ARGS = { M: 2, L: 2, Q: 4, C: 6, Z: 0 } as const;
 
 /** One path string back into commands (only the explicit form the generator writes). */

@@ -3,7 +3,6 @@ import { esc } from './html';
 import { deliverMail } from './smtp';
 import type { OutgoingMail } from './message';
 
-export type { OutgoingMail } from './message';
 import { shopWords } from '$lib/locale/shop-format';
 
 /**
