@@ -128,7 +128,7 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 
 		await tx.insert(schema.shippingRates).values(DEMO_SHIPPING_RATES);
 		await tx.insert(schema.settings).values([
-			{ key: 'salesTax', value: { rateBp: 0 } },
+			{ key: 'salesTax', value: { rateBp: 0, basis: 'item' } },
 			{ key: 'shopName', value: 'Chipstall' }
 		]);
 

@@ -6,7 +6,7 @@
 import * as schema from '../../src/lib/server/db/schema';
 import { priceLines } from '../../src/lib/server/cart/pricing';
 import { personalise } from '../../src/lib/server/catalogue/personalise';
-import { getSalesTaxBp } from '../../src/lib/server/settings/sales-tax';
+import { getSalesTax } from '../../src/lib/server/settings/sales-tax';
 import { getCarvingSchedule } from '../../src/lib/server/queue/carving-queue';
 import { addDays } from '../../src/lib/locale/dates';
 import { WOODS, densityAt12 } from '../../src/lib/catalogue/woods';
@@ -53,12 +53,13 @@ export async function seedOrders(
 	now: Date,
 	{ pieceIds, woodIds, userIds }: DemoSeedResult
 ) {
-	const rateBp = await getSalesTaxBp(tx);
+	const { rateBp, basis: taxBasis } = await getSalesTax(tx);
 	const schedule = await getCarvingSchedule(tx);
 	for (const o of DEMO_ORDERS) {
 		const created = daysFromNow(-o.daysAgo, now);
 		const priced = priceLines(o.lines.map(cartLine), {
 			rateBp,
+			taxBasis,
 			schedule,
 			rates: DEMO_SHIPPING_RATES,
 			country: o.address.country

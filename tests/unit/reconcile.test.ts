@@ -9,8 +9,6 @@ import {
 	netPerHour,
 	priceSale,
 	reconcile,
-	taxAdded,
-	taxIncluded,
 	type TallyInput
 } from '$lib/booth/reconcile';
 
@@ -44,16 +42,19 @@ describe('sales tax on one sale', () => {
 		expect(p.totalMinor).toBe(3180);
 	});
 
-	it('rounds half a cent up, and just under half a cent down (the stated rule)', () => {
-		// 10.00 × 6.25 % = 0.625 → 0.63; 2.00 × 7.25 % = 0.145 → 0.15 (half-up, common practice).
-		expect(taxAdded(1000, 625)).toBe(63);
-		expect(taxAdded(200, 725)).toBe(15);
-		// 1.99 × 7.25 % = 0.144275 → 0.14.
-		expect(taxAdded(199, 725)).toBe(14);
-		// Inclusive: 0.04 at 60 % holds a net of 0.025 → 0.03 (half-up), so 0.01 tax.
-		expect(taxIncluded(4, 6000)).toBe(1);
-		// 0.03 at 60 % holds a net of 0.01875 → 0.02, so 0.01 tax.
-		expect(taxIncluded(3, 6000)).toBe(1);
+	it('rounds the sale’s tax once, half-up (SSUTA §324; more in tax.test.ts)', () => {
+		// 1.00 + 1.00 (two pieces) at 7.25 %: once on 2.00 = 0.145 → 0.15, not 0.07 + 0.07.
+		expect(
+			priceSale(
+				[
+					{ unitMinor: 100, quantity: 1 },
+					{ unitMinor: 100, quantity: 1 }
+				],
+				0,
+				725,
+				false
+			).taxMinor
+		).toBe(15);
 	});
 
 	it('refuses a discount larger than the sale or negative', () => {

@@ -2,28 +2,13 @@
  * The booth's arithmetic, pure and in integer minor units: pricing one sale (discount, sales tax
  * added to or held inside the price) and the end-of-fair tally (stock, cash, card, tax, net).
  *
- * Rounding rule: sales tax is worked out once per sale, on the sale's amount after discount,
- * and rounded half-up to the minor unit (half a cent goes up). The fair's tax due is the sum of
- * those per-sale amounts.
+ * Sales tax is worked out once per sale (invoice basis), on the sale's amount after discount, by
+ * `saleTax` in `$lib/tax/sales-tax` (the rule and its half-up rounding live there). The fair's tax
+ * due is the sum of those per-sale amounts.
  */
+import { mulDivHalfUp, saleTax } from '../tax/sales-tax';
 
 export type SaleMethod = 'cash' | 'card' | 'other';
-
-/** a·b / c rounded half-up, for non-negative whole numbers. */
-export function mulDivHalfUp(a: number, b: number, c: number): number {
-	if (a < 0 || b < 0 || c <= 0) throw new Error('mulDivHalfUp takes non-negative numbers');
-	return Math.floor((2 * a * b + c) / (2 * c));
-}
-
-/** Tax on an amount the tax is added to (price tags before tax). */
-export function taxAdded(amountMinor: number, rateBp: number): number {
-	return mulDivHalfUp(amountMinor, rateBp, 10_000);
-}
-
-/** Tax held inside an amount whose price tags already include it. */
-export function taxIncluded(amountMinor: number, rateBp: number): number {
-	return amountMinor - mulDivHalfUp(amountMinor, 10_000, 10_000 + rateBp);
-}
 
 /** Largest discount allowed on a subtotal under a limit in basis points (rounded down). */
 export function maxDiscount(subtotalMinor: number, limitBp: number): number {
@@ -53,24 +38,7 @@ export function priceSale(
 		throw new Error('Discount must be between nothing and the whole sale');
 	}
 	const after = subtotal - discountMinor;
-	if (pricesIncludeTax) {
-		const tax = taxIncluded(after, rateBp);
-		return {
-			subtotalMinor: subtotal,
-			discountMinor,
-			taxableMinor: after - tax,
-			taxMinor: tax,
-			totalMinor: after
-		};
-	}
-	const tax = taxAdded(after, rateBp);
-	return {
-		subtotalMinor: subtotal,
-		discountMinor,
-		taxableMinor: after,
-		taxMinor: tax,
-		totalMinor: after + tax
-	};
+	return { subtotalMinor: subtotal, discountMinor, ...saleTax(after, rateBp, pricesIncludeTax) };
 }
 
 /** Change due for cash tendered; null when the buyer handed over too little. */

@@ -4,6 +4,7 @@
  * of one sale "the same".
  */
 import { isoDay } from '$lib/locale/dates';
+import { mulDivHalfUp } from '$lib/tax/sales-tax';
 
 /**
  * How far outside the fair's days a sale may be dated and still be taken. Fair days are stored
@@ -99,5 +100,5 @@ export function percentOff(subtotalMinor: number, percentText: string): number |
 	if (!m) return null;
 	const bp = Number(m[1]) * 100 + Number((m[2] ?? '').padEnd(2, '0'));
 	if (bp > 10_000) return null;
-	return Math.floor((2 * subtotalMinor * bp + 10_000) / 20_000);
+	return mulDivHalfUp(subtotalMinor, bp, 10_000);
 }

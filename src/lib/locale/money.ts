@@ -1,8 +1,9 @@
 /**
- * Money as integer minor units plus an ISO 4217 currency code. No floats ever hold an amount:
- * the only division is the tax rate, and it is rounded once per line (half-up, see `lineTax`).
- * This is the one place that knows a currency's decimals and the shop's way of writing amounts
- * (its locale and currency, from `$lib/locale/shop-format`): nothing else divides by 100 or names a code.
+ * Money as integer minor units plus an ISO 4217 currency code. No floats ever hold an amount.
+ * Writing and reading amounts only (sales tax is worked out in `$lib/tax/sales-tax`). This is
+ * the one place that knows a currency's decimals and the shop's way of writing amounts (its
+ * locale and currency, from `$lib/locale/shop-format`): nothing else divides by 100 or names a
+ * code.
  */
 import { shopFormat } from './shop-format';
 
@@ -118,45 +119,4 @@ export function formatRate(bp: number, locale: string = shopFormat().locale): st
 		minimumFractionDigits: 0,
 		maximumFractionDigits: 2
 	}).format(bp / 10_000);
-}
-
-/** Line total: unit price × quantity, exact in minor units. */
-export function lineTotal(unitMinor: number, quantity: number): number {
-	assertMinor(unitMinor);
-	if (!Number.isInteger(quantity) || quantity < 0)
-		throw new Error('Quantity must be a whole number');
-	return unitMinor * quantity;
-}
-
-/**
- * Sales tax on one line, rounded once on the line total (not per unit), half-up
- * (half a minor unit goes up). The rate is in basis points: 7.25 % → 725.
- * Integer arithmetic: floor((amount·bp + 5000) / 10000) is half-up for non-negative amounts.
- */
-export function lineTax(lineMinor: number, rateBp: number): number {
-	assertMinor(lineMinor);
-	if (!Number.isInteger(rateBp) || rateBp < 0)
-		throw new Error('Tax rate must be whole basis points');
-	if (lineMinor < 0) throw new Error('Line total cannot be negative');
-	return Math.floor((lineMinor * rateBp + 5000) / 10000);
-}
-
-export type PricedLine = { unitMinor: number; quantity: number };
-
-/** Totals for a set of lines: tax rounded per line, then summed; shipping is not taxed here. */
-export function totals(lines: PricedLine[], rateBp: number, shippingMinor: number) {
-	let subtotal = 0;
-	let tax = 0;
-	for (const l of lines) {
-		const t = lineTotal(l.unitMinor, l.quantity);
-		subtotal += t;
-		tax += lineTax(t, rateBp);
-	}
-	assertMinor(shippingMinor);
-	return {
-		subtotalMinor: subtotal,
-		taxMinor: tax,
-		shippingMinor,
-		totalMinor: subtotal + tax + shippingMinor
-	};
 }

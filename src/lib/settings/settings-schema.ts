@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { ZONES } from '$lib/orders/shipping';
 import { priceMinor } from '../catalogue/piece-schema';
 import { isTimeZone } from '$lib/locale/dates';
-import { MINOR_DIGITS } from '$lib/locale/money';
+import { MINOR_DIGITS, parsePercent } from '$lib/locale/money';
+import { DEFAULT_TAX_BASIS, TAX_BASES } from '$lib/tax/sales-tax';
 
 const line = (label: string, maxLen = 120) =>
 	z.string().trim().min(1, `${label} is needed.`).max(maxLen);
@@ -63,6 +64,34 @@ export const rateLine = z.object({
 	priceMinor
 });
 export type RateLine = z.infer<typeof rateLine>;
+
+/**
+ * A sales-tax rate typed as a percentage with up to two decimals, read as basis points
+ * ("7.25" → 725, "7,25" too where the shop writes a decimal comma, "0" for none).
+ */
+export const percentBp = z
+	.string({ error: 'Type a percentage like 7.25, or 0 for none.' })
+	.trim()
+	.regex(/^\d{1,2}([.,]\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
+	.transform((s) => parsePercent(s) ?? -1)
+	.pipe(
+		z.number().int().min(0).max(2500, 'That is higher than any sales tax we know of; check it.')
+	);
+
+/** Settings → Sales tax on online orders: the rate as typed and how it is worked out. */
+export const salesTaxForm = z.object({
+	rate: percentBp,
+	basis: z.enum(TAX_BASES, {
+		error: 'Choose whether tax is worked out on each line or once on the whole order.'
+	})
+});
+
+/** The online sales tax as stored; a value saved before the basis existed reads as per line. */
+export const salesTaxSetting = z.object({
+	rateBp: z.number().int().min(0).max(2500),
+	basis: z.enum(TAX_BASES).catch(DEFAULT_TAX_BASIS)
+});
+export type SalesTaxSetting = z.infer<typeof salesTaxSetting>;
 
 /** The shop's clock, language and currency (see `$lib/locale/shop-format`). */
 export const shopFormat = z.object({

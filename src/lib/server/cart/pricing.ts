@@ -1,17 +1,19 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { cartLines, pieces, shippingRates, stock, woods, WORKSHOP } from '../db/schema';
-import { getSalesTaxBp } from '../settings/sales-tax';
+import { getSalesTax } from '../settings/sales-tax';
 import { getCarvingSchedule } from '../queue/carving-queue';
 import { surchargeMinor, type CarvingSchedule } from '$lib/queue/carving-queue';
 import { standardMinutes } from '$lib/queue/layout-minutes';
-import { lineTax, lineTotal, shopCurrency } from '$lib/locale/money';
+import { shopCurrency } from '$lib/locale/money';
+import { lineTotal, onlineTax, type TaxBasis } from '$lib/tax/sales-tax';
 import { shippingCharge, zoneFor, type RateRow } from '$lib/orders/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
 import { snapshotRefusal } from '../catalogue/personalise';
 
 /**
- * Prices a cart from the database alone: unit prices, per-line tax, shipping by destination.
+ * Prices a cart from the database alone: unit prices, sales tax (the shop's rate and basis),
+ * shipping by destination.
  * Used for the cart page and again, inside the order transaction, at checkout — so nothing the
  * browser says about money is ever used.
  */
@@ -54,11 +56,11 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 	const onHand = (pieceId: number, woodId: number) =>
 		stockRows.find((s) => s.pieceId === pieceId && s.woodId === woodId)?.quantity ?? 0;
 
-	const rateBp = await getSalesTaxBp(conn);
+	const { rateBp, basis: taxBasis } = await getSalesTax(conn);
 	const schedule = await getCarvingSchedule(conn);
 	const rates = await conn.select().from(shippingRates);
 	const currency = rows[0]?.currency ?? shopCurrency();
-	const priced = priceLines(rows, { rateBp, schedule, rates, country });
+	const priced = priceLines(rows, { rateBp, taxBasis, schedule, rates, country });
 
 	const problems: { lineId: number; message: string }[] = [];
 	const lines = priced.lines.map((l) => {
@@ -92,6 +94,7 @@ export async function priceCart(cartId: string, country: string, conn: Db | Tx =
 		zone: zoneFor(country),
 		billableGrams: priced.billableGrams,
 		rateBp,
+		taxBasis,
 		subtotalMinor: priced.subtotalMinor,
 		taxMinor: priced.taxMinor,
 		shippingMinor: priced.shippingMinor,
@@ -119,13 +122,19 @@ export type LineToPrice = {
 
 /**
  * The shop's arithmetic for a set of lines, with no database: unit price (base, wood add-on and
- * the owner's optional carving surcharge), line total, sales tax per line (half-up, see
- * lineTax), shipping by billable weight to the destination, and the totals. The cart, checkout
+ * the owner's optional carving surcharge), line total, sales tax by the shop's basis (per line or
+ * once on the whole, `onlineTax`), shipping by billable weight to the destination, and the totals. The cart, checkout
  * and the demo seed all price through here.
  */
 export function priceLines<L extends LineToPrice>(
 	rows: L[],
-	ctx: { rateBp: number; schedule: CarvingSchedule; rates: RateRow[]; country: string }
+	ctx: {
+		rateBp: number;
+		taxBasis: TaxBasis;
+		schedule: CarvingSchedule;
+		rates: RateRow[];
+		country: string;
+	}
 ) {
 	const lines = rows.map((r) => {
 		const personalisation = r.personalisation ?? null;
@@ -145,7 +154,6 @@ export function priceLines<L extends LineToPrice>(
 			personalisation,
 			unitMinor,
 			totalMinor,
-			taxMinor: lineTax(totalMinor, ctx.rateBp),
 			// Personalised pieces are carved to order; plain ones come from finished stock.
 			fromStock: !personalisation
 		};
@@ -160,7 +168,11 @@ export function priceLines<L extends LineToPrice>(
 		}))
 	);
 	const subtotalMinor = lines.reduce((n, l) => n + l.totalMinor, 0);
-	const taxMinor = lines.reduce((n, l) => n + l.taxMinor, 0);
+	const taxMinor = onlineTax(
+		lines.map((l) => l.totalMinor),
+		ctx.rateBp,
+		ctx.taxBasis
+	);
 	const shippingMinor = ship.priceMinor ?? 0;
 	return {
 		lines,

@@ -1,7 +1,6 @@
 import { fail } from '@sveltejs/kit';
-import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { getSalesTaxBp, setSalesTaxBp } from '$lib/server/settings/sales-tax';
+import { getSalesTax, setSalesTax } from '$lib/server/settings/sales-tax';
 import {
 	getAway,
 	getPolicies,
@@ -15,13 +14,14 @@ import {
 	setShopWords
 } from '$lib/server/settings/shop-settings';
 import { formatClock, timeZoneNames } from '$lib/locale/dates';
-import { MINOR_DIGITS, parsePercent } from '$lib/locale/money';
+import { MINOR_DIGITS } from '$lib/locale/money';
 import { readShippingRates, replaceShippingRates } from '$lib/server/catalogue/shipping-rates';
 import {
 	away,
 	LOCALES,
 	policies,
 	rateLine,
+	salesTaxForm,
 	shopFormat,
 	shopInfo,
 	shopWords
@@ -31,24 +31,12 @@ import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm } from '$lib/forms/parse-form';
 
-/** The rate as typed, in percent with up to two decimals (7.25 → 725 basis points). */
-const taxSchema = z.object({
-	rate: z
-		.string()
-		.trim()
-		.regex(/^\d{1,2}([.,]\d{1,2})?$/, 'Type a percentage like 7.25, or 0 for none.')
-		.transform((s) => parsePercent(s) ?? -1)
-		.pipe(
-			z.number().int().min(0).max(2500, 'That is higher than any sales tax we know of; check it.')
-		)
-});
-
 const ADDRESS_KEYS = ['name', 'line1', 'line2', 'city', 'region', 'postcode', 'country'];
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'owner');
-	const [rateBp, shop, awayNow, policy, rates, format, words] = await Promise.all([
-		getSalesTaxBp(),
+	const [salesTax, shop, awayNow, policy, rates, format, words] = await Promise.all([
+		getSalesTax(),
 		getShopInfo(),
 		getAway(),
 		getPolicies(),
@@ -58,7 +46,7 @@ export const load: PageServerLoad = async (event) => {
 	]);
 	const now = new Date();
 	return {
-		rateBp,
+		salesTax,
 		shop,
 		away: awayNow,
 		policies: policy,
@@ -75,9 +63,9 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	tax: async (event) => {
 		requireRole(event, 'owner');
-		const parsed = await parseForm(event.request, taxSchema);
+		const parsed = await parseForm(event.request, salesTaxForm, { extra: { section: 'tax' } });
 		if (!parsed.ok) return parsed.failure;
-		await setSalesTaxBp(parsed.data.rate);
+		await setSalesTax({ rateBp: parsed.data.rate, basis: parsed.data.basis });
 		return { saved: 'tax' };
 	},
 	shop: async (event) => {
