@@ -112,6 +112,18 @@ export type FairPiece = Awaited<ReturnType<typeof fairPieces>>[number];
  * Reads the fair's open/closed state under a shared lock (MariaDB spells it LOCK IN SHARE MODE):
  * many sales may hold it at once, while a close (FOR UPDATE) waits for them and they for it.
  */
+/**
+ * The fair a stock change at `fair:<id>` goes to, under the same shared lock as the booth's
+ * (the fair cannot close under the change); null when there is no such fair. Handed to
+ * `adjustPieceStock`.
+ */
+export async function fairForStock(tx: Tx, fairId: number) {
+	return fairStateShared(tx, fairId).catch((err: unknown) => {
+		if (err instanceof FairError) return null;
+		throw err;
+	});
+}
+
 export async function fairStateShared(tx: Tx, fairId: number) {
 	const [rows] = (await tx.execute(
 		sql`select name, closed_at as closedAt, sales_tax_bp as salesTaxBp, prices_include_tax as pricesIncludeTax, currency from fairs where id = ${fairId} lock in share mode`

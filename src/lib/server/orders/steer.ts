@@ -10,7 +10,7 @@ import { db } from '../db';
 import { transact } from '../db/retry';
 import { orders } from '../db/schema';
 import { recomputeReadyBy } from '../queue/carving-queue';
-import { releaseInTx } from '../stock/holds';
+import { releaseInTx } from './holds';
 import { refundOrder } from './refunds';
 import { OrderNotFoundError } from './ship';
 import { moveOrder, needsCarving, StatusMoveError } from './status';
