@@ -10,7 +10,7 @@ import { startMailServer } from '../../mocks/mail/server';
 import { actions, load } from '../../src/routes/workshop/+page.server';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { deliverMail, resetMailTransport } from '$lib/server/mail/send';
+import { deliverMail, resetMailTransport } from '$lib/server/mail/transport';
 import {
 	drainOutbox,
 	enqueueMail,

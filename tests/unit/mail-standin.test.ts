@@ -13,7 +13,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-	const { resetMailTransport } = await import('$lib/server/mail/send');
+	const { resetMailTransport } = await import('$lib/server/mail/transport');
 	resetMailTransport();
 	await server.close();
 });

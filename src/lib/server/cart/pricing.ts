@@ -6,7 +6,7 @@ import { getCarvingSchedule } from '../queue/carving-queue';
 import { surchargeMinor, type CarvingSchedule } from '$lib/queue/carving-queue';
 import { standardMinutes } from '$lib/queue/layout-minutes';
 import { lineTax, lineTotal, shopCurrency } from '$lib/locale/money';
-import { shippingCharge, zoneFor, type RateRow } from '$lib/orders/shipping';
+import { shippingCharge, zoneFor, type RateRow } from '$lib/catalogue/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
 import { snapshotRefusal } from '../catalogue/personalise';
 

@@ -5,10 +5,10 @@
 import { asc } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { shippingRates } from '../db/schema';
-import type { RateRow } from '$lib/orders/shipping';
+import type { RateRow } from '$lib/catalogue/shipping';
 import { withRetry } from '../db/retry';
 
-/** Every band, by zone then weight: the input `shippingCharge` in $lib/orders/shipping expects. */
+/** Every band, by zone then weight: the input `shippingCharge` in $lib/catalogue/shipping expects. */
 export async function readShippingRates(conn: Db | Tx = db): Promise<RateRow[]> {
 	return conn
 		.select({

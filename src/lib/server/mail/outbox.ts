@@ -4,6 +4,7 @@ import { db, type Tx } from '../db';
 import { outbox } from '../db/schema';
 import { config } from '../config';
 import type { OutgoingMail } from './message';
+import { deliverMail } from './transport';
 
 /**
  * The outbox: every message is written to MariaDB before the SMTP server is asked to take it,
@@ -97,7 +98,6 @@ export function queueMail(tx: Tx, mail: OutgoingMail): Promise<number> {
  */
 export async function sendQueued(ids: number[]): Promise<void> {
 	if (ids.length === 0) return;
-	const { deliverMail } = await import('./send');
 	for (const id of ids) {
 		try {
 			await sendNow(id, deliverMail);
@@ -295,8 +295,7 @@ export function startOutboxDrainer() {
 	const timer = setInterval(() => {
 		if (running) return;
 		running = true;
-		void import('./send')
-			.then(({ deliverMail }) => drainOutbox(deliverMail))
+		void drainOutbox(deliverMail)
 			.catch((err) => console.error('Sending queued mail failed', err))
 			.finally(() => (running = false));
 	}, config.mail.outboxEveryMs);

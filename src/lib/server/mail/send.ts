@@ -1,35 +1,10 @@
-import nodemailer, { type Transporter } from 'nodemailer';
-import { config } from '../config';
 import { enqueueMail, sendNow } from './outbox';
+import { deliverMail } from './transport';
 import { esc } from './html';
 import type { OutgoingMail } from './message';
 
 export type { OutgoingMail } from './message';
 import { shopWords } from '$lib/locale/shop-format';
-
-let transport: Transporter | undefined;
-
-/** One SMTP transport per process, made on first use so tests can set the env first. */
-export function mailTransport(): Transporter {
-	transport ??= nodemailer.createTransport({
-		host: config.mail.host,
-		port: config.mail.port,
-		secure: config.mail.secure,
-		// Only authenticate when a user is configured; the local stand-in needs none.
-		auth: config.mail.user ? { user: config.mail.user, pass: config.mail.password } : undefined,
-		// Bounded, so an outbox lease (LEASE_SECONDS, 30 s) always outlives one attempt.
-		connectionTimeout: 5_000,
-		greetingTimeout: 5_000,
-		socketTimeout: 15_000
-	});
-	return transport;
-}
-
-/** Hands one message to the SMTP server; resolves with its message id. */
-export async function deliverMail(mail: OutgoingMail): Promise<string> {
-	const info = await mailTransport().sendMail({ from: config.mail.from, ...mail });
-	return info.messageId;
-}
 
 /**
  * Sends one message from the shop's address. It is written to the outbox first and sent at
@@ -62,10 +37,4 @@ export function withSignOff(mail: OutgoingMail, signOff = shopWords().signOff): 
 			: `${mail.html}${para}`
 		: undefined;
 	return { ...mail, text: `${mail.text.trimEnd()}\n\n${line}\n`, ...(html ? { html } : {}) };
-}
-
-/** Drops the cached transport (tests that change SMTP settings between runs). */
-export function resetMailTransport() {
-	transport?.close();
-	transport = undefined;
 }
