@@ -1,6 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { db, type Db, type Tx } from '../db';
+import { transact } from '../db/retry';
 import { settings, users } from '../db/schema';
 import { queueMail } from '../mail/outbox';
 import { recomputeReadyBy } from '../queue/carving-queue';
@@ -18,7 +19,7 @@ export async function alertHelperIds(conn: Db | Tx = db): Promise<string[]> {
 }
 
 export async function setAlertOptIn(userId: string, on: boolean) {
-	await db.transaction(async (tx) => {
+	await transact(async (tx) => {
 		const [row] = await tx.select().from(settings).where(eq(settings.key, KEY)).for('update');
 		const parsed = row ? helperIds.safeParse(row.value) : null;
 		const now = new Set(parsed?.success ? parsed.data : []);

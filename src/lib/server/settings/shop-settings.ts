@@ -6,7 +6,7 @@
 import { isoDay, today as todayIso } from '$lib/locale/dates';
 import { and, eq, gt, isNull, ne } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
-import { withRetry } from '../db/retry';
+import { transact } from '../db/retry';
 import { fairs, pieces, settings, type Address } from '../db/schema';
 import {
 	away as awaySchema,
@@ -104,25 +104,23 @@ export async function freshShopProfile(now = Date.now()) {
 }
 
 export async function setShopFormat(v: ShopFormat) {
-	await withRetry(() =>
-		db.transaction(async (tx) => {
-			await tx
-				.insert(settings)
-				.values({ key: 'format', value: v })
-				.onDuplicateKeyUpdate({ set: { value: v } });
-			await tx.update(pieces).set({ currency: v.currency }).where(ne(pieces.currency, v.currency));
-			await tx
-				.update(fairs)
-				.set({ currency: v.currency })
-				.where(
-					and(
-						ne(fairs.currency, v.currency),
-						isNull(fairs.closedAt),
-						gt(fairs.startsOn, isoDay(new Date(), v.timeZone))
-					)
-				);
-		})
-	);
+	await transact(async (tx) => {
+		await tx
+			.insert(settings)
+			.values({ key: 'format', value: v })
+			.onDuplicateKeyUpdate({ set: { value: v } });
+		await tx.update(pieces).set({ currency: v.currency }).where(ne(pieces.currency, v.currency));
+		await tx
+			.update(fairs)
+			.set({ currency: v.currency })
+			.where(
+				and(
+					ne(fairs.currency, v.currency),
+					isNull(fairs.closedAt),
+					gt(fairs.startsOn, isoDay(new Date(), v.timeZone))
+				)
+			);
+	});
 	useShopFormat(v);
 }
 export async function setShopWords(v: ShopWords) {
