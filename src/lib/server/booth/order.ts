@@ -13,7 +13,7 @@ import {
 import { isDuplicateKey, transact } from '../db/retry';
 import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
 import { boothOrderSigners, queueBoothOrderLetters } from '../orders/booth-mail';
-import { afterOrderPaid } from '../orders/paid-alert';
+import { replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/fairs/schemas';
@@ -148,7 +148,7 @@ export async function placeBoothOrder(
 		throw err;
 	}
 	await sendQueued(placed.mails);
-	await afterOrderPaid(placed.id);
+	await replanQueue();
 	return {
 		status: 'accepted' as const,
 		ref: placed.ref,

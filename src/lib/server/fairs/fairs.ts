@@ -5,6 +5,7 @@ import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import type { FairForm } from '$lib/fairs/schemas';
 import { fairPlace } from '../stock/adjust';
+import { replanQueue } from '../queue/carving-queue';
 import { FairError } from '../booth/errors';
 
 export type Fair = typeof fairs.$inferSelect;
@@ -39,6 +40,8 @@ export async function createFair(f: FairForm): Promise<number> {
 		.insert(fairs)
 		.values({ ...fairValues(f), currency: shopCurrency() })
 		.$returningId();
+	// Fair days are days off for the carving queue.
+	await replanQueue();
 	return id;
 }
 
@@ -47,6 +50,7 @@ export async function updateFair(id: number, f: FairForm) {
 	if (fair.closedAt)
 		throw new FairError('This fair is closed; its figures can no longer change.', 409);
 	await db.update(fairs).set(fairValues(f)).where(eq(fairs.id, id));
+	if (fair.startsOn !== f.startsOn || fair.endsOn !== f.endsOn) await replanQueue();
 }
 
 export async function listFairs() {

@@ -4,7 +4,6 @@ import { db, type Db, type Tx } from '../db';
 import { transact } from '../db/retry';
 import { settings, users } from '../db/schema';
 import { queueMail } from '../mail/outbox';
-import { recomputeReadyBy } from '../queue/carving-queue';
 import { mailOrder } from './mail-order';
 import { newOrderAlertMail } from './shipping-mail';
 
@@ -54,16 +53,4 @@ export async function queueNewOrderAlert(tx: Tx, orderId: number, origin: string
 	const to = await alertRecipients(tx);
 	if (to.length === 0) return [];
 	return [await queueMail(tx, { to, ...newOrderAlertMail(order, origin, order.promisedBy) })];
-}
-
-/**
- * After a payment is recorded: the queue changed, so every queued order's ready-by date is worked
- * out again. It may not undo or fail the payment.
- */
-export async function afterOrderPaid(orderId: number) {
-	try {
-		await recomputeReadyBy();
-	} catch (err) {
-		console.error('ready-by recompute failed', orderId, err);
-	}
 }

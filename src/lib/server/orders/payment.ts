@@ -24,8 +24,8 @@ import { heldLines, releaseInTx, releaseOrder } from './holds';
 import { moveOrder } from './status';
 import { queueConfirmation, queuePieceGone, queueReplacedPaid } from './mail';
 import { orderById, orderByRef } from './views';
-import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
-import { promiseReadyBy } from '../queue/carving-queue';
+import { queueNewOrderAlert } from './paid-alert';
+import { promiseReadyBy, replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import {
 	handleRefundEvent,
@@ -341,7 +341,8 @@ async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<
 		await refundWhole(outcome.orderId, outcome.paymentIntentId, why);
 		return { handled: true, changed: true, outcome: why };
 	}
-	await afterOrderPaid(outcome.orderId);
+	// The queue changed: every queued order's plan again (never failing the payment).
+	await replanQueue();
 	return { handled: true, changed: true, outcome: 'paid' };
 }
 
@@ -367,6 +368,8 @@ async function onRefundEvent(event: Stripe.Event): Promise<EventResult> {
 		if (!(await firstTime(tx, event))) return false;
 		return handleRefundEvent(e, tx);
 	});
+	// Refunded in full, an order leaves the carving queue.
+	if (changed) await replanQueue();
 	return { handled: true, changed };
 }
 
