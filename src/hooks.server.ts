@@ -7,7 +7,7 @@ import {
 	validateToken
 } from '$lib/server/auth/lucia';
 import { toApiErrorResponse } from '$lib/server/http/api-errors';
-import { startHoldSweeper } from '$lib/server/stock/holds';
+import { startHoldSweeper } from '$lib/server/orders/holds';
 import { startCheckoutDetailsSweeper } from '$lib/server/cart/checkout-details';
 import { startOutboxDrainer } from '$lib/server/mail/outbox';
 import { addressHandle } from '$lib/server/http/address';

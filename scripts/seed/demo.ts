@@ -12,6 +12,8 @@ import { drizzle } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { hashPassword } from '../../src/lib/server/auth/password';
 import * as schema from '../../src/lib/server/db/schema';
+import { WORKSHOP } from '../../src/lib/server/db/schema';
+import { adjustStock } from '../../src/lib/server/stock/adjust';
 import { WOODS, densityAt12 } from '../../src/lib/catalogue/woods';
 import { DEMO_ACCOUNTS } from './data/accounts';
 import { DEMO_PIECES, DEMO_SHIPPING_RATES } from './data/pieces';
@@ -113,16 +115,16 @@ export async function seedDemo(db: SeedDb, now = new Date()): Promise<boolean> {
 			await tx
 				.insert(schema.pieceWoods)
 				.values(p.woods.map((w) => ({ pieceId: id, woodId: woodIds[w] })));
-			const shelf = Object.entries(p.stock);
-			if (shelf.length) {
-				await tx.insert(schema.stock).values(
-					shelf.map(([w, quantity]) => ({
-						pieceId: id,
-						woodId: woodIds[w],
-						place: 'workshop',
-						quantity
-					}))
-				);
+			// The opening count goes through adjustStock, as every stock change does.
+			for (const [w, quantity] of Object.entries(p.stock)) {
+				if (quantity === 0) continue;
+				await adjustStock(tx, {
+					pieceId: id,
+					woodId: woodIds[w],
+					place: WORKSHOP,
+					delta: quantity,
+					reason: 'Opening count'
+				});
 			}
 		}
 

@@ -9,7 +9,7 @@ import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, OrderError } from '$lib/server/orders/place';
-import { releaseExpiredHolds, releaseOrder } from '$lib/server/stock/holds';
+import { releaseExpiredHolds, releaseOrder } from '$lib/server/orders/holds';
 import { handlePaymentEvent } from '$lib/server/orders/payment';
 import type { Stripe } from '$lib/server/orders/stripe';
 

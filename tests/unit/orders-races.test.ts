@@ -13,7 +13,7 @@ import * as s from '$lib/server/db/schema';
 import { config } from '$lib/server/config';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
-import { releaseExpiredHolds } from '$lib/server/stock/holds';
+import { releaseExpiredHolds } from '$lib/server/orders/holds';
 import { moveOrder, orderHistoryOf, StatusMoveError } from '$lib/server/orders/status';
 import { stripe } from '$lib/server/orders/stripe';
 import { orderStatuses, nextStatuses } from '$lib/orders/status';

@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { checkRegion, findRegion, regionsFor } from '$lib/locale/regions';
 import { checkoutSchema } from '$lib/cart/checkout-schema';
-import { COUNTRIES } from '$lib/orders/shipping';
+import { COUNTRIES } from '$lib/locale/countries';
 
 const address = {
 	name: 'Ada Linden',

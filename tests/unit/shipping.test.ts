@@ -9,7 +9,7 @@ import {
 	rateFor,
 	woodGrams,
 	zoneFor
-} from '$lib/orders/shipping';
+} from '$lib/catalogue/shipping';
 
 describe('weight from the Wood Handbook density', () => {
 	// Wood Handbook (FPL-GTR-190, Table 5-3a; FPL-GTR-282, Table 5-3b): specific gravity at 12 % MC;

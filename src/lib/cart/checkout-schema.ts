@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { emailAddress } from '../forms/email';
-import { COUNTRIES } from '$lib/orders/shipping';
+import { COUNTRIES } from '$lib/locale/countries';
 import { plain } from '../forms/plain-text';
 import { checkRegion } from '$lib/locale/regions';
 

@@ -1,5 +1,5 @@
 import { iso31662 } from 'iso-3166/2.js';
-import { COUNTRIES } from '../orders/shipping';
+import { COUNTRIES } from './countries';
 
 /**
  * States, provinces and other subdivisions of the countries we post to, from ISO 3166-2 (the

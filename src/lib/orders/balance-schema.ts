@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { balanceMethods } from '$lib/server/db/schema';
+import { balanceMethods } from './balance';
 
 /** The owner records the rest of a deposit order as paid, and how. */
 export const balanceSchema = z.object({

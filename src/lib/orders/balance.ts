@@ -3,6 +3,10 @@
  * An online order is paid in full at checkout; an order taken at a fair is paid in two parts:
  * the deposit at the booth, the balance before it ships.
  */
+/** How the rest of a deposit order was paid (at a fair, by post, at the door). */
+export const balanceMethods = ['cash', 'card', 'transfer', 'other'] as const;
+export type BalanceMethod = (typeof balanceMethods)[number];
+
 export type BalanceFacts = {
 	totalMinor: number;
 	depositMinor: number | null;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ZONES } from '$lib/orders/shipping';
+import { ZONES } from '$lib/catalogue/shipping';
 import { priceMinor } from '../catalogue/piece-schema';
 import { isTimeZone } from '$lib/locale/dates';
 import { MINOR_DIGITS, parsePercent } from '$lib/locale/money';

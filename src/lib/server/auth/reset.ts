@@ -1,5 +1,6 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '../db';
+import { transact } from '../db/retry';
 import { confirmEmail } from './guest-orders';
 import { passwordResets, sessions, users } from '../db/schema';
 import { hashPassword } from './password';
@@ -56,7 +57,7 @@ export async function completeReset(
 	now = new Date()
 ): Promise<{ ok: true; userId: string } | { ok: false; state: Exclude<ResetState, 'valid'> }> {
 	const passwordHash = await hashPassword(newPassword);
-	return db.transaction(async (tx) => {
+	return transact(async (tx) => {
 		const [row] = await tx
 			.select({
 				userId: passwordResets.userId,

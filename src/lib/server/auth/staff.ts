@@ -1,5 +1,6 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { db } from '../db';
+import { transact } from '../db/retry';
 import { sessions, users } from '../db/schema';
 import { createAccount, findUserByEmail, type AccountUser } from './users';
 
@@ -59,7 +60,7 @@ export async function removeHelper(actorId: string, userId: string): Promise<Sta
 	if (actorId === userId) {
 		return { ok: false, field: 'userId', message: 'You cannot remove yourself.' };
 	}
-	return db.transaction(async (tx) => {
+	return transact(async (tx) => {
 		const [user] = await tx
 			.select({ id: users.id, email: users.email, name: users.name, role: users.role })
 			.from(users)

@@ -10,10 +10,10 @@ import {
 	woods,
 	type Role
 } from '../db/schema';
-import { isDuplicateKey, withRetry } from '../db/retry';
+import { isDuplicateKey, transact } from '../db/retry';
 import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
 import { boothOrderSigners, queueBoothOrderLetters } from '../orders/booth-mail';
-import { afterOrderPaid } from '../orders/paid-alert';
+import { replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/fairs/schemas';
@@ -89,55 +89,53 @@ export async function placeBoothOrder(
 		mails: number[];
 	};
 	try {
-		placed = await withRetry(() =>
-			db.transaction(async (tx) => {
-				const fair = await fairStateShared(tx, fairId);
-				const verdict = lateVerdict(at, fair.closedAt);
-				if (verdict === 'after close')
-					throw new FairError(`${fair.name} was closed before this order was taken.`);
-				const now = new Date();
-				// The booth entry goes in first: a resend waits on its key, then fails as a duplicate.
-				await tx.insert(boothSales).values({
-					id: o.id,
-					fairId,
-					kind: 'deposit',
-					method: o.method,
-					lines: [],
-					subtotalMinor: o.depositMinor,
-					totalMinor: o.depositMinor,
-					soldAt: at,
-					receivedAt: now,
-					recordedBy: seller.id,
-					contentHash: hash,
-					late: verdict === 'late'
-				});
-				const order = await placeOrderFromBooth(tx, {
-					piece: row.piece,
-					wood: row.wood,
-					initials: o.initials,
-					buyer: {
-						name: o.name,
-						email: o.email,
-						address: {
-							line1: o.line1,
-							city: o.city,
-							...(o.region ? { region: o.region } : {}),
-							postcode: o.postcode,
-							country: o.country
-						}
-					},
-					fair,
-					depositMinor: o.depositMinor,
-					delivery: o.delivery,
-					rates,
-					takenBy: seller.id,
-					now
-				});
-				await tx.update(boothSales).set({ orderId: order.id }).where(eq(boothSales.id, o.id));
-				const mails = await queueBoothOrderLetters(tx, order.id, fair.name, who, now, origin);
-				return { ...order, late: verdict === 'late', mails };
-			})
-		);
+		placed = await transact(async (tx) => {
+			const fair = await fairStateShared(tx, fairId);
+			const verdict = lateVerdict(at, fair.closedAt);
+			if (verdict === 'after close')
+				throw new FairError(`${fair.name} was closed before this order was taken.`);
+			const now = new Date();
+			// The booth entry goes in first: a resend waits on its key, then fails as a duplicate.
+			await tx.insert(boothSales).values({
+				id: o.id,
+				fairId,
+				kind: 'deposit',
+				method: o.method,
+				lines: [],
+				subtotalMinor: o.depositMinor,
+				totalMinor: o.depositMinor,
+				soldAt: at,
+				receivedAt: now,
+				recordedBy: seller.id,
+				contentHash: hash,
+				late: verdict === 'late'
+			});
+			const order = await placeOrderFromBooth(tx, {
+				piece: row.piece,
+				wood: row.wood,
+				initials: o.initials,
+				buyer: {
+					name: o.name,
+					email: o.email,
+					address: {
+						line1: o.line1,
+						city: o.city,
+						...(o.region ? { region: o.region } : {}),
+						postcode: o.postcode,
+						country: o.country
+					}
+				},
+				fair,
+				depositMinor: o.depositMinor,
+				delivery: o.delivery,
+				rates,
+				takenBy: seller.id,
+				now
+			});
+			await tx.update(boothSales).set({ orderId: order.id }).where(eq(boothSales.id, o.id));
+			const mails = await queueBoothOrderLetters(tx, order.id, fair.name, who, now, origin);
+			return { ...order, late: verdict === 'late', mails };
+		});
 	} catch (err) {
 		if (err instanceof OrderError) throw new FairError(err.message, 400);
 		if (isDuplicateKey(err)) {
@@ -150,7 +148,7 @@ export async function placeBoothOrder(
 		throw err;
 	}
 	await sendQueued(placed.mails);
-	await afterOrderPaid(placed.id);
+	await replanQueue();
 	return {
 		status: 'accepted' as const,
 		ref: placed.ref,

@@ -3,7 +3,7 @@ import { formatMoney, formatRate } from '$lib/locale/money';
 import { and, eq, inArray } from 'drizzle-orm';
 import { db, type Tx } from '../db';
 import { boothSales, fairStock, type Role } from '../db/schema';
-import { isDuplicateKey, withRetry } from '../db/retry';
+import { isDuplicateKey, transact } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { boothSaleSchema, type BoothSale } from '$lib/fairs/schemas';
 import { maxDiscount, priceSale } from '$lib/booth/reconcile';
@@ -153,7 +153,7 @@ export async function syncSales(
 			continue;
 		}
 		try {
-			const late = await withRetry(() => storeSale(fairId, sale, priced, seller));
+			const late = await storeSale(fairId, sale, priced, seller);
 			answer.accepted.push(sale.id);
 			if (late) answer.late.push(sale.id);
 			if (sale.receiptEmail) await sendReceipt(sale.id);
@@ -180,7 +180,7 @@ type Priced = Exclude<ReturnType<typeof priceEntry>, { error: string }>;
 
 /** Returns true when the sale arrived after the close (late). */
 async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Seller) {
-	return db.transaction(async (tx) => {
+	return transact(async (tx) => {
 		// Shares the fair row with other sales but waits for a close in progress (and vice versa).
 		const fair = await fairStateShared(tx, fairId);
 		const verdict = lateVerdict(p.at, fair.closedAt);

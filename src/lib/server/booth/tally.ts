@@ -1,7 +1,7 @@
 import { and, desc, eq, gt, inArray } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { boothSales, fairs, fairStock, stock, tallies, tallyCounts } from '../db/schema';
-import { withRetry } from '../db/retry';
+import { transact } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
 import { reconcile, tallyEntries } from '$lib/booth/reconcile';
 import { countingDay, fairDays, wholeFairCounted } from '$lib/booth/cash-up';
@@ -163,81 +163,77 @@ export async function saveTally(
 	c: TallyCounts,
 	user: { id: string; role: string }
 ): Promise<{ status: 'saved' | 'duplicate'; day: string }> {
-	return withRetry(() =>
-		db.transaction(async (tx) => {
-			const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-			if (!fair) throw new FairError('There is no such fair.', 404);
-			if (fair.closedAt)
-				throw new FairError('This fair is closed; its tally can no longer change.', 409);
-			const days = fairDays(fair.startsOn, fair.endsOn);
-			const day = c.day ?? countingDay(days, todayIso());
-			if (!days.includes(day)) throw new FairError('That day is not one of the fair’s days.');
-			const [prev] = await tx
-				.select()
-				.from(tallies)
-				.where(and(eq(tallies.fairId, fairId), eq(tallies.day, day)))
-				.for('update');
-			if (prev && c.saveId && prev.lastSaveId === c.saveId) return { status: 'duplicate', day };
-			if (prev && user.role !== 'owner' && prev.counts >= 2)
-				throw new FairError(
-					'This day was counted and counted again; the owner can correct it now.',
-					409
-				);
-			const lines = await tx
-				.select({ id: fairStock.id })
-				.from(fairStock)
-				.where(eq(fairStock.fairId, fairId));
-			const ids = new Set(lines.map((l) => l.id));
-			for (const id of Object.keys(c.counts))
-				if (!ids.has(Number(id)))
-					throw new FairError('A counted piece is not on this fair’s load-out.');
-			const values = {
-				cashCountedMinor: c.cashCountedMinor ?? prev?.cashCountedMinor ?? null,
-				cashPaidOutMinor: c.cashPaidOutMinor ?? prev?.cashPaidOutMinor ?? 0,
-				cardReportedMinor:
-					c.cardReportedMinor === undefined
-						? (prev?.cardReportedMinor ?? null)
-						: c.cardReportedMinor,
-				createdBy: user.id,
-				lastSaveId: c.saveId ?? null
-			};
-			let tallyId: number;
-			if (prev) {
-				tallyId = prev.id;
+	return transact(async (tx) => {
+		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
+		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (fair.closedAt)
+			throw new FairError('This fair is closed; its tally can no longer change.', 409);
+		const days = fairDays(fair.startsOn, fair.endsOn);
+		const day = c.day ?? countingDay(days, todayIso());
+		if (!days.includes(day)) throw new FairError('That day is not one of the fair’s days.');
+		const [prev] = await tx
+			.select()
+			.from(tallies)
+			.where(and(eq(tallies.fairId, fairId), eq(tallies.day, day)))
+			.for('update');
+		if (prev && c.saveId && prev.lastSaveId === c.saveId) return { status: 'duplicate', day };
+		if (prev && user.role !== 'owner' && prev.counts >= 2)
+			throw new FairError(
+				'This day was counted and counted again; the owner can correct it now.',
+				409
+			);
+		const lines = await tx
+			.select({ id: fairStock.id })
+			.from(fairStock)
+			.where(eq(fairStock.fairId, fairId));
+		const ids = new Set(lines.map((l) => l.id));
+		for (const id of Object.keys(c.counts))
+			if (!ids.has(Number(id)))
+				throw new FairError('A counted piece is not on this fair’s load-out.');
+		const values = {
+			cashCountedMinor: c.cashCountedMinor ?? prev?.cashCountedMinor ?? null,
+			cashPaidOutMinor: c.cashPaidOutMinor ?? prev?.cashPaidOutMinor ?? 0,
+			cardReportedMinor:
+				c.cardReportedMinor === undefined ? (prev?.cardReportedMinor ?? null) : c.cardReportedMinor,
+			createdBy: user.id,
+			lastSaveId: c.saveId ?? null
+		};
+		let tallyId: number;
+		if (prev) {
+			tallyId = prev.id;
+			await tx
+				.update(tallies)
+				.set({
+					...values,
+					counts: prev.counts + 1,
+					// Keep what was counted first, so a recount never hides the first figure.
+					firstCashCountedMinor: prev.firstCashCountedMinor ?? prev.cashCountedMinor
+				})
+				.where(eq(tallies.id, prev.id));
+		} else {
+			[{ id: tallyId }] = await tx
+				.insert(tallies)
+				.values({ ...values, fairId, day, createdAt: new Date() })
+				.$returningId();
+		}
+		const later = await tx
+			.select({ day: tallies.day })
+			.from(tallies)
+			.where(and(eq(tallies.fairId, fairId), gt(tallies.day, day)));
+		for (const [id, n] of Object.entries(c.counts)) {
+			await tx
+				.insert(tallyCounts)
+				.values({ tallyId, fairStockId: Number(id), counted: n })
+				.onDuplicateKeyUpdate({ set: { counted: n } });
+			// The latest day's count is what goes back to the workshop at the close.
+			if (later.length === 0)
 				await tx
-					.update(tallies)
-					.set({
-						...values,
-						counts: prev.counts + 1,
-						// Keep what was counted first, so a recount never hides the first figure.
-						firstCashCountedMinor: prev.firstCashCountedMinor ?? prev.cashCountedMinor
-					})
-					.where(eq(tallies.id, prev.id));
-			} else {
-				[{ id: tallyId }] = await tx
-					.insert(tallies)
-					.values({ ...values, fairId, day, createdAt: new Date() })
-					.$returningId();
-			}
-			const later = await tx
-				.select({ day: tallies.day })
-				.from(tallies)
-				.where(and(eq(tallies.fairId, fairId), gt(tallies.day, day)));
-			for (const [id, n] of Object.entries(c.counts)) {
-				await tx
-					.insert(tallyCounts)
-					.values({ tallyId, fairStockId: Number(id), counted: n })
-					.onDuplicateKeyUpdate({ set: { counted: n } });
-				// The latest day's count is what goes back to the workshop at the close.
-				if (later.length === 0)
-					await tx
-						.update(fairStock)
-						.set({ countedBack: n })
-						.where(eq(fairStock.id, Number(id)));
-			}
-			return { status: 'saved', day };
-		})
-	);
+					.update(fairStock)
+					.set({ countedBack: n })
+					.where(eq(fairStock.id, Number(id)));
+		}
+		return { status: 'saved', day };
+	});
 }
 
 /**
@@ -246,52 +242,49 @@ export async function saveTally(
  * the fair's stock ends at zero. A second close finds `closed_at` set under the lock and stops.
  */
 export async function closeFair(fairId: number, userId: string): Promise<Fair> {
-	return withRetry(() =>
-		db.transaction(async (tx) => {
-			const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-			if (!fair) throw new FairError('There is no such fair.', 404);
-			if (fair.closedAt)
-				throw new FairError('This fair is already closed; its pieces went back then.', 409);
-			const lines = await tx
-				.select()
-				.from(fairStock)
-				.where(eq(fairStock.fairId, fairId))
-				.orderBy(fairStock.pieceId, fairStock.woodId);
-			const place = fairPlace(fairId);
-			for (const l of lines) {
-				const [row] = await tx
-					.select({ quantity: stock.quantity })
-					.from(stock)
-					.where(
-						and(eq(stock.pieceId, l.pieceId), eq(stock.woodId, l.woodId), eq(stock.place, place))
-					);
-				const onHand = row?.quantity ?? 0;
-				const back = Math.max(l.countedBack ?? onHand, 0);
-				const base = { pieceId: l.pieceId, woodId: l.woodId, userId, allowNegative: true };
-				if (back > 0) {
-					await adjustStock(tx, { ...base, place, delta: -back, reason: `Back from ${fair.name}` });
-					await adjustStock(tx, {
-						...base,
-						place: 'workshop',
-						delta: back,
-						reason: `Back from ${fair.name}`
-					});
-				}
-				const gap = onHand - back;
-				if (gap !== 0) {
-					await adjustStock(tx, {
-						...base,
-						place,
-						delta: -gap,
-						reason:
-							gap > 0 ? `Missing at the ${fair.name} tally` : `Found at the ${fair.name} tally`
-					});
-				}
-				await tx.update(fairStock).set({ returned: back }).where(eq(fairStock.id, l.id));
+	return transact(async (tx) => {
+		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
+		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (fair.closedAt)
+			throw new FairError('This fair is already closed; its pieces went back then.', 409);
+		const lines = await tx
+			.select()
+			.from(fairStock)
+			.where(eq(fairStock.fairId, fairId))
+			.orderBy(fairStock.pieceId, fairStock.woodId);
+		const place = fairPlace(fairId);
+		for (const l of lines) {
+			const [row] = await tx
+				.select({ quantity: stock.quantity })
+				.from(stock)
+				.where(
+					and(eq(stock.pieceId, l.pieceId), eq(stock.woodId, l.woodId), eq(stock.place, place))
+				);
+			const onHand = row?.quantity ?? 0;
+			const back = Math.max(l.countedBack ?? onHand, 0);
+			const base = { pieceId: l.pieceId, woodId: l.woodId, userId, allowNegative: true };
+			if (back > 0) {
+				await adjustStock(tx, { ...base, place, delta: -back, reason: `Back from ${fair.name}` });
+				await adjustStock(tx, {
+					...base,
+					place: 'workshop',
+					delta: back,
+					reason: `Back from ${fair.name}`
+				});
 			}
-			const closedAt = new Date();
-			await tx.update(fairs).set({ closedAt }).where(eq(fairs.id, fairId));
-			return { ...fair, closedAt };
-		})
-	);
+			const gap = onHand - back;
+			if (gap !== 0) {
+				await adjustStock(tx, {
+					...base,
+					place,
+					delta: -gap,
+					reason: gap > 0 ? `Missing at the ${fair.name} tally` : `Found at the ${fair.name} tally`
+				});
+			}
+			await tx.update(fairStock).set({ returned: back }).where(eq(fairStock.id, l.id));
+		}
+		const closedAt = new Date();
+		await tx.update(fairs).set({ closedAt }).where(eq(fairs.id, fairId));
+		return { ...fair, closedAt };
+	});
 }

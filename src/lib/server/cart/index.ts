@@ -13,7 +13,7 @@ import {
 import { priceCart } from './pricing';
 import { stockOnHand } from '../stock/holds';
 import { personalise, previewSvg, snapshotRefusal } from '../catalogue/personalise';
-import { HOME_COUNTRY } from '$lib/orders/shipping';
+import { HOME_COUNTRY } from '$lib/catalogue/shipping';
 import { basketReadyBy, carvedMinutes, readyByNow } from '../queue/carving-queue';
 import { BASKET_LIFETIME_MS } from './checkout-details';
 

@@ -7,7 +7,7 @@ import { surchargeMinor, type CarvingSchedule } from '$lib/queue/carving-queue';
 import { standardMinutes } from '$lib/queue/layout-minutes';
 import { shopCurrency } from '$lib/locale/money';
 import { lineTotal, onlineTax, type TaxBasis } from '$lib/tax/sales-tax';
-import { shippingCharge, zoneFor, type RateRow } from '$lib/orders/shipping';
+import { shippingCharge, zoneFor, type RateRow } from '$lib/catalogue/shipping';
 import type { Personalisation, PiecePattern } from '$lib/pattern/snapshot';
 import { snapshotRefusal } from '../catalogue/personalise';
 

@@ -5,6 +5,7 @@
 import { randomBytes } from 'node:crypto';
 import { and, asc, eq, max } from 'drizzle-orm';
 import { db } from '../db';
+import { transact } from '../db/retry';
 import { photos, pieces } from '../db/schema';
 import { deletePrefix, storePhoto } from './photo-storage';
 
@@ -69,7 +70,7 @@ export async function setPhotoAlt(pieceId: number, photoId: number, alt: string)
 
 /** Moves a photo one place earlier or later; positions are rewritten 0…n-1 in one transaction. */
 export async function movePhoto(pieceId: number, photoId: number, by: -1 | 1) {
-	await db.transaction(async (tx) => {
+	await transact(async (tx) => {
 		const list = await tx
 			.select({ id: photos.id })
 			.from(photos)

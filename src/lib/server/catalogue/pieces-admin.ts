@@ -9,7 +9,7 @@ import { db } from '../db';
 import { photos, pieces, pieceWoods, woods } from '../db/schema';
 import type { PieceForm } from '$lib/catalogue/piece-schema';
 import type { PiecePattern } from '../db/schema';
-import { isDuplicateKey, withRetry } from '../db/retry';
+import { isDuplicateKey, transact } from '../db/retry';
 
 export class SlugTaken extends Error {}
 
@@ -100,7 +100,7 @@ function columns(f: PieceForm) {
 /** MariaDB's duplicate-key error (1062) on the slug becomes a message for the slug field. */
 async function slugSafe<T>(run: () => Promise<T>): Promise<T> {
 	try {
-		return await withRetry(run);
+		return await run();
 	} catch (err) {
 		if (isDuplicateKey(err)) throw new SlugTaken('Another piece already uses this address.');
 		throw err;
@@ -110,7 +110,7 @@ async function slugSafe<T>(run: () => Promise<T>): Promise<T> {
 /** Piece and its woods in one transaction. Returns the new id. */
 export async function createPiece(f: PieceForm): Promise<number> {
 	return slugSafe(() =>
-		db.transaction(async (tx) => {
+		transact(async (tx) => {
 			const [{ id }] = await tx
 				.insert(pieces)
 				.values({ ...columns(f), currency: shopCurrency(), createdAt: new Date() })
@@ -124,7 +124,7 @@ export async function createPiece(f: PieceForm): Promise<number> {
 /** Rewrites the piece and its wood list together; false when the piece is gone. */
 export async function updatePiece(id: number, f: PieceForm): Promise<boolean> {
 	return slugSafe(() =>
-		db.transaction(async (tx) => {
+		transact(async (tx) => {
 			const [row] = await tx
 				.select({ id: pieces.id })
 				.from(pieces)

@@ -5,10 +5,10 @@
 import { asc } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { shippingRates } from '../db/schema';
-import type { RateRow } from '$lib/orders/shipping';
-import { withRetry } from '../db/retry';
+import type { RateRow } from '$lib/catalogue/shipping';
+import { transact } from '../db/retry';
 
-/** Every band, by zone then weight: the input `shippingCharge` in $lib/orders/shipping expects. */
+/** Every band, by zone then weight: the input `shippingCharge` in $lib/catalogue/shipping expects. */
 export async function readShippingRates(conn: Db | Tx = db): Promise<RateRow[]> {
 	return conn
 		.select({
@@ -22,10 +22,8 @@ export async function readShippingRates(conn: Db | Tx = db): Promise<RateRow[]> 
 
 /** Replaces the whole table at once, so a checkout never sees half the new bands. */
 export async function replaceShippingRates(rows: RateRow[]) {
-	await withRetry(() =>
-		db.transaction(async (tx) => {
-			await tx.delete(shippingRates);
-			if (rows.length) await tx.insert(shippingRates).values(rows);
-		})
-	);
+	await transact(async (tx) => {
+		await tx.delete(shippingRates);
+		if (rows.length) await tx.insert(shippingRates).values(rows);
+	});
 }

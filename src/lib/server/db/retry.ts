@@ -23,7 +23,7 @@ export function isDuplicateKey(err: unknown): boolean {
  * victim or a lock wait times out. `run` must be one whole transaction, which was rolled back,
  * so running it again is safe.
  */
-export async function withRetry<T>(run: () => Promise<T>, attempts = 5): Promise<T> {
+async function withRetry<T>(run: () => Promise<T>, attempts = 5): Promise<T> {
 	for (let i = 1; ; i++) {
 		try {
 			return await run();

@@ -15,6 +15,7 @@ import {
 } from 'drizzle-orm/mysql-core';
 import { json } from './json';
 import { orderStatuses, type OrderStatus } from '$lib/orders/status';
+import { balanceMethods } from '$lib/orders/balance';
 import { pieceKinds } from '$lib/catalogue/kinds';
 import type { Personalisation, PiecePattern } from '../../pattern/snapshot';
 
@@ -218,10 +219,6 @@ export type Address = {
 	postcode: string;
 	country: string;
 };
-
-/** How the rest of a deposit order was paid (at a fair, by post, at the door). */
-export const balanceMethods = ['cash', 'card', 'transfer', 'other'] as const;
-export type BalanceMethod = (typeof balanceMethods)[number];
 
 export const orders = mysqlTable(
 	'orders',

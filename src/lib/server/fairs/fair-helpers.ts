@@ -1,7 +1,7 @@
 import { and, asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairHelpers, users } from '../db/schema';
-import { withRetry } from '../db/retry';
+import { transact } from '../db/retry';
 import { FairError } from '../booth/errors';
 import { getFair } from './fairs';
 
@@ -58,21 +58,19 @@ export async function setFairHelpers(fairId: number, userIds: string[]) {
 	if (fair.closedAt)
 		throw new FairError('This fair is closed; who sold there stays as it was.', 409);
 	const wanted = [...new Set(userIds)];
-	await withRetry(() =>
-		db.transaction(async (tx) => {
-			const helpers = await tx
-				.select({ id: users.id })
-				.from(users)
-				.where(eq(users.role, 'helper'))
-				.for('update');
-			const known = new Set(helpers.map((h) => h.id));
-			const unknown = wanted.filter((id) => !known.has(id));
-			if (unknown.length) throw new FairError('Only helper accounts can sell at a fair.');
-			await tx.delete(fairHelpers).where(eq(fairHelpers.fairId, fairId));
-			if (wanted.length)
-				await tx
-					.insert(fairHelpers)
-					.values(wanted.map((userId) => ({ fairId, userId, addedAt: new Date() })));
-		})
-	);
+	await transact(async (tx) => {
+		const helpers = await tx
+			.select({ id: users.id })
+			.from(users)
+			.where(eq(users.role, 'helper'))
+			.for('update');
+		const known = new Set(helpers.map((h) => h.id));
+		const unknown = wanted.filter((id) => !known.has(id));
+		if (unknown.length) throw new FairError('Only helper accounts can sell at a fair.');
+		await tx.delete(fairHelpers).where(eq(fairHelpers.fairId, fairId));
+		if (wanted.length)
+			await tx
+				.insert(fairHelpers)
+				.values(wanted.map((userId) => ({ fairId, userId, addedAt: new Date() })));
+	});
 }

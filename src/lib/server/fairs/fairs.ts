@@ -5,6 +5,7 @@ import { db, type Db, type Tx } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import type { FairForm } from '$lib/fairs/schemas';
 import { fairPlace } from '../stock/adjust';
+import { replanQueue } from '../queue/carving-queue';
 import { FairError } from '../booth/errors';
 
 export type Fair = typeof fairs.$inferSelect;
@@ -39,6 +40,8 @@ export async function createFair(f: FairForm): Promise<number> {
 		.insert(fairs)
 		.values({ ...fairValues(f), currency: shopCurrency() })
 		.$returningId();
+	// Fair days are days off for the carving queue.
+	await replanQueue();
 	return id;
 }
 
@@ -47,6 +50,7 @@ export async function updateFair(id: number, f: FairForm) {
 	if (fair.closedAt)
 		throw new FairError('This fair is closed; its figures can no longer change.', 409);
 	await db.update(fairs).set(fairValues(f)).where(eq(fairs.id, id));
+	if (fair.startsOn !== f.startsOn || fair.endsOn !== f.endsOn) await replanQueue();
 }
 
 export async function listFairs() {
@@ -112,6 +116,18 @@ export type FairPiece = Awaited<ReturnType<typeof fairPieces>>[number];
  * Reads the fair's open/closed state under a shared lock (MariaDB spells it LOCK IN SHARE MODE):
  * many sales may hold it at once, while a close (FOR UPDATE) waits for them and they for it.
  */
+/**
+ * The fair a stock change at `fair:<id>` goes to, under the same shared lock as the booth's
+ * (the fair cannot close under the change); null when there is no such fair. Handed to
+ * `adjustPieceStock`.
+ */
+export async function fairForStock(tx: Tx, fairId: number) {
+	return fairStateShared(tx, fairId).catch((err: unknown) => {
+		if (err instanceof FairError) return null;
+		throw err;
+	});
+}
+
 export async function fairStateShared(tx: Tx, fairId: number) {
 	const [rows] = (await tx.execute(
 		sql`select name, closed_at as closedAt, sales_tax_bp as salesTaxBp, prices_include_tax as pricesIncludeTax, currency from fairs where id = ${fairId} lock in share mode`

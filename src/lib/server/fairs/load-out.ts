@@ -1,7 +1,7 @@
 import { and, asc, eq, gt } from 'drizzle-orm';
 import { db } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
-import { withRetry } from '../db/retry';
+import { transact } from '../db/retry';
 import { adjustStock, fairPlace, StockError } from '../stock/adjust';
 import { FairError } from '../booth/errors';
 
@@ -33,53 +33,51 @@ export async function loadOut(
 	userId: string
 ) {
 	if (lines.length === 0) throw new FairError('Choose at least one piece to take.');
-	await withRetry(() =>
-		db.transaction(async (tx) => {
-			const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-			if (!fair) throw new FairError('There is no such fair.', 404);
-			if (fair.closedAt)
-				throw new FairError('This fair is closed; nothing more can be loaded out.', 409);
-			// Lock in a fixed order so two load-outs at once cannot deadlock each other.
-			const sorted = [...lines].sort((a, b) => a.pieceId - b.pieceId || a.woodId - b.woodId);
-			for (const l of sorted) {
-				const reason = `Loaded out to ${fair.name}`.slice(0, 160);
-				try {
-					await adjustStock(tx, { ...l, place: 'workshop', delta: -l.quantity, reason, userId });
-				} catch (err) {
-					if (err instanceof StockError) {
-						throw new FairError(`Not enough on the workshop shelf: ${err.message}`, 409);
-					}
-					throw err;
+	await transact(async (tx) => {
+		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
+		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (fair.closedAt)
+			throw new FairError('This fair is closed; nothing more can be loaded out.', 409);
+		// Lock in a fixed order so two load-outs at once cannot deadlock each other.
+		const sorted = [...lines].sort((a, b) => a.pieceId - b.pieceId || a.woodId - b.woodId);
+		for (const l of sorted) {
+			const reason = `Loaded out to ${fair.name}`.slice(0, 160);
+			try {
+				await adjustStock(tx, { ...l, place: 'workshop', delta: -l.quantity, reason, userId });
+			} catch (err) {
+				if (err instanceof StockError) {
+					throw new FairError(`Not enough on the workshop shelf: ${err.message}`, 409);
 				}
-				await adjustStock(tx, {
-					...l,
-					place: fairPlace(fairId),
-					delta: l.quantity,
-					reason,
-					userId
-				});
-				const [line] = await tx
-					.select({ id: fairStock.id, loadedOut: fairStock.loadedOut })
-					.from(fairStock)
-					.where(
-						and(
-							eq(fairStock.fairId, fairId),
-							eq(fairStock.pieceId, l.pieceId),
-							eq(fairStock.woodId, l.woodId)
-						)
-					)
-					.for('update');
-				if (line) {
-					await tx
-						.update(fairStock)
-						.set({ loadedOut: line.loadedOut + l.quantity })
-						.where(eq(fairStock.id, line.id));
-				} else {
-					await tx
-						.insert(fairStock)
-						.values({ fairId, pieceId: l.pieceId, woodId: l.woodId, loadedOut: l.quantity });
-				}
+				throw err;
 			}
-		})
-	);
+			await adjustStock(tx, {
+				...l,
+				place: fairPlace(fairId),
+				delta: l.quantity,
+				reason,
+				userId
+			});
+			const [line] = await tx
+				.select({ id: fairStock.id, loadedOut: fairStock.loadedOut })
+				.from(fairStock)
+				.where(
+					and(
+						eq(fairStock.fairId, fairId),
+						eq(fairStock.pieceId, l.pieceId),
+						eq(fairStock.woodId, l.woodId)
+					)
+				)
+				.for('update');
+			if (line) {
+				await tx
+					.update(fairStock)
+					.set({ loadedOut: line.loadedOut + l.quantity })
+					.where(eq(fairStock.id, line.id));
+			} else {
+				await tx
+					.insert(fairStock)
+					.values({ fairId, pieceId: l.pieceId, woodId: l.woodId, loadedOut: l.quantity });
+			}
+		}
+	});
 }

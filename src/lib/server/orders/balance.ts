@@ -4,9 +4,9 @@
  */
 import { eq } from 'drizzle-orm';
 import { formatMoney } from '$lib/locale/money';
-import { orderBalance } from '$lib/orders/balance';
+import { orderBalance, type BalanceMethod } from '$lib/orders/balance';
 import { transact } from '../db/retry';
-import { orderHistory, orders, type BalanceMethod } from '../db/schema';
+import { orderHistory, orders } from '../db/schema';
 import { OrderNotFoundError } from './ship';
 import { StatusMoveError } from './status';
 

@@ -10,7 +10,7 @@ import { orderHistory, orderLines, orders, type Address } from '../db/schema';
 import { personalise } from '../catalogue/personalise';
 import { personalisedPriceMinor } from '$lib/catalogue/personalised-price';
 import { priceSale } from '$lib/booth/reconcile';
-import { shippingCharge, type RateRow } from '$lib/orders/shipping';
+import { shippingCharge, type RateRow } from '$lib/catalogue/shipping';
 import { OrderError, uniqueRef } from './place';
 import type { PiecePattern } from '../db/schema';
 

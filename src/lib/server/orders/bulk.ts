@@ -1,13 +1,15 @@
 import { eq } from 'drizzle-orm';
 import { statusLabel, type OrderStatus } from '$lib/orders/status';
 import { db } from '../db';
+import { transact } from '../db/retry';
 import { orders } from '../db/schema';
-import { recomputeReadyBy } from '../queue/carving-queue';
+import { replanQueue } from '../queue/carving-queue';
 import { moveOrder, StatusMoveError } from './status';
 
 /**
  * Moves several orders to one status, each in its own transaction through the status table, so
- * one order that may not move does not hold back the rest. Says what happened to each.
+ * one order that may not move does not hold back the rest; the carving queue is planned once,
+ * after them all. Says what happened to each.
  */
 export async function moveOrders(refs: string[], to: OrderStatus, userId: string) {
 	const out: { ref: string; ok: boolean; message: string }[] = [];
@@ -18,13 +20,15 @@ export async function moveOrders(refs: string[], to: OrderStatus, userId: string
 			continue;
 		}
 		try {
-			await moveOrder(o.id, to, { userId, why: `Moved with others to ${statusLabel(to)}` });
+			await transact((tx) =>
+				moveOrder(o.id, to, { userId, why: `Moved with others to ${statusLabel(to)}` }, tx)
+			);
 			out.push({ ref, ok: true, message: `Now ${statusLabel(to)}.` });
 		} catch (err) {
 			if (!(err instanceof StatusMoveError)) throw err;
 			out.push({ ref, ok: false, message: err.message });
 		}
 	}
-	if (out.some((r) => r.ok)) await recomputeReadyBy();
+	if (out.some((r) => r.ok)) await replanQueue();
 	return out;
 }

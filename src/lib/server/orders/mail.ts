@@ -1,7 +1,7 @@
 import { carverObject, carverSubject, workshopWords } from '$lib/locale/shop-format';
 import { formatMoney } from '$lib/locale/money';
 import { styleWords } from '$lib/pattern/styles';
-import { countryName } from '$lib/orders/shipping';
+import { countryName } from '$lib/locale/countries';
 import { formatDay } from '$lib/locale/dates';
 import type { Tx } from '../db';
 import { queueMail } from '../mail/outbox';

@@ -1,9 +1,9 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { db, type Db, type Tx } from '../db';
+import { transact } from '../db/retry';
 import { settings, users } from '../db/schema';
 import { queueMail } from '../mail/outbox';
-import { recomputeReadyBy } from '../queue/carving-queue';
 import { mailOrder } from './mail-order';
 import { newOrderAlertMail } from './shipping-mail';
 
@@ -18,7 +18,7 @@ export async function alertHelperIds(conn: Db | Tx = db): Promise<string[]> {
 }
 
 export async function setAlertOptIn(userId: string, on: boolean) {
-	await db.transaction(async (tx) => {
+	await transact(async (tx) => {
 		const [row] = await tx.select().from(settings).where(eq(settings.key, KEY)).for('update');
 		const parsed = row ? helperIds.safeParse(row.value) : null;
 		const now = new Set(parsed?.success ? parsed.data : []);
@@ -53,16 +53,4 @@ export async function queueNewOrderAlert(tx: Tx, orderId: number, origin: string
 	const to = await alertRecipients(tx);
 	if (to.length === 0) return [];
 	return [await queueMail(tx, { to, ...newOrderAlertMail(order, origin, order.promisedBy) })];
-}
-
-/**
- * After a payment is recorded: the queue changed, so every queued order's ready-by date is worked
- * out again. It may not undo or fail the payment.
- */
-export async function afterOrderPaid(orderId: number) {
-	try {
-		await recomputeReadyBy();
-	} catch (err) {
-		console.error('ready-by recompute failed', orderId, err);
-	}
 }

@@ -12,19 +12,20 @@ import { and, eq, gt } from 'drizzle-orm';
 import { formatRate } from '$lib/locale/money';
 import { styleWords } from '$lib/pattern/styles';
 import { z } from 'zod';
-import { countryName } from '$lib/orders/shipping';
+import { countryName } from '$lib/locale/countries';
 import type { Tx } from '../db';
 import { transact } from '../db/retry';
 import { cartLines, orders, processedEvents } from '../db/schema';
 import { stripe, type Stripe } from './stripe';
 import type { PricedCart } from '../cart/pricing';
 import { forgetCheckoutDetails } from '../cart/checkout-details';
-import { heldLines, releaseInTx, releaseOrder, takeStock } from '../stock/holds';
+import { takeStock } from '../stock/holds';
+import { heldLines, releaseInTx, releaseOrder } from './holds';
 import { moveOrder } from './status';
 import { queueConfirmation, queuePieceGone, queueReplacedPaid } from './mail';
 import { orderById, orderByRef } from './views';
-import { afterOrderPaid, queueNewOrderAlert } from './paid-alert';
-import { promiseReadyBy } from '../queue/carving-queue';
+import { queueNewOrderAlert } from './paid-alert';
+import { promiseReadyBy, replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import {
 	handleRefundEvent,
@@ -340,7 +341,8 @@ async function onSessionCompleted(event: Stripe.Event, origin: string): Promise<
 		await refundWhole(outcome.orderId, outcome.paymentIntentId, why);
 		return { handled: true, changed: true, outcome: why };
 	}
-	await afterOrderPaid(outcome.orderId);
+	// The queue changed: every queued order's plan again (never failing the payment).
+	await replanQueue();
 	return { handled: true, changed: true, outcome: 'paid' };
 }
 
@@ -366,6 +368,8 @@ async function onRefundEvent(event: Stripe.Event): Promise<EventResult> {
 		if (!(await firstTime(tx, event))) return false;
 		return handleRefundEvent(e, tx);
 	});
+	// Refunded in full, an order leaves the carving queue.
+	if (changed) await replanQueue();
 	return { handled: true, changed };
 }
 

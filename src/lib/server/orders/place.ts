@@ -14,7 +14,8 @@ import { saveCheckoutDetails } from '../cart/checkout-details';
 import { lockCart } from '../cart/lock';
 import { confirmedAccountFor } from '../auth/guest-orders';
 import type { CheckoutInput } from '$lib/cart/checkout-schema';
-import { releaseExpiredHolds, releaseInTx, releaseOrder, takeStock } from '../stock/holds';
+import { takeStock } from '../stock/holds';
+import { releaseExpiredHolds, releaseInTx, releaseOrder } from './holds';
 import { createCheckoutSession, expireCheckoutSession, sessionState } from './payment';
 import { stripe } from './stripe';
 

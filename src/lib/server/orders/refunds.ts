@@ -24,6 +24,7 @@ import { stripe, type Stripe } from './stripe';
 import { putBackStock } from '../stock/holds';
 import { mailOrder } from './mail-order';
 import { refundMail } from './shipping-mail';
+import { replanQueue } from '../queue/carving-queue';
 import { moveOrder } from './status';
 
 export class RefundError extends Error {
@@ -114,7 +115,12 @@ async function settleTotals(tx: Tx, orderId: number, providerTotal = 0) {
 	return o;
 }
 
-async function moveIfFull(tx: Tx, orderId: number, by: { userId: string | null; why: string }) {
+/** Moves a paid order refunded in full to `refunded`; true when it moved. */
+async function moveIfFull(
+	tx: Tx,
+	orderId: number,
+	by: { userId: string | null; why: string }
+): Promise<boolean> {
 	const [o] = await tx
 		.select({ total: orders.totalMinor, refunded: orders.refundedMinor, status: orders.status })
 		.from(orders)
@@ -128,7 +134,9 @@ async function moveIfFull(tx: Tx, orderId: number, by: { userId: string | null; 
 		(REFUNDABLE as readonly string[]).includes(o.status)
 	) {
 		await moveOrder(orderId, 'refunded', by, tx);
+		return true;
 	}
+	return false;
 }
 
 /** Owner refunds part or all of a paid order. Returns what was refunded and the new totals. */
@@ -170,7 +178,7 @@ export async function refundOrder(
 			.set({ providerRefundId: refund.id, status })
 			.where(eq(orderRefunds.id, r.rowId));
 		const o = await settleTotals(tx, r.orderId);
-		await moveIfFull(tx, r.orderId, {
+		const moved = await moveIfFull(tx, r.orderId, {
 			userId: by.userId,
 			why: `Refunded in full: ${input.reason}`
 		});
@@ -184,9 +192,11 @@ export async function refundOrder(
 				origin
 			)
 		});
-		return { ...o, mail };
+		return { ...o, mail, moved };
 	});
 	await sendQueued([totals.mail]);
+	// Refunded in full, the order leaves the carving queue.
+	if (totals.moved) await replanQueue();
 	return {
 		refundId: refund.id,
 		amountMinor: r.amount,

@@ -1,6 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { inTx } from '../db/retry';
+import { QUEUED_STATUSES, replanQueue } from '../queue/carving-queue';
 import { orderHistory, orderLines, orders } from '../db/schema';
 import { canMove, statusLabel, stepBackTo, type OrderStatus } from '$lib/orders/status';
 import { orderBalance } from '$lib/orders/balance';
@@ -34,7 +35,9 @@ export async function needsCarving(tx: Tx, orderId: number): Promise<boolean> {
  * The one way an order changes status: lock the order row, check the move against the table in
  * `$lib/orders/status`, update it, and write who/when/why to the order's history. Pass `tx` to
  * make the move part of a larger write (the payment event, a refund); without it the move is
- * its own transaction, retried on deadlock. `extra` sets other order columns in the same update.
+ * its own transaction, retried on deadlock, and when the order joins or leaves the carving queue
+ * the queue is planned again after the commit (with `tx`, that is the caller's to do after its
+ * own commit). `extra` sets other order columns in the same update.
  */
 export async function moveOrder(
 	orderId: number,
@@ -44,7 +47,7 @@ export async function moveOrder(
 	extra: Partial<typeof orders.$inferInsert> = {},
 	now = new Date()
 ): Promise<{ from: OrderStatus; to: OrderStatus }> {
-	return inTx(tx, async (t) => {
+	const moved = await inTx(tx, async (t) => {
 		const [order] = await t
 			.select({
 				id: orders.id,
@@ -95,7 +98,11 @@ export async function moveOrder(
 		});
 		return { from, to };
 	});
+	if (!tx && (isQueued(moved.from) || isQueued(moved.to))) await replanQueue();
+	return moved;
 }
+
+const isQueued = (s: OrderStatus) => (QUEUED_STATUSES as readonly string[]).includes(s);
 
 /** An order's history, oldest first. */
 export async function orderHistoryOf(orderId: number, conn: Db | Tx = db) {

@@ -9,8 +9,7 @@ import { canCancel, stepBackTo, statusLabel, type OrderStatus } from '$lib/order
 import { db } from '../db';
 import { transact } from '../db/retry';
 import { orders } from '../db/schema';
-import { recomputeReadyBy } from '../queue/carving-queue';
-import { releaseInTx } from '../stock/holds';
+import { releaseInTx } from './holds';
 import { refundOrder } from './refunds';
 import { OrderNotFoundError } from './ship';
 import { moveOrder, needsCarving, StatusMoveError } from './status';
@@ -70,7 +69,6 @@ export async function cancelOrder(
 		by,
 		origin
 	);
-	await recomputeReadyBy();
 	return { refundedMinor: r.amountMinor };
 }
 
@@ -95,6 +93,5 @@ export async function stepBackOrder(
 		back: true,
 		expect: input.expect
 	});
-	await recomputeReadyBy();
 	return moved;
 }

@@ -19,6 +19,7 @@ import {
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';
 import { db, type Db, type Tx } from '../db';
+import { transact } from '../db/retry';
 import {
 	fairs,
 	orderLines,
@@ -29,7 +30,7 @@ import {
 	type Personalisation
 } from '../db/schema';
 import { snapshotInput } from '$lib/pattern/snapshot';
-import { getAway } from '../settings/shop-settings';
+import { away as awaySchema } from '$lib/settings/settings-schema';
 
 const KEY = 'carvingSchedule';
 const minutes = z
@@ -58,7 +59,17 @@ export async function setCarvingSchedule(s: CarvingSchedule) {
 		.insert(settings)
 		.values({ key: KEY, value: s })
 		.onDuplicateKeyUpdate({ set: { value: s } });
-	await recomputeReadyBy();
+	await replanQueue();
+}
+
+/**
+ * The owner's away date (Settings → Away): days off for the carving queue. Read here, not
+ * through the settings module, because saving it there replans this queue.
+ */
+async function awayUntil(conn: Db | Tx): Promise<string> {
+	const [row] = await conn.select().from(settings).where(eq(settings.key, 'away')).limit(1);
+	const parsed = row ? awaySchema.safeParse(row.value) : null;
+	return parsed?.success ? parsed.data.until : '';
 }
 
 /** Every day of every fair still to come: the carver is at the booth, not the bench. */
@@ -85,6 +96,9 @@ function lineMinutes(
 	return Math.round(r.estimateMinutes);
 }
 
+/** The statuses whose made-to-order lines wait in the carving queue. */
+export const QUEUED_STATUSES = ['carving', 'paid', 'deposit_held'] as const;
+
 export async function queueLines(conn: Db | Tx = db) {
 	const rows = await conn
 		.select({
@@ -109,12 +123,7 @@ export async function queueLines(conn: Db | Tx = db) {
 		.innerJoin(woods, eq(woods.id, orderLines.woodId))
 		// Ready-made lines are packed, not carved: they never join the queue. A gone piece joins
 		// only once the owner puts the order back on the bench (status carving).
-		.where(
-			and(
-				eq(orderLines.fromStock, false),
-				inArray(orders.status, ['carving', 'paid', 'deposit_held'])
-			)
-		)
+		.where(and(eq(orderLines.fromStock, false), inArray(orders.status, [...QUEUED_STATUSES])))
 		.orderBy(
 			sql`case when ${orders.status} = 'carving' then 0 else 1 end`,
 			asc(orders.paidAt),
@@ -148,10 +157,10 @@ export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
 		queueLines(conn),
 		getCarvingSchedule(conn),
 		fairDays(today, conn),
-		getAway(conn)
+		awayUntil(conn)
 	]);
 	// Fair days and the owner's away days are both days with no carving.
-	const daysOff = [...new Set([...fairOff, ...awayDays(today, away.until)])].sort();
+	const daysOff = [...new Set([...fairOff, ...awayDays(today, away)])].sort();
 	const planned = scheduleQueue(
 		lines.map((l) => ({ key: l, minutes: l.minutes })),
 		schedule,
@@ -162,7 +171,7 @@ export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
 		today,
 		schedule,
 		fairDays: fairOff,
-		awayUntil: away.until,
+		awayUntil: away,
 		daysOff,
 		totalMinutes: lines.reduce((s, l) => s + l.minutes, 0),
 		lines: planned.map((p) => ({ ...p.key, carvedOn: p.carvedOn }))
@@ -171,8 +180,8 @@ export async function carvingQueue(now = new Date(), conn: Db | Tx = db) {
 
 /**
  * Gives every order in the queue its ready-by date from its place in it: the day its last line
- * is carved, plus finishing and packing. Run when the queue changes (a payment, a move off the
- * bench, new carving hours, new away dates). Orders of ready-made pieces are left as they are.
+ * is carved, plus finishing and packing. Run by `replanQueue` after anything it depends on
+ * changes. Orders of ready-made pieces are left as they are.
  */
 export async function recomputeReadyBy(now = new Date(), conn: Db | Tx = db) {
 	const q = await carvingQueue(now, conn);
@@ -185,6 +194,20 @@ export async function recomputeReadyBy(now = new Date(), conn: Db | Tx = db) {
 		dated.set(orderId, readyBy);
 	}
 	return dated;
+}
+
+/**
+ * After a change the plan depends on has committed (an order joins, leaves or moves up the
+ * queue, new carving hours, away days or shop clock, a fair added or moved): every queued
+ * order's ready-by date again, in one retried transaction. The domain calls it, never a route.
+ * It never fails the change that called it: a failure is logged and the next change plans again.
+ */
+export async function replanQueue(now = new Date()) {
+	try {
+		await transact((tx) => recomputeReadyBy(now, tx));
+	} catch (err) {
+		console.error('ready-by recompute failed', err);
+	}
 }
 
 /**
@@ -225,7 +248,7 @@ export function carvedMinutes(
 export async function promiseReadyBy(orderId: number, now = new Date(), conn: Db | Tx = db) {
 	// Only this order is dated here, inside the payment's transaction, so the paid e-mail and the
 	// owner's alert written in that transaction state it; the other orders' plans are worked out
-	// again after the commit (afterOrderPaid), so a payment never locks every queued order.
+	// again after the commit (replanQueue), so a payment never locks every queued order.
 	const q = await carvingQueue(now, conn);
 	let readyBy: string | null | undefined;
 	for (const l of q.lines) {

@@ -6,7 +6,8 @@
 import { isoDay, today as todayIso } from '$lib/locale/dates';
 import { and, eq, gt, isNull, ne } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
-import { withRetry } from '../db/retry';
+import { transact } from '../db/retry';
+import { replanQueue } from '../queue/carving-queue';
 import { fairs, pieces, settings, type Address } from '../db/schema';
 import {
 	away as awaySchema,
@@ -104,32 +105,36 @@ export async function freshShopProfile(now = Date.now()) {
 }
 
 export async function setShopFormat(v: ShopFormat) {
-	await withRetry(() =>
-		db.transaction(async (tx) => {
-			await tx
-				.insert(settings)
-				.values({ key: 'format', value: v })
-				.onDuplicateKeyUpdate({ set: { value: v } });
-			await tx.update(pieces).set({ currency: v.currency }).where(ne(pieces.currency, v.currency));
-			await tx
-				.update(fairs)
-				.set({ currency: v.currency })
-				.where(
-					and(
-						ne(fairs.currency, v.currency),
-						isNull(fairs.closedAt),
-						gt(fairs.startsOn, isoDay(new Date(), v.timeZone))
-					)
-				);
-		})
-	);
+	await transact(async (tx) => {
+		await tx
+			.insert(settings)
+			.values({ key: 'format', value: v })
+			.onDuplicateKeyUpdate({ set: { value: v } });
+		await tx.update(pieces).set({ currency: v.currency }).where(ne(pieces.currency, v.currency));
+		await tx
+			.update(fairs)
+			.set({ currency: v.currency })
+			.where(
+				and(
+					ne(fairs.currency, v.currency),
+					isNull(fairs.closedAt),
+					gt(fairs.startsOn, isoDay(new Date(), v.timeZone))
+				)
+			);
+	});
 	useShopFormat(v);
+	// "Today" may now be another day: every queued order's date is worked out again.
+	await replanQueue();
 }
 export async function setShopWords(v: ShopWords) {
 	await write('workshop', v);
 	useShopWords(v);
 }
-export const setAway = (v: Away) => write('away', v);
+/** Away days are days off for the carving queue: every queued order's date moves. */
+export async function setAway(v: Away) {
+	await write('away', v);
+	await replanQueue();
+}
 export const setPolicies = (v: Policies) => write('policies', v);
 
 /** The away notice to show today, or null once the return day has come. */

@@ -4,7 +4,7 @@
  * owner's own changes, which go through `adjustStock` like every other stock move.
  */
 import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
-import { db } from '../db';
+import { db, type Tx } from '../db';
 import { transact } from '../db/retry';
 import {
 	fairs,
@@ -17,8 +17,6 @@ import {
 	WORKSHOP
 } from '../db/schema';
 import { adjustStock, StockError, type StockPlace } from './adjust';
-import { fairStateShared } from '../fairs/fairs';
-import { FairError } from '../booth/errors';
 
 /** A change the owner asked for that cannot be made; `status` is the HTTP answer. */
 export class StockChangeError extends Error {
@@ -107,6 +105,16 @@ export async function pieceStock(pieceId: number, historyLimit = 100) {
 export type PieceStock = Awaited<ReturnType<typeof pieceStock>>;
 
 /**
+ * The fair behind a `fair:<id>` place, read in the caller's transaction and held there so it
+ * cannot close under the change; null when there is no such fair. Handed in by the caller, since
+ * fairs own that rule and stock never imports them.
+ */
+export type FairForStock = (
+	tx: Tx,
+	fairId: number
+) => Promise<{ name: string; closedAt: Date | null } | null>;
+
+/**
  * The owner adds or takes away pieces of one wood at one place, with a reason. The piece must
  * exist, offer that wood (or already hold stock of it, so old stock can be cleared) and the place
  * must be the shelf or a fair that is not closed. The stock row is locked by `adjustStock`, so
@@ -115,7 +123,8 @@ export type PieceStock = Awaited<ReturnType<typeof pieceStock>>;
 export async function adjustPieceStock(
 	pieceId: number,
 	change: { woodId: number; place: StockPlace; delta: number; reason: string },
-	userId: string
+	userId: string,
+	fairForStock: FairForStock
 ) {
 	return transact(async (tx) => {
 		const [piece] = await tx
@@ -143,11 +152,7 @@ export async function adjustPieceStock(
 		const fairId = fairIdOf(change.place);
 		let placeName = 'the workshop';
 		if (fairId !== null) {
-			// A shared lock (the booth's own helper): the fair cannot close under this change.
-			const fair = await fairStateShared(tx, fairId).catch((err: unknown) => {
-				if (err instanceof FairError) return null;
-				throw err;
-			});
+			const fair = await fairForStock(tx, fairId);
 			if (!fair) throw new StockChangeError('There is no such fair.', 400, 'place');
 			if (fair.closedAt)
 				throw new StockChangeError(

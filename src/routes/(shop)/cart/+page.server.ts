@@ -12,7 +12,7 @@ import {
 import { returnUnpaid } from '$lib/server/orders/payment';
 import { destinationSchema, removeLineSchema, setQuantitySchema } from '$lib/cart/cart-schema';
 import { parseForm } from '$lib/forms/parse-form';
-import { COUNTRIES } from '$lib/orders/shipping';
+import { COUNTRIES } from '$lib/locale/countries';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async ({ cookies, url }) => {

@@ -3,7 +3,7 @@ import { cartIdFrom, cartSummary } from '$lib/server/cart';
 import { checkoutDetailsFor } from '$lib/server/cart/checkout-details';
 import { OrderError, placeOrder } from '$lib/server/orders/place';
 import { checkoutSchema } from '$lib/cart/checkout-schema';
-import { COUNTRIES } from '$lib/orders/shipping';
+import { COUNTRIES } from '$lib/locale/countries';
 import { REGION_EXAMPLE, regionsFor } from '$lib/locale/regions';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm } from '$lib/forms/parse-form';

@@ -17,7 +17,7 @@ import {
 	removeLineSchema,
 	setQuantitySchema
 } from '$lib/cart/cart-schema';
-import { COUNTRIES } from '$lib/orders/shipping';
+import { COUNTRIES } from '$lib/locale/countries';
 import { readJsonObject } from '$lib/server/http/body-limit';
 import type { RequestEvent, RequestHandler } from './$types';
 

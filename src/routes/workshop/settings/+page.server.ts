@@ -27,7 +27,6 @@ import {
 	shopWords
 } from '$lib/settings/settings-schema';
 import { parseRateInputs, rateInputs, rateInputsFromForm } from './rates-table';
-import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm } from '$lib/forms/parse-form';
 
@@ -88,8 +87,6 @@ export const actions: Actions = {
 		const parsed = await parseForm(event.request, away, { extra: { section: 'away' } });
 		if (!parsed.ok) return parsed.failure;
 		await setAway(parsed.data);
-		// Away days are days off for the carving queue: every queued order's date moves.
-		await recomputeReadyBy();
 		return { saved: 'away' };
 	},
 	format: async (event) => {
@@ -97,8 +94,6 @@ export const actions: Actions = {
 		const parsed = await parseForm(event.request, shopFormat, { extra: { section: 'format' } });
 		if (!parsed.ok) return parsed.failure;
 		await setShopFormat(parsed.data);
-		// "Today" may now be another day: every queued order's date is worked out again.
-		await recomputeReadyBy();
 		return { saved: 'format' };
 	},
 	words: async (event) => {

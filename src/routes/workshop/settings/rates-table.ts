@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { ZONES, type RateRow, type Zone } from '$lib/orders/shipping';
+import { ZONES, type RateRow, type Zone } from '$lib/catalogue/shipping';
 import type { RateLine } from '$lib/settings/settings-schema';
 import { formText } from '$lib/forms/parse-form';
 import { majorText } from '$lib/locale/money';

@@ -13,7 +13,6 @@ import { recordBalancePaid } from '$lib/server/orders/balance';
 import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
 import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
 import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
-import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import { cancelOrder, stepBackOrder } from '$lib/server/orders/steer';
 import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/queue/workbench';
 import type { Actions, PageServerLoad } from './$types';
@@ -60,7 +59,6 @@ export const actions: Actions = {
 				why: why || `Moved to ${statusLabel(to)}`,
 				expect
 			});
-			await recomputeReadyBy();
 			return { form: 'move', done: `Moved to ${statusLabel(to)}.` };
 		} catch (err) {
 			return refused(err, 'move');

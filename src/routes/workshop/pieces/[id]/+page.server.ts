@@ -17,6 +17,7 @@ import {
 import { photoAlt } from '$lib/catalogue/photo-schema';
 import { stockAdjustForm, stockDelta } from '$lib/stock/stock-schema';
 import { adjustPieceStock, pieceStock, StockChangeError } from '$lib/server/stock/piece-stock';
+import { fairForStock } from '$lib/server/fairs/fairs';
 import { fieldErrors, firstError, formTexts, parseForm } from '$lib/forms/parse-form';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
@@ -112,7 +113,8 @@ export const actions: Actions = {
 			const r = await adjustPieceStock(
 				id,
 				{ woodId, place, reason, delta: stockDelta(parsed.data) },
-				user.id
+				user.id,
+				fairForStock
 			);
 			return { stockSaved: r.quantity };
 		} catch (err) {
