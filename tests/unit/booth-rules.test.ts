@@ -13,7 +13,7 @@ import {
 } from '$lib/booth/rules';
 import { chunkByLimits } from '$lib/booth/chunks';
 import { reconcile, tallyEntries } from '$lib/booth/reconcile';
-import { boothSaleSchema, BOOTH_MAX_BYTES, BOOTH_MAX_SALES } from '$lib/fairs/schemas';
+import { boothSaleSchema, BOOTH_MAX_BYTES, BOOTH_MAX_SALES } from '$lib/booth/sync-message';
 
 const fair = { name: 'Test fair', startsOn: '2026-12-05', endsOn: '2026-12-06' };
 const now = new Date('2026-12-05T15:00:00Z');

@@ -21,6 +21,7 @@ import { moneyReport } from '$lib/server/fairs/money-report';
 import { FairError } from '$lib/server/booth/errors';
 import { getShopInfo } from '$lib/server/settings/shop-settings';
 import { fairFormSchema } from '$lib/fairs/schemas';
+import { syncAnswerSchema } from '$lib/booth/sync-message';
 
 const tag = `bs${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -96,6 +97,8 @@ describe('one id, one sale', () => {
 		);
 		expect(other.duplicate).toEqual([]);
 		expect(other.rejected).toMatchObject([{ id: sale(1).id, conflict: true }]);
+		// The answer is the one message type the phone reads (strict: no field the phone ignores).
+		expect(syncAnswerSchema.strict().parse(other)).toEqual(other);
 		const [row] = await db
 			.select()
 			.from(s.boothSales)

@@ -47,7 +47,19 @@ const order = (id: string): Queued => ({
 	fairId: 7,
 	queuedAt: 2,
 	totalMinor: 4000,
-	payload: { id, depositMinor: 1000, method: 'cash' }
+	payload: {
+		id,
+		at: '2026-12-05T10:05:00Z',
+		pieceSlug: 'rosette',
+		woodSlug: 'basswood',
+		initials: 'AB',
+		name: 'A buyer',
+		email: 'buyer@example.com',
+		country: 'US',
+		delivery: 'collect',
+		depositMinor: 1000,
+		method: 'cash'
+	}
 });
 
 /** A fake server answering every request with the given status, and counting the calls. */

@@ -1,4 +1,5 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import type { DiscardPayload, OrderPayload, SalePayload, VoidPayload } from './sync-message';
 
 /**
  * The booth's outbox in IndexedDB: every sale, booth order, void and discard is written here
@@ -7,17 +8,6 @@ import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
  * entries wait in `refused` for the helper to fix or discard; `recent` keeps what this phone
  * recorded, so a sale can be voided before it was ever sent.
  */
-export type SalePayload = {
-	id: string;
-	at: string;
-	lines: { pieceSlug: string; woodSlug: string; quantity: number }[];
-	discountMinor: number;
-	method: 'cash' | 'card' | 'other';
-	tenderedMinor: number | null;
-	/** A split payment: this much of a cash sale went on the card. */
-	cardPartMinor?: number | null;
-	receiptEmail?: string;
-};
 type Common = {
 	id: string;
 	fairId: number;
@@ -35,17 +25,17 @@ export type QueuedSale = Common & {
 };
 export type QueuedOrder = Common & {
 	kind: 'order';
-	payload: Record<string, unknown> & { id: string; depositMinor: number; method: string };
+	payload: OrderPayload;
 	totalMinor: number;
 };
 export type QueuedVoid = Common & {
 	kind: 'void';
-	payload: { id: string; saleId: string; at: string; reason: string };
+	payload: VoidPayload;
 	totalMinor: number;
 };
 export type QueuedDiscard = Common & {
 	kind: 'discard';
-	payload: { id: string; kind: 'sale' | 'deposit'; summary: string; reason: string };
+	payload: DiscardPayload;
 	totalMinor: number;
 };
 export type Queued = QueuedSale | QueuedOrder | QueuedVoid | QueuedDiscard;

@@ -5,6 +5,7 @@
  */
 import { isoDay } from '$lib/locale/dates';
 import { mulDivHalfUp } from '$lib/tax/sales-tax';
+import type { BoothSale } from './sync-message';
 
 /**
  * How far outside the fair's days a sale may be dated and still be taken. Fair days are stored
@@ -62,14 +63,9 @@ export function voidRefusal(
 	return null;
 }
 
-export type SaleContent = {
-	id: string;
-	at: string;
-	lines: { pieceSlug: string; woodSlug: string; quantity: number }[];
-	discountMinor: number;
+/** What makes a sale that sale: the message's own fields (the method as a word, as stored). */
+export type SaleContent = Omit<BoothSale, 'method' | 'receiptEmail'> & {
 	method: string;
-	tenderedMinor?: number | null;
-	cardPartMinor?: number | null;
 	receiptEmail?: string | null;
 };
 

@@ -1,4 +1,4 @@
-import { BOOTH_CHUNK, BOOTH_CHUNK_BYTES } from '$lib/fairs/schemas';
+import { BOOTH_CHUNK, BOOTH_CHUNK_BYTES, type SyncAnswer } from './sync-message';
 import { chunkByLimits } from './chunks';
 import {
 	refuse,
@@ -61,12 +61,7 @@ export async function sendWaiting(
 			return { ...result, offline: true };
 		}
 		if (!res.ok) return { ...result, stopped: notAllowed(res) ?? (await reason(res)) };
-		const answer = (await res.json()) as {
-			accepted: string[];
-			duplicate: string[];
-			late?: string[];
-			rejected: { id: string | null; error: string; conflict?: boolean }[];
-		};
+		const answer = (await res.json()) as SyncAnswer;
 		await settle([...answer.accepted, ...answer.duplicate]);
 		const byId = new Map<string, Queued>(chunk.map((q) => [q.id, q]));
 		const bad = answer.rejected.flatMap((r) => {
@@ -75,7 +70,7 @@ export async function sendWaiting(
 		});
 		await refuse(bad);
 		result.sent += answer.accepted.length + answer.duplicate.length;
-		result.late += answer.late?.length ?? 0;
+		result.late += answer.late.length;
 		result.refused += bad.length;
 	}
 	const path = { order: 'orders', void: 'voids', discard: 'discards' } as const;

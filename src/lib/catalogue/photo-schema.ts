@@ -12,3 +12,8 @@ export const uploadFields = z.object({
 	pieceId: z.coerce.number({ error: 'Say which piece the photo is for.' }).int().positive(),
 	alt: photoAlt
 });
+
+/** The piece page's photo buttons: which photo, and for a new description or a move, what. */
+export const photoAction = z.object({ photoId: z.coerce.number().int().positive() });
+export const photoAltAction = photoAction.extend({ alt: photoAlt });
+export const photoMoveAction = photoAction.extend({ by: z.enum(['-1', '1']) });

@@ -34,3 +34,13 @@ export function styleWords(style: string | null | undefined): string {
 	const s = isRosetteStyle(style) ? style : 'classic';
 	return `${ROSETTE_STYLES[s].label.toLowerCase()} rosette`;
 }
+
+/**
+ * The style the personaliser starts on: a piece laid out with split petals opens on them, any
+ * other on the classic rosette. A chosen style that is not one of ours falls back to it too.
+ * The browser's personaliser and the server's first picture both start here, so they agree.
+ */
+export function startingStyle(pattern: { split?: boolean }, chosen?: unknown): RosetteStyle {
+	if (isRosetteStyle(chosen)) return chosen;
+	return pattern.split ? 'split' : 'classic';
+}

@@ -16,7 +16,7 @@ import { boothOrderSigners, queueBoothOrderLetters } from '../orders/booth-mail'
 import { replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
 import { OrderError } from '../orders/place';
-import type { BoothOrder } from '$lib/fairs/schemas';
+import type { BoothOrder } from '$lib/booth/sync-message';
 import { lateVerdict, saleTimeProblem } from '$lib/booth/rules';
 import { FairError } from './errors';
 import { fairStateShared } from '../fairs/fairs';

@@ -5,20 +5,12 @@ import { db, type Tx } from '../db';
 import { boothSales, fairStock, type Role } from '../db/schema';
 import { isDuplicateKey, transact } from '../db/retry';
 import { adjustStock, fairPlace } from '../stock/adjust';
-import { boothSaleSchema, type BoothSale } from '$lib/fairs/schemas';
+import { boothSaleSchema, type BoothSale, type SyncAnswer } from '$lib/booth/sync-message';
 import { maxDiscount, priceSale } from '$lib/booth/reconcile';
 import { lateVerdict, saleFingerprint, saleTimeProblem } from '$lib/booth/rules';
 import { fairPieces, fairStateShared, getFair, type Fair, type FairPiece } from '../fairs/fairs';
 import { FairError } from './errors';
 import { sendReceipt } from './receipt';
-
-export type SyncAnswer = {
-	accepted: string[];
-	duplicate: string[];
-	/** Accepted, but made before the close and received after it. */
-	late: string[];
-	rejected: { id: string | null; error: string; conflict?: boolean }[];
-};
 
 type Seller = { id: string; role: Role };
 

@@ -10,7 +10,7 @@ import { formatMoney } from '$lib/locale/money';
 import { formatMoment } from '$lib/locale/dates';
 import { transact } from '../db/retry';
 import { voidRefusal } from '$lib/booth/rules';
-import type { BoothVoid } from '$lib/fairs/schemas';
+import type { BoothVoid } from '$lib/booth/sync-message';
 import { fairStateShared } from '../fairs/fairs';
 import { FairError } from './errors';
 import { moveStock } from './sync';

@@ -1,6 +1,6 @@
 import { apiError } from './api-errors';
 import { MAX_PHOTO_BYTES } from '$lib/catalogue/photo-limits';
-import { BOOTH_MAX_BYTES } from '$lib/fairs/schemas';
+import { BOOTH_MAX_BYTES } from '$lib/booth/sync-message';
 
 /**
  * Each kind of body has its own cap (RFC 9110 §15.5.14 Content Too Large; OWASP ASVS 4.0

@@ -1,4 +1,4 @@
-import { BOOTH_MAX_BYTES } from '$lib/fairs/schemas';
+import { BOOTH_MAX_BYTES } from '$lib/booth/sync-message';
 import { FairError } from '../booth/errors';
 import { BOOTH_TOO_LARGE } from './body-limit';
 

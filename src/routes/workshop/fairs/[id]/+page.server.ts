@@ -1,16 +1,12 @@
 import { fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
-import { fairPieces, getFair, updateFair } from '$lib/server/fairs/fairs';
-import { loadOut, workshopShelf } from '$lib/server/fairs/load-out';
-import { fairHistory } from '$lib/server/booth/void';
+import { getFair, updateFair } from '$lib/server/fairs/fairs';
+import { fairPage } from '$lib/server/fairs/fair-page';
+import { loadOut } from '$lib/server/fairs/load-out';
 import { fairIdParam, orFail, orPageError } from '$lib/server/booth/http';
-import {
-	assertFairAccess,
-	fairHelperChoices,
-	setFairHelpers
-} from '$lib/server/fairs/fair-helpers';
-import { fairFormSchema, loadOutLineSchema } from '$lib/fairs/schemas';
-import { fairFormValues } from '$lib/fairs/form-values';
+import { assertFairAccess, setFairHelpers } from '$lib/server/fairs/fair-helpers';
+import { fairFormSchema } from '$lib/fairs/schemas';
+import { loadOutLines } from '$lib/fairs/load-out-form';
 import { formTexts, parseForm } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -19,32 +15,7 @@ export const load: PageServerLoad = async (event) => {
 	const id = fairIdParam(event.params.id);
 	const fair = await orPageError(() => getFair(id));
 	await orPageError(() => assertFairAccess(user, id));
-	const pieces = await fairPieces(id);
-	return {
-		owner: user.role === 'owner',
-		fair: {
-			id: fair.id,
-			name: fair.name,
-			place: fair.place,
-			startsOn: fair.startsOn,
-			endsOn: fair.endsOn,
-			closed: Boolean(fair.closedAt),
-			notes: fair.notes
-		},
-		formValues: user.role === 'owner' ? fairFormValues(fair) : null,
-		helpers: user.role === 'owner' ? await fairHelperChoices(id) : null,
-		loaded: pieces.map((p) => ({
-			key: p.fairStockId,
-			title: p.title,
-			woodName: p.woodName,
-			loadedOut: p.loadedOut,
-			onHand: p.onHand,
-			returned: p.returned
-		})),
-		shelf: fair.closedAt ? [] : await workshopShelf(),
-		// Voids and discarded entries, with who did them: the owner's view of the fair's history.
-		history: user.role === 'owner' ? await fairHistory(id) : null
-	};
+	return fairPage(fair, user.role);
 };
 
 export const actions: Actions = {
@@ -74,18 +45,9 @@ export const actions: Actions = {
 		const id = fairIdParam(event.params.id);
 		const denied = await orFail(() => assertFairAccess(user, id));
 		if (denied) return denied;
-		const form = formTexts(await event.request.formData());
-		const lines: { pieceId: number; woodId: number; quantity: number }[] = [];
-		// One input per shelf row (take-<piece>-<wood>), so each row is parsed on its own.
-		for (const [key, value] of Object.entries(form)) {
-			const m = /^take-(\d+)-(\d+)$/.exec(key);
-			if (!m || value.trim() === '' || value.trim() === '0') continue;
-			const parsed = loadOutLineSchema.safeParse({ pieceId: m[1], woodId: m[2], quantity: value });
-			if (!parsed.success) {
-				return fail(400, { loadOutError: parsed.error.issues[0].message, key });
-			}
-			lines.push(parsed.data);
-		}
+		const read = loadOutLines(formTexts(await event.request.formData()));
+		if ('error' in read) return fail(400, { loadOutError: read.error, key: read.key });
+		const { lines } = read;
 		return orFail(async () => {
 			await loadOut(id, lines, user.id);
 			return { loaded: lines.reduce((a, l) => a + l.quantity, 0) };

@@ -1,7 +1,7 @@
 import { redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { allWoods, createPiece } from '$lib/server/catalogue/pieces-admin';
-import { savePieceForm } from '../piece-actions';
+import { savePieceForm } from '$lib/server/catalogue/piece-forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -5,7 +5,7 @@ import { discardEntry } from '$lib/server/booth/void';
 import { getFair } from '$lib/server/fairs/fairs';
 import { readBoothJson } from '$lib/server/http/read-json';
 import { FairError } from '$lib/server/booth/errors';
-import { boothDiscardSchema } from '$lib/fairs/schemas';
+import { boothDiscardSchema } from '$lib/booth/sync-message';
 import type { RequestHandler } from './$types';
 
 /** A refused entry the helper discarded on the phone: kept so the owner still sees it. */

@@ -5,7 +5,7 @@ import { placeBoothOrder } from '$lib/server/booth/order';
 import { readBoothJson } from '$lib/server/http/read-json';
 import { FairError } from '$lib/server/booth/errors';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
-import { boothOrderSchema } from '$lib/fairs/schemas';
+import { boothOrderSchema } from '$lib/booth/sync-message';
 import type { RequestHandler } from './$types';
 
 /** A personalised order taken at the booth, with its deposit; resending it stores nothing new. */

@@ -5,7 +5,7 @@ import { syncSales } from '$lib/server/booth/sync';
 import { readBoothJson } from '$lib/server/http/read-json';
 import { FairError } from '$lib/server/booth/errors';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
-import { BOOTH_MAX_SALES, boothBatchSchema } from '$lib/fairs/schemas';
+import { BOOTH_MAX_SALES, boothBatchSchema } from '$lib/booth/sync-message';
 import type { RequestHandler } from './$types';
 
 /** The booth's queue lands here: each sale stored once by its phone-made id. */

@@ -4,7 +4,7 @@ import { apiError, apiInvalid } from '$lib/server/http/api-errors';
 import { voidSale } from '$lib/server/booth/void';
 import { readBoothJson } from '$lib/server/http/read-json';
 import { FairError } from '$lib/server/booth/errors';
-import { boothVoidSchema } from '$lib/fairs/schemas';
+import { boothVoidSchema } from '$lib/booth/sync-message';
 import type { RequestHandler } from './$types';
 
 /** A void of a booth sale, queued on the phone like a sale; resending it stores nothing new. */
