@@ -17,7 +17,7 @@ import { fairFormSchema } from '$lib/fairs/schemas';
 import { POST as salesPost } from '../../src/routes/api/booth/[fairId]/sales/+server';
 import { POST as ordersPost } from '../../src/routes/api/booth/[fairId]/orders/+server';
 import { POST as tallyPost } from '../../src/routes/api/booth/[fairId]/tally/+server';
-import { testPiece, testWood } from './helpers/fixtures';
+import { testPiece, testWood } from '../helpers/fixtures';
 
 const tag = `d${process.pid}${Date.now() % 100000}`;
 const DAY1 = '2026-07-04';

@@ -9,7 +9,7 @@ import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { mailTo, testPiece, testWood } from './helpers/fixtures';
+import { mailTo, testPiece, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { syncSales } from '$lib/server/booth/sync';

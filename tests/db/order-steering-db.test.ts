@@ -20,7 +20,7 @@ import { steerSchema } from '$lib/orders/actions-schema';
 import { stepBackTo } from '$lib/orders/status';
 import { csvText } from '$lib/orders/csv-safe';
 import { majorText } from '$lib/locale/money';
-import { mailTo } from './helpers/fixtures';
+import { mailTo } from '../helpers/fixtures';
 
 const tag = `st${process.pid % 1000}${Date.now() % 10000}`;
 let owner = '';
