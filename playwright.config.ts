@@ -1,10 +1,19 @@
 import { defineConfig } from '@playwright/test';
+import { requireTestDatabase } from './scripts/lib/test-database';
 
 /**
  * Run through `npm test` (scripts/test.ts), which starts MariaDB and the stand-ins, seeds the
  * test database, builds the app into CHIPSTALL_BUILD_DIR and sets PORT/ORIGIN for it.
  * Drives Debian's Chromium; never `playwright install`.
  */
+// The specs buy, sign up and sell: never against the demo shop's database (a bare
+// `npx playwright test` names none, so it is refused too; `npm test -- e2e` sets the test one).
+if (!process.env.DATABASE_URL && !process.env.DB_NAME)
+	throw new Error(
+		'Run the end-to-end tests with `npm test -- e2e`, which gives them a test database.'
+	);
+requireTestDatabase(process.env);
+
 const port = Number(process.env.PORT || 3100);
 const origin = process.env.ORIGIN || `http://localhost:${port}`;
 const buildDir = process.env.CHIPSTALL_BUILD_DIR || 'build';

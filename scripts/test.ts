@@ -1,10 +1,12 @@
 /**
- * `npm test` — unit tests (vitest, tests/unit) then end-to-end tests (Playwright, tests/e2e).
- * `npm test -- unit [vitest args]` or `npm test -- e2e [playwright args]` runs one half.
+ * `npm test` — vitest (tests/unit, pure, and tests/db, against MariaDB) then end-to-end tests
+ * (Playwright, tests/e2e). `npm test -- unit [vitest args]` or `npm test -- e2e [playwright args]`
+ * runs one half.
  *
  * Starts MariaDB and the stand-ins on test ports of their own (so a running `npm start` does
- * not clash), uses a fresh database each run (TEST_DB_NAME, default chipstall_test), builds the
- * app into a folder of its own and stops everything it started. The exit code is the failures'.
+ * not clash), uses a fresh database each run (TEST_DB_NAME, default chipstall_test; any name not
+ * starting chipstall_test is refused before anything is dropped), builds the app into a folder of
+ * its own and stops everything it started. The exit code is the failures'.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, rmSync } from 'node:fs';
@@ -19,13 +21,20 @@ import {
 } from './lib/mariadb';
 import { BIN, DATA_DIR, ROOT } from './lib/paths';
 import { freePort, run, startMocks, stopAll, type Started } from './lib/services';
+import { testDatabaseName } from './lib/test-database';
 
 const args = process.argv.slice(2);
 const part = args[0] === 'unit' || args[0] === 'e2e' ? args.shift()! : 'all';
 const t0 = Date.now();
 
 const e = process.env;
-const testDb = e.TEST_DB_NAME || 'chipstall_test';
+let testDb: string;
+try {
+	testDb = testDatabaseName(e);
+} catch (err) {
+	console.error((err as Error).message);
+	process.exit(1);
+}
 /**
  * Test ports for the stand-ins and the app. TEST_* pins one; otherwise a default that another
  * run holds is swapped for a free port, so runs in other checkouts do not collide.
@@ -121,6 +130,11 @@ try {
 	mocks = await startMocks(env);
 	lap('services', t);
 
+	// tsconfig.json extends the default kit folder's tsconfig, whose paths give tsx the `$lib`
+	// alias the migrations and the seed import through; a fresh checkout has none yet.
+	if (!existsSync(path.join(ROOT, '.svelte-kit', 'tsconfig.json')))
+		await run(BIN('svelte-kit'), ['sync'], env);
+
 	let failed = false;
 	if (part !== 'e2e') {
 		t = Date.now();
@@ -133,9 +147,6 @@ try {
 		t = Date.now();
 		// Its own kit folder too, so a build here never clashes with `npm start` or another run.
 		const kitDir = path.join(DATA_DIR, 'test-build', testDb, 'kit');
-		// tsconfig.json extends the default kit folder's tsconfig, which the build reads.
-		if (!existsSync(path.join(ROOT, '.svelte-kit', 'tsconfig.json')))
-			await run(BIN('svelte-kit'), ['sync'], env);
 		const buildCode = await run(BIN('vite'), ['build', '--logLevel', 'warn'], {
 			...env,
 			CHIPSTALL_KIT_DIR: kitDir

@@ -2,7 +2,7 @@ import { ApiError, invalid, missing, noSuch } from './errors';
 import type { Form } from './form';
 import { newId } from './ids';
 import * as p from './params';
-import type { Refund, State } from './state';
+import type { Charge, Refund, State } from './state';
 
 const REASONS = ['duplicate', 'fraudulent', 'requested_by_customer'];
 
@@ -73,12 +73,12 @@ export function createRefund(state: State, form: Form): Refund {
  * nothing is left. The charge id is the intent's latest charge; metadata is the intent's, as
  * the real service copies it from the intent to the charge.
  */
-export function chargeAfterRefund(state: State, refund: Refund) {
+export function chargeAfterRefund(state: State, refund: Refund): Charge {
 	const pi = state.paymentIntents.get(refund.payment_intent)!;
 	const refunded = state.refundedOn(pi.id);
 	return {
 		id: refund.charge,
-		object: 'charge' as const,
+		object: 'charge',
 		amount: pi.amount_received,
 		amount_captured: pi.amount_received,
 		amount_refunded: refunded,
@@ -91,7 +91,7 @@ export function chargeAfterRefund(state: State, refund: Refund) {
 		payment_intent: pi.id,
 		receipt_email: pi.receipt_email,
 		refunded: refunded >= pi.amount_received,
-		status: 'succeeded' as const
+		status: 'succeeded'
 	};
 }
 

@@ -22,6 +22,7 @@ const KNOWN = [
 	'expand',
 	'ui_mode'
 ];
+const HOSTED: Session['ui_mode'] = 'hosted_page';
 const MIN_LIFETIME = 30 * 60;
 const MAX_LIFETIME = 24 * 60 * 60;
 
@@ -74,7 +75,8 @@ export function createSession(state: State, form: Form, payUrl: (id: string) => 
 	if (mode !== 'payment')
 		throw invalid('mode', `This stand-in only supports mode=payment, not ${mode}.`);
 	const uiMode = p.str(form.ui_mode, 'ui_mode');
-	if (uiMode && uiMode !== 'hosted')
+	// The hosted page is `hosted_page` in the API version the pinned SDK speaks.
+	if (uiMode && uiMode !== HOSTED)
 		throw invalid('ui_mode', 'This stand-in only supports the hosted payment page.');
 
 	const rawItems = p.list(form.line_items, 'line_items');
@@ -143,7 +145,7 @@ export function createSession(state: State, form: Form, payUrl: (id: string) => 
 		status: 'open',
 		success_url: p.url(form.success_url, 'success_url', true)!,
 		url: payUrl(id),
-		ui_mode: 'hosted'
+		ui_mode: HOSTED
 	};
 	state.sessions.set(id, session);
 	state.lineItems.set(id, items);
@@ -227,7 +229,16 @@ export function completeSession(state: State, s: Session, buyer: { name: string 
 	s.status = 'complete';
 	s.payment_status = 'paid';
 	s.url = null;
-	s.customer_details = { email: s.customer_email, name: buyer.name };
+	s.customer_details = {
+		address: null,
+		business_name: null,
+		email: s.customer_email,
+		individual_name: null,
+		name: buyer.name,
+		phone: null,
+		tax_exempt: 'none',
+		tax_ids: []
+	};
 	return pi;
 }
 

@@ -1,104 +1,141 @@
-/** In-memory objects of the Stripe stand-in, kept for the life of the process. */
-export type Metadata = Record<string, string>;
+/**
+ * In-memory objects of the Stripe stand-in, kept for the life of the process. Each is typed as
+ * the fields it fills, picked from the `stripe` SDK's own types (for the API version the pinned
+ * SDK speaks, `Stripe.API_VERSION`), and narrowed where the stand-in does less (payment mode,
+ * hosted page, automatic capture): a field that a new SDK version renames, drops or retypes
+ * fails `npm run check` here instead of drifting from what the app reads.
+ */
+import type Stripe from 'stripe';
 
-export type LineItem = {
-	id: string;
-	object: 'item';
-	amount_discount: number;
-	amount_subtotal: number;
-	amount_tax: number;
-	amount_total: number;
-	currency: string;
-	description: string;
-	quantity: number;
-	price: {
-		id: string;
-		object: 'price';
-		active: boolean;
-		currency: string;
-		product: string;
-		type: 'one_time';
-		unit_amount: number;
-		unit_amount_decimal: string;
-		livemode: false;
-	};
+export type Metadata = Stripe.Metadata;
+
+export type Price = Pick<
+	Stripe.Price,
+	'id' | 'object' | 'active' | 'currency' | 'unit_amount' | 'livemode'
+> & {
+	product: string;
+	type: Extract<Stripe.Price.Type, 'one_time'>;
+	/** On the wire a decimal string; the SDK hands it to the app as its own `Decimal`. */
+	unit_amount_decimal: string;
 };
 
-export type Session = {
-	id: string;
-	object: 'checkout.session';
+export type LineItem = Pick<
+	Stripe.LineItem,
+	| 'id'
+	| 'object'
+	| 'amount_discount'
+	| 'amount_subtotal'
+	| 'amount_tax'
+	| 'amount_total'
+	| 'currency'
+	| 'description'
+	| 'quantity'
+> & { description: string; quantity: number; price: Price };
+
+export type Session = Pick<
+	Stripe.Checkout.Session,
+	| 'id'
+	| 'object'
+	| 'amount_subtotal'
+	| 'amount_total'
+	| 'cancel_url'
+	| 'client_reference_id'
+	| 'created'
+	| 'customer_email'
+	| 'expires_at'
+	| 'livemode'
+	| 'metadata'
+	| 'payment_method_types'
+	| 'success_url'
+	| 'url'
+> & {
 	amount_subtotal: number;
 	amount_total: number;
-	cancel_url: string | null;
-	client_reference_id: string | null;
-	created: number;
 	currency: string;
 	customer: null;
-	customer_details: { email: string | null; name: string | null } | null;
-	customer_email: string | null;
-	expires_at: number;
-	livemode: false;
+	customer_details: Stripe.Checkout.Session.CustomerDetails | null;
 	metadata: Metadata;
-	mode: 'payment';
+	mode: Extract<Stripe.Checkout.Session.Mode, 'payment'>;
 	payment_intent: string | null;
-	payment_method_types: string[];
-	payment_status: 'unpaid' | 'paid';
-	status: 'open' | 'complete' | 'expired';
+	payment_status: Extract<Stripe.Checkout.Session.PaymentStatus, 'unpaid' | 'paid'>;
+	status: Extract<Stripe.Checkout.Session.Status, 'open' | 'complete' | 'expired'>;
 	success_url: string;
-	url: string | null;
-	ui_mode: 'hosted';
+	ui_mode: Extract<Stripe.Checkout.Session.UiMode, 'hosted_page'>;
 };
 
-export type PaymentIntent = {
-	id: string;
-	object: 'payment_intent';
-	amount: number;
-	amount_capturable: number;
-	amount_received: number;
-	capture_method: 'automatic';
+export type PaymentIntent = Pick<
+	Stripe.PaymentIntent,
+	| 'id'
+	| 'object'
+	| 'amount'
+	| 'amount_capturable'
+	| 'amount_received'
+	| 'created'
+	| 'currency'
+	| 'description'
+	| 'livemode'
+	| 'payment_method_types'
+	| 'receipt_email'
+> & {
+	capture_method: Extract<Stripe.PaymentIntent.CaptureMethod, 'automatic'>;
 	client_secret: string;
-	created: number;
-	currency: string;
-	description: string | null;
-	last_payment_error: null | {
-		type: 'card_error';
-		code: string;
-		decline_code: string;
-		message: string;
-	};
+	last_payment_error: Pick<
+		Stripe.PaymentIntent.LastPaymentError,
+		'type' | 'code' | 'decline_code' | 'message'
+	> | null;
 	latest_charge: string | null;
-	livemode: false;
 	metadata: Metadata;
 	payment_method: string | null;
-	payment_method_types: string[];
-	receipt_email: string | null;
-	status: 'requires_payment_method' | 'succeeded';
+	status: Extract<Stripe.PaymentIntent.Status, 'requires_payment_method' | 'succeeded'>;
 };
 
-export type Refund = {
-	id: string;
-	object: 'refund';
-	amount: number;
+export type Refund = Pick<
+	Stripe.Refund,
+	'id' | 'object' | 'amount' | 'created' | 'currency' | 'reason'
+> & {
 	charge: string;
-	created: number;
-	currency: string;
 	metadata: Metadata;
 	payment_intent: string;
-	reason: string | null;
 	status: 'succeeded';
 };
 
-export type StandInEvent = {
-	id: string;
-	object: 'event';
-	api_version: string;
-	created: number;
-	data: { object: unknown };
-	livemode: false;
-	pending_webhooks: number;
-	request: { id: null; idempotency_key: null };
-	type: string;
+/** The charge as a `charge.refunded` event carries it. */
+export type Charge = Pick<
+	Stripe.Charge,
+	| 'id'
+	| 'object'
+	| 'amount'
+	| 'amount_captured'
+	| 'amount_refunded'
+	| 'captured'
+	| 'created'
+	| 'currency'
+	| 'livemode'
+	| 'metadata'
+	| 'paid'
+	| 'receipt_email'
+	| 'refunded'
+> & { payment_intent: string; status: Extract<Stripe.Charge.Status, 'succeeded'> };
+
+/** The events the stand-in sends, each with the object the SDK's type says it carries. */
+export type EventObjects = {
+	'checkout.session.completed': Session;
+	'checkout.session.expired': Session;
+	'charge.refunded': Charge;
+	'refund.updated': Refund;
 };
+export type EventType = keyof EventObjects & Stripe.Event.Type;
+
+export type StandInEvent = Pick<
+	Stripe.Event,
+	'id' | 'object' | 'api_version' | 'created' | 'livemode' | 'pending_webhooks' | 'request'
+> & { type: EventType; data: { object: EventObjects[EventType] } };
+
+/** The object the SDK's event of that type carries. */
+export type SdkEventObject<T extends EventType> = Extract<
+	Stripe.Event,
+	{ type: T }
+>['data']['object'];
 
 export type Delivery = {
 	event: StandInEvent;

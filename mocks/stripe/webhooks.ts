@@ -1,10 +1,18 @@
 import { newId } from './ids';
 import { signatureHeader } from './signature';
-import type { Delivery, StandInEvent, State } from './state';
+import type {
+	Delivery,
+	EventObjects,
+	EventType,
+	SdkEventObject,
+	StandInEvent,
+	State
+} from './state';
 
 export type WebhookOptions = {
 	url: string;
 	secret: string;
+	/** The SDK's own (`Stripe.API_VERSION`): the version whose types the objects are checked against. */
 	apiVersion: string;
 	/** First retry delay; each later one doubles (0.5 s, 1 s, 2 s, …). */
 	retryBaseMs: number;
@@ -25,7 +33,11 @@ export class Webhooks {
 		private opts: WebhookOptions
 	) {}
 
-	send(type: string, object: unknown): StandInEvent {
+	/** `object` must be a part of what the SDK's event of that type carries, field for field. */
+	send<T extends EventType>(
+		type: T,
+		object: EventObjects[T] & Partial<SdkEventObject<T>>
+	): StandInEvent {
 		const event: StandInEvent = {
 			id: newId('evt'),
 			object: 'event',

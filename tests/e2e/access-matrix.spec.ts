@@ -7,7 +7,7 @@
 import { expect, request, test, type APIRequestContext, type APIResponse } from '@playwright/test';
 import mysql from 'mysql2/promise';
 import { routeEntries, type Entry } from '../helpers/route-tree';
-import { demoAccount } from './helpers/auth';
+import { demoAccount } from '../helpers/auth';
 import {
 	EXPECTATIONS,
 	ROLE_NAMES,

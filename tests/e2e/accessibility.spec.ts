@@ -8,7 +8,7 @@
  */
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from './helpers/auth';
+import { signInAs } from '../helpers/auth';
 import type { Role } from '../../src/lib/server/db/schema';
 
 type Screen = {

@@ -5,7 +5,7 @@
  * with a page that says why and links to the shop's own address, not a bare "403".
  */
 import { expect, test } from '@playwright/test';
-import { demoAccount } from './helpers/auth';
+import { demoAccount } from '../helpers/auth';
 
 /** The test server under its other loopback name (RFC 6761 §6.3: localhost is the loopback). */
 function otherName(baseURL: string) {

@@ -3,8 +3,8 @@
  * say which part was wrong, the e-mailed reset link that works once, and sign-out by POST.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { SESSION_COOKIE, demoAccount, signInAs, signInWith, signOut } from './helpers/auth';
-import { waitForMail } from './helpers/mail';
+import { SESSION_COOKIE, demoAccount, signInAs, signInWith, signOut } from '../helpers/auth';
+import { waitForMail } from '../helpers/mail';
 
 const NO_MATCH = "That e-mail and password don't match an account.";
 const unique = (tag: string) =>

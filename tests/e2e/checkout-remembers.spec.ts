@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
+import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from '../helpers/buy';
 
 /**
  * Coming back from the payment page unpaid finds the checkout form as the buyer left it, kept

@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
-import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
-import { signInAs } from './helpers/auth';
-import { waitForMail } from './helpers/mail';
+import { declinedAndBack, fillCheckout, payWith, personaliseAndAdd } from '../helpers/buy';
+import { signInAs } from '../helpers/auth';
+import { waitForMail } from '../helpers/mail';
 
 /**
  * The buyer's journey end to end against the built app and the stand-ins: personalise, basket,

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { demoAccount, signInAs } from './helpers/auth';
+import { demoAccount, signInAs } from '../helpers/auth';
 
 /**
  * The fair from start to finish on a phone: create, load out, sell with the network off (after a

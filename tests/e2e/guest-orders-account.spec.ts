@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
-import { buyPersonalised } from './helpers/buy';
-import { signInWith } from './helpers/auth';
-import { waitForMail } from './helpers/mail';
+import { buyPersonalised } from '../helpers/buy';
+import { signInWith } from '../helpers/auth';
+import { waitForMail } from '../helpers/mail';
 
 /**
  * A buyer who ordered as a guest and later makes an account with that e-mail finds the order in

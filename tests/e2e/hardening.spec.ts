@@ -6,7 +6,7 @@
  */
 import { spawn } from 'node:child_process';
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs, signInWith } from './helpers/auth';
+import { signInAs, signInWith } from '../helpers/auth';
 
 const unique = (tag: string) =>
 	`${tag}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@example.test`;

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { expect, test, type Download, type Page } from '@playwright/test';
 import { PDFDocument } from 'pdf-lib';
 import { pdfText } from '../helpers/pdf-text';
-import { signInAs } from './helpers/auth';
+import { signInAs } from '../helpers/auth';
 
 /**
  * The rosette engine where people meet it: the buyer's live personaliser, the carver's layout

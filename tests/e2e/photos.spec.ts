@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import sharp from 'sharp';
-import { signInAs } from './helpers/auth';
+import { signInAs } from '../helpers/auth';
 
 /**
  * The owner adds two photos to a piece at once, watches each one's progress bar, and the shop

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from './helpers/auth';
-import { fillCheckout, payWith, personaliseAndAdd } from './helpers/buy';
+import { signInAs } from '../helpers/auth';
+import { fillCheckout, payWith, personaliseAndAdd } from '../helpers/buy';
 
 /** "$1,234.50" → 123450 minor units (the shop shows US dollars with two decimals). */
 const cents = (text: string) => {

@@ -9,7 +9,7 @@ import mysql from 'mysql2/promise';
 import * as s from '../../src/lib/server/db/schema';
 import { startApp, signInCookie, type AppProcess } from '../helpers/app-process';
 import { completedEvent, insertPendingOrder, signEvent } from '../helpers/payment-fixture';
-import { demoAccount } from './helpers/auth';
+import { demoAccount } from '../helpers/auth';
 
 const SWEEP_MS = 1000;
 let a: AppProcess;

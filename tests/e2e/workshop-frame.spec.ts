@@ -3,7 +3,7 @@
  * a phone every tab of the workshop's nav can be reached.
  */
 import { expect, test } from '@playwright/test';
-import { signInAs } from './helpers/auth';
+import { signInAs } from '../helpers/auth';
 
 test('a helper opening an owner page is told what it needs and what they can do', async ({
 	page

@@ -2,9 +2,9 @@ import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
 import { PDFDocument } from 'pdf-lib';
-import { signInAs, signOut } from './helpers/auth';
-import { buyPersonalised } from './helpers/buy';
-import { parsedMail, waitForMail } from './helpers/mail';
+import { signInAs, signOut } from '../helpers/auth';
+import { buyPersonalised } from '../helpers/buy';
+import { parsedMail, waitForMail } from '../helpers/mail';
 
 /**
  * The workshop's day with a genuinely paid order (bought through the shop and the payment

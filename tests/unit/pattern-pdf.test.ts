@@ -1,6 +1,6 @@
 import { PDFDocument } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
-import { pageContent } from './helpers/pdf-content';
+import { pageContent } from '../helpers/pdf-content';
 import { pdfText } from '../helpers/pdf-text';
 import { computePattern } from '$lib/pattern';
 import { letterFont } from '$lib/pattern/letter-font';

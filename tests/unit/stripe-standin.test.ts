@@ -130,6 +130,8 @@ describe('Stripe stand-in with the official SDK', () => {
 		expect(s.metadata).toEqual({ order_ref: 'LF-1042' });
 		expect(s.url).toBe(`${standIn.origin}/pay/${s.id}`);
 		expect(s.expires_at - s.created).toBe(24 * 3600);
+		// The hosted page as the SDK's API version names it (Stripe.Checkout.Session.UiMode).
+		expect(s.ui_mode).toBe('hosted_page');
 
 		const again = await sdk.checkout.sessions.retrieve(s.id, {
 			expand: ['line_items']
@@ -176,7 +178,21 @@ describe('Stripe stand-in with the official SDK', () => {
 		expect(event.type).toBe('checkout.session.completed');
 		expect(event.id).toMatch(/^evt_/);
 		expect(event.livemode).toBe(false);
+		// The events speak the API version of the SDK whose types mocks/stripe/state.ts uses.
+		expect(event.api_version).toBe(Stripe.API_VERSION);
 		const obj = event.data.object as Stripe.Checkout.Session;
+		// Every field of the SDK's CustomerDetails (this API version's), as the real service sends.
+		expect(Object.keys(obj.customer_details!).sort()).toEqual([
+			'address',
+			'business_name',
+			'email',
+			'individual_name',
+			'name',
+			'phone',
+			'tax_exempt',
+			'tax_ids'
+		]);
+		expect(obj.customer_details!.name).toBe(goodCard.name);
 		expect(obj.id).toBe(s.id);
 		expect(obj.payment_status).toBe('paid');
 		expect(obj.metadata).toEqual({ order_ref: 'LF-1042' });

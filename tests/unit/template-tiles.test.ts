@@ -7,7 +7,7 @@
 import Flatten from '@flatten-js/core';
 import { PDFDocument } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
-import { pageContent } from './helpers/pdf-content';
+import { pageContent } from '../helpers/pdf-content';
 import { computePattern } from '$lib/pattern';
 import type { PatternResult } from '$lib/pattern/types';
 import {

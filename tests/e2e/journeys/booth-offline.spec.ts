@@ -1,5 +1,5 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
-import { demoAccount, signInAs } from '../helpers/auth';
+import { demoAccount, signInAs } from '../../helpers/auth';
 
 /**
  * A helper at the booth on a phone, the signal coming and going: the owner sets up a fair and

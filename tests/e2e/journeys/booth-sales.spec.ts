@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { demoAccount, signInAs } from '../helpers/auth';
-import { waitForMail } from '../helpers/mail';
+import { demoAccount, signInAs } from '../../helpers/auth';
+import { waitForMail } from '../../helpers/mail';
 
 /**
  * A fair day on a 390×844 phone, hands quick and signal coming and going: a double tap makes one

@@ -6,8 +6,8 @@
  * their name and count once the header's fragment (/api/me) has loaded, on a phone-sized screen.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from '../helpers/auth';
-import { personaliseAndAdd } from '../helpers/buy';
+import { signInAs } from '../../helpers/auth';
+import { personaliseAndAdd } from '../../helpers/buy';
 
 const PUBLIC = [
 	'/',

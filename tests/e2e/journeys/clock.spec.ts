@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from '../helpers/auth';
+import { signInAs } from '../../helpers/auth';
 
 /**
  * The carver's own clock and money: the demo shop keeps America/New_York (its town is in

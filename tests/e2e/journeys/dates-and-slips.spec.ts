@@ -1,8 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
-import { payWith, personaliseAndAdd } from '../helpers/buy';
-import { demoAccount, signInAs } from '../helpers/auth';
-import { waitForMail } from '../helpers/mail';
+import { payWith, personaliseAndAdd } from '../../helpers/buy';
+import { demoAccount, signInAs } from '../../helpers/auth';
+import { waitForMail } from '../../helpers/mail';
 import { pdfText } from '../../helpers/pdf-text';
 
 /**

@@ -2,8 +2,8 @@ import { expect, test, type Locator, type Page } from '@playwright/test';
 import net from 'node:net';
 import { randomBytes } from 'node:crypto';
 import sharp from 'sharp';
-import { signInAs } from '../helpers/auth';
-import { mailInboxUrl, waitForMail, type CaughtMail } from '../helpers/mail';
+import { signInAs } from '../../helpers/auth';
+import { mailInboxUrl, waitForMail, type CaughtMail } from '../../helpers/mail';
 
 /**
  * Forms, bodies and messages walked the way people use them (../shared WALKS.md): every refusal

@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
-import { signInAs } from '../helpers/auth';
-import { buyPersonalised } from '../helpers/buy';
+import { signInAs } from '../../helpers/auth';
+import { buyPersonalised } from '../../helpers/buy';
 
 /**
  * Mail that cannot be delivered, walked as people meet it: a buyer on a phone pays with an

@@ -1,7 +1,7 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
-import { demoAccount, signInAs } from '../helpers/auth';
-import { buyPersonalised } from '../helpers/buy';
-import { mailInboxUrl, parsedMail, waitForMail, type CaughtMail } from '../helpers/mail';
+import { demoAccount, signInAs } from '../../helpers/auth';
+import { buyPersonalised } from '../../helpers/buy';
+import { mailInboxUrl, parsedMail, waitForMail, type CaughtMail } from '../../helpers/mail';
 
 /**
  * The owner's day, walked as people walk it: a buyer pays in one browser; the owner, in another

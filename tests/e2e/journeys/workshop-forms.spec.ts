@@ -1,5 +1,5 @@
 import { expect, test, type APIResponse, type Page } from '@playwright/test';
-import { signInAs } from '../helpers/auth';
+import { signInAs } from '../../helpers/auth';
 
 /**
  * The workshop's forms refused the way people get them wrong (WALKS.md): sent empty, far too

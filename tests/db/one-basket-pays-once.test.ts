@@ -12,6 +12,7 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { testPiece, testStock, testWood } from '../helpers/fixtures';
 import { config } from '$lib/server/config';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
@@ -107,39 +108,26 @@ async function mailsTo(email: string) {
 }
 
 beforeAll(async () => {
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: `${tag}-wood`,
-			name: 'Basket cherry',
-			botanicalName: 'Prunus serotina',
-			specificGravityMilli: 500,
-			densityKgM3: 560,
-			sideHardnessN: 4230,
-			toneLight: '#b07a57',
-			toneDark: '#6e4630',
-			character: 'test'
-		})
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: `${tag}-piece`,
-			title: 'Basket trinket box',
-			kind: 'box',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 100,
-			widthMm: 70,
-			thicknessMm: 40,
-			basePriceMinor: 3800,
-			leadDays: 10,
-			pattern: { diameterMm: 40, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 20 });
+	woodId = await testWood(`${tag}-wood`, {
+		name: 'Basket cherry',
+		botanicalName: 'Prunus serotina',
+		specificGravityMilli: 500,
+		densityKgM3: 560,
+		sideHardnessN: 4230,
+		toneLight: '#b07a57',
+		toneDark: '#6e4630'
+	});
+	pieceId = await testPiece(`${tag}-piece`, [woodId], {
+		title: 'Basket trinket box',
+		kind: 'box',
+		personalisable: false,
+		lengthMm: 100,
+		widthMm: 70,
+		thicknessMm: 40,
+		basePriceMinor: 3800,
+		pattern: { diameterMm: 40, count: 1 }
+	});
+	await testStock(pieceId, woodId, 20);
 });
 
 afterAll(async () => {

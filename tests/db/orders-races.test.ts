@@ -10,6 +10,7 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { testPiece, testStock, testWood } from '../helpers/fixtures';
 import { config } from '$lib/server/config';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
@@ -115,39 +116,26 @@ async function place(n: string | number) {
 }
 
 beforeAll(async () => {
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: `${tag}-wood`,
-			name: 'Race walnut',
-			botanicalName: 'Juglans nigra',
-			specificGravityMilli: 550,
-			densityKgM3: 610,
-			sideHardnessN: 4490,
-			toneLight: '#8a6a4f',
-			toneDark: '#4a3426',
-			character: 'test'
-		})
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: `${tag}-piece`,
-			title: 'Race trinket box',
-			kind: 'box',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 100,
-			widthMm: 70,
-			thicknessMm: 40,
-			basePriceMinor: 3800,
-			leadDays: 10,
-			pattern: { diameterMm: 40, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 1 });
+	woodId = await testWood(`${tag}-wood`, {
+		name: 'Race walnut',
+		botanicalName: 'Juglans nigra',
+		specificGravityMilli: 550,
+		densityKgM3: 610,
+		sideHardnessN: 4490,
+		toneLight: '#8a6a4f',
+		toneDark: '#4a3426'
+	});
+	pieceId = await testPiece(`${tag}-piece`, [woodId], {
+		title: 'Race trinket box',
+		kind: 'box',
+		personalisable: false,
+		lengthMm: 100,
+		widthMm: 70,
+		thicknessMm: 40,
+		basePriceMinor: 3800,
+		pattern: { diameterMm: 40, count: 1 }
+	});
+	await testStock(pieceId, woodId, 1);
 });
 
 afterAll(async () => {

@@ -10,8 +10,8 @@ import { simpleParser } from 'mailparser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { paidIntent, testLine, testOrder } from '../helpers/fixtures';
 import { config } from '$lib/server/config';
-import { stripe } from '$lib/server/orders/stripe';
 import { shipOrder } from '$lib/server/orders/ship';
 import { StatusMoveError } from '$lib/server/orders/status';
 import {
@@ -31,63 +31,22 @@ let pieceId = 0;
 let woodId = 0;
 let n = 0;
 
-/** A real payment at the stand-in: session created with the SDK, paid on its card page. */
-async function paidIntent(amount: number) {
-	const sdk = stripe();
-	const session = await sdk.checkout.sessions.create({
-		mode: 'payment',
-		line_items: [
-			{
-				quantity: 1,
-				price_data: { currency: 'usd', unit_amount: amount, product_data: { name: 'Test plate' } }
-			}
-		],
-		success_url: 'http://localhost/done?session_id={CHECKOUT_SESSION_ID}'
-	});
-	await fetch(session.url!, {
-		method: 'POST',
-		body: new URLSearchParams({
-			number: '4242 4242 4242 4242',
-			expiry: '12/39',
-			cvc: '123',
-			name: 'Test Buyer'
-		}),
-		redirect: 'manual'
-	});
-	return (await sdk.checkout.sessions.retrieve(session.id)).payment_intent as string;
-}
-
 async function newOrder(status: s.OrderStatus, totalMinor = 10250, paid = true) {
 	const ref = `${tag}-${++n}`.slice(0, 16);
 	const email = `buyer-${ref.toLowerCase()}@example.test`;
-	const [{ id }] = await db
-		.insert(s.orders)
-		.values({
+	const id = await testOrder(
+		{
 			ref,
 			email,
 			buyerName: 'Odile Varga',
 			address: { line1: '4 Reed Row', city: 'Linden Ford', postcode: '05001', country: 'US' },
-			currency: 'USD',
-			subtotalMinor: totalMinor,
-			shippingMinor: 0,
 			totalMinor,
 			status,
 			paymentIntentId: paid ? await paidIntent(totalMinor) : null,
-			createdAt: new Date(),
 			paidAt: paid ? new Date() : null
-		})
-		.$returningId();
-	await db.insert(s.orderLines).values({
-		orderId: id,
-		pieceId,
-		woodId,
-		title: 'Test plate',
-		woodName: 'Test wood',
-		quantity: 1,
-		unitPriceMinor: totalMinor,
-		lineTotalMinor: totalMinor,
-		fromStock: true
-	});
+		},
+		[testLine(pieceId, woodId, totalMinor)]
+	);
 	return { id, ref, email };
 }
 

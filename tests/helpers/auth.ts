@@ -1,6 +1,6 @@
 import { expect, type Page } from '@playwright/test';
-import { DEMO_ACCOUNTS } from '../../../scripts/seed/demo';
-import type { Role } from '../../../src/lib/server/db/schema';
+import { DEMO_ACCOUNTS } from '../../scripts/seed/demo';
+import type { Role } from '../../src/lib/server/db/schema';
 
 export const SESSION_COOKIE = 'chipstall_session';
 

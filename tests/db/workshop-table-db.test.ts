@@ -7,6 +7,7 @@ import { eq, like } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { testLine, testOrder } from '../helpers/fixtures';
 import { listWorkshopOrders } from '$lib/server/orders/table';
 import { carvingQueue, queueLines, recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import { todaySummary } from '$lib/server/workshop/today';
@@ -35,38 +36,27 @@ const snap = {
 
 /** An order with `personal` personalised lines and `ready` ready-made ones. */
 async function make(i: number, personal: number, ready: number, total: number) {
-	const [{ id }] = await db
-		.insert(s.orders)
-		.values({
+	const line = (personalised: boolean) =>
+		testLine(pieceId, woodId, 1000, {
+			title: 'Plate',
+			woodName: 'Basswood',
+			fromStock: !personalised,
+			personalisation: personalised ? snap : null
+		});
+	await testOrder(
+		{
 			ref: `${tag}-${i}`,
 			email: `table-${tag}-${i}@example.test`.toLowerCase(),
 			buyerName: `Tabitha ${tag} ${i}`,
 			address: { line1: '1 Mill St', city: 'Linden Ford', postcode: '05001', country: 'US' },
-			currency: 'USD',
-			subtotalMinor: total,
-			shippingMinor: 0,
 			totalMinor: total,
-			status: 'paid',
 			createdAt: new Date(Date.UTC(2026, 2, i))
-		})
-		.$returningId();
-	const line = (personalised: boolean) => ({
-		orderId: id,
-		pieceId,
-		woodId,
-		title: 'Plate',
-		woodName: 'Basswood',
-		quantity: 1,
-		unitPriceMinor: 1000,
-		lineTotalMinor: 1000,
-		fromStock: !personalised,
-		personalisation: personalised ? snap : null
-	});
-	const lines = [
-		...Array.from({ length: personal }, () => line(true)),
-		...Array.from({ length: ready }, () => line(false))
-	];
-	if (lines.length) await db.insert(s.orderLines).values(lines);
+		},
+		[
+			...Array.from({ length: personal }, () => line(true)),
+			...Array.from({ length: ready }, () => line(false))
+		]
+	);
 }
 
 const q = (over: Record<string, string>) => orderTableQuery.parse({ q: tag, ...over });

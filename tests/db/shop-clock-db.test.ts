@@ -5,8 +5,7 @@
  */
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db } from '$lib/server/db';
-import * as s from '$lib/server/db/schema';
+import { demoStaff, testPiece, testStock, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { syncSales } from '$lib/server/booth/sync';
@@ -32,43 +31,15 @@ const sale = (n: number, at: string) => ({
 
 beforeAll(async () => {
 	useShopFormat({ timeZone: 'America/New_York', locale: 'en-US', currency: 'USD' });
-	const [{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: woodSlug,
-			name: 'Test basswood',
-			botanicalName: 'Tilia americana',
-			specificGravityMilli: 370,
-			densityKgM3: 414,
-			sideHardnessN: 1800,
-			priceAddOnMinor: 0,
-			toneLight: '#f1e4c8',
-			toneDark: '#c9ae82',
-			character: 'test'
-		})
-		.$returningId();
-	const [{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: pieceSlug,
-			title: 'Test ornament',
-			kind: 'ornament',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 75,
-			widthMm: 75,
-			thicknessMm: 6,
-			basePriceMinor: 2000,
-			personalisable: false,
-			leadDays: 10,
-			pattern: { diameterMm: 50, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 10 });
-	const users = await db.select({ id: s.users.id, role: s.users.role }).from(s.users);
-	owner = { id: users.find((u) => u.role === 'owner')!.id, role: 'owner' };
+	const woodId = await testWood(woodSlug, { name: 'Test basswood' });
+	const pieceId = await testPiece(pieceSlug, [woodId], {
+		title: 'Test ornament',
+		kind: 'ornament',
+		personalisable: false
+	});
+	await testStock(pieceId, woodId, 10);
+	const { owner: o } = await demoStaff();
+	owner = o;
 	fairId = await createFair(
 		fairFormSchema.parse({
 			name: `${tag} night market`,

@@ -17,7 +17,7 @@ import { fairFormSchema } from '$lib/fairs/schemas';
 import { POST as salesPost } from '../../src/routes/api/booth/[fairId]/sales/+server';
 import { POST as ordersPost } from '../../src/routes/api/booth/[fairId]/orders/+server';
 import { POST as tallyPost } from '../../src/routes/api/booth/[fairId]/tally/+server';
-import { testPiece, testWood } from './helpers/fixtures';
+import { demoStaff, testPiece, testUser, testWood } from '../helpers/fixtures';
 
 const tag = `d${process.pid}${Date.now() % 100000}`;
 const DAY1 = '2026-07-04';
@@ -49,18 +49,11 @@ beforeAll(async () => {
 		kind: 'ornament',
 		personalisable: false
 	});
-	const users = await db.select({ id: s.users.id, role: s.users.role }).from(s.users);
-	owner = { id: users.find((u) => u.role === 'owner')!.id, role: 'owner' };
-	named = { id: users.find((u) => u.role === 'helper')!.id, role: 'helper' };
-	other = { id: crypto.randomUUID(), role: 'helper' };
-	await db.insert(s.users).values({
-		id: other.id,
-		email: `${tag}-other@example.test`,
-		name: 'Other helper',
-		passwordHash: 'x',
-		role: 'helper',
-		createdAt: new Date()
-	});
+	({ owner, helper: named } = await demoStaff());
+	other = {
+		id: (await testUser(`${tag}-other@example.test`, 'helper', 'Other helper')).id,
+		role: 'helper'
+	};
 	fairId = await createFair(
 		fairFormSchema.parse({
 			name: `${tag} two-day fair`,

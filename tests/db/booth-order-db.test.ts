@@ -8,7 +8,7 @@ import { and, eq, like } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { mailTo, testPiece, testWood } from './helpers/fixtures';
+import { mailTo, testPiece, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { placeBoothOrder } from '$lib/server/booth/order';
 import { FairError } from '$lib/server/booth/errors';

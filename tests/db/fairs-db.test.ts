@@ -8,6 +8,7 @@ import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { demoStaff, testPiece, testStock, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { syncSales } from '$lib/server/booth/sync';
@@ -52,44 +53,14 @@ const sale = (n: number, extra: Record<string, unknown> = {}) => ({
 });
 
 beforeAll(async () => {
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: woodSlug,
-			name: 'Test basswood',
-			botanicalName: 'Tilia americana',
-			specificGravityMilli: 370,
-			densityKgM3: 414,
-			sideHardnessN: 1800,
-			priceAddOnMinor: 0,
-			toneLight: '#f1e4c8',
-			toneDark: '#c9ae82',
-			character: 'test'
-		})
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: pieceSlug,
-			title: 'Test ornament',
-			kind: 'ornament',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 75,
-			widthMm: 75,
-			thicknessMm: 6,
-			basePriceMinor: 2000,
-			personalisable: true,
-			leadDays: 10,
-			pattern: { diameterMm: 50, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 40 });
-	const users = await db.select({ id: s.users.id, role: s.users.role }).from(s.users);
-	owner = { id: users.find((u) => u.role === 'owner')!.id, role: 'owner' };
-	helper = { id: users.find((u) => u.role === 'helper')!.id, role: 'helper' };
+	woodId = await testWood(woodSlug, { name: 'Test basswood' });
+	pieceId = await testPiece(pieceSlug, [woodId], {
+		title: 'Test ornament',
+		kind: 'ornament',
+		personalisable: true
+	});
+	await testStock(pieceId, woodId, 40);
+	({ owner, helper } = await demoStaff());
 	const form = fairFormSchema.parse({
 		name: `${tag} fair`,
 		place: 'Test Hall',

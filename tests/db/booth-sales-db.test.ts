@@ -9,7 +9,7 @@ import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { mailTo, testPiece, testWood } from './helpers/fixtures';
+import { demoStaff, mailTo, testPiece, testStock, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { syncSales } from '$lib/server/booth/sync';
@@ -78,10 +78,8 @@ beforeAll(async () => {
 		kind: 'ornament',
 		personalisable: true
 	});
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 20 });
-	const users = await db.select({ id: s.users.id, role: s.users.role }).from(s.users);
-	owner = { id: users.find((u) => u.role === 'owner')!.id, role: 'owner' };
-	helper = { id: users.find((u) => u.role === 'helper')!.id, role: 'helper' };
+	await testStock(pieceId, woodId, 20);
+	({ owner, helper } = await demoStaff());
 	fairId = await newFair(`${tag} fair`);
 	await loadOut(fairId, [{ pieceId, woodId, quantity: 10 }], owner.id);
 });

@@ -20,7 +20,7 @@ import { steerSchema } from '$lib/orders/actions-schema';
 import { stepBackTo } from '$lib/orders/status';
 import { csvText } from '$lib/orders/csv-safe';
 import { majorText } from '$lib/locale/money';
-import { mailTo } from './helpers/fixtures';
+import { mailTo, paidIntent, testLine, testOrder } from '../helpers/fixtures';
 
 const tag = `st${process.pid % 1000}${Date.now() % 10000}`;
 let owner = '';
@@ -28,78 +28,43 @@ let pieceId = 0;
 let woodId = 0;
 let n = 0;
 
-/** A real payment at the stand-in: a session made with the SDK, paid on its card page. */
-async function paidIntent(amount: number) {
-	const sdk = stripe();
-	const session = await sdk.checkout.sessions.create({
-		mode: 'payment',
-		line_items: [
-			{
-				quantity: 1,
-				price_data: { currency: 'usd', unit_amount: amount, product_data: { name: 'Plate' } }
-			}
-		],
-		success_url: 'http://localhost/done?session_id={CHECKOUT_SESSION_ID}'
-	});
-	await fetch(session.url!, {
-		method: 'POST',
-		body: new URLSearchParams({
-			number: '4242 4242 4242 4242',
-			expiry: '12/39',
-			cvc: '123',
-			name: 'Test Buyer'
-		}),
-		redirect: 'manual'
-	});
-	return (await sdk.checkout.sessions.retrieve(session.id)).payment_intent as string;
-}
-
 type Opts = { paid?: boolean; city?: string; initials?: string; refunded?: number; name?: string };
 
 async function newOrder(status: s.OrderStatus, o: Opts = {}) {
 	const paid = o.paid ?? status !== 'pending';
 	const ref = `${tag}-${++n}`.slice(0, 16);
 	const total = 4200;
-	const [{ id }] = await db
-		.insert(s.orders)
-		.values({
+	const id = await testOrder(
+		{
 			ref,
 			email: `steer-${ref.toLowerCase()}@example.test`,
 			buyerName: o.name ?? `Steer ${tag}`,
 			address: { line1: '2 Quay', city: o.city ?? 'Marrow', postcode: '05001', country: 'US' },
-			currency: 'USD',
-			subtotalMinor: total,
-			shippingMinor: 0,
 			totalMinor: total,
 			refundedMinor: o.refunded ?? 0,
 			status,
 			paymentIntentId: paid && status !== 'cancelled' ? await paidIntent(total) : null,
-			createdAt: new Date(),
 			paidAt: paid ? new Date() : null
-		})
-		.$returningId();
-	await db.insert(s.orderLines).values({
-		orderId: id,
-		pieceId,
-		woodId,
-		title: 'Plate',
-		woodName: 'Basswood',
-		quantity: 1,
-		unitPriceMinor: total,
-		lineTotalMinor: total,
-		fromStock: !o.initials,
-		personalisation: o.initials
-			? {
-					initials: o.initials,
-					style: 'classic',
-					diameterMm: 60,
-					count: 1,
-					spacingMm: 0,
-					split: false,
-					estimateMinutes: 40
-				}
-			: null
-	});
+		},
+		[
+			testLine(pieceId, woodId, total, {
+				title: 'Plate',
+				woodName: 'Basswood',
+				fromStock: !o.initials,
+				personalisation: o.initials
+					? {
+							initials: o.initials,
+							style: 'classic',
+							diameterMm: 60,
+							count: 1,
+							spacingMm: 0,
+							split: false,
+							estimateMinutes: 40
+						}
+					: null
+			})
+		]
+	);
 	return { id, ref };
 }
 

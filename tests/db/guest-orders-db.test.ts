@@ -21,6 +21,7 @@ import {
 	forgetStaleCheckoutDetails,
 	saveCheckoutDetails
 } from '$lib/server/cart/checkout-details';
+import { testOrder } from '../helpers/fixtures';
 
 const tag = `g${process.pid}${Date.now() % 100000}`;
 const fresh = (n: string) => `${tag}-${n}@example.test`;
@@ -29,18 +30,15 @@ let refNo = 0;
 /** A guest order row as checkout leaves it (the fields that matter here). */
 async function guestOrder(email: string, userId: string | null = null) {
 	const ref = `GT-${tag.slice(-6)}${refNo++}`.toUpperCase().slice(0, 16);
-	await db.insert(orders).values({
+	await testOrder({
 		ref,
 		userId,
 		email,
 		buyerName: 'Guest Buyer',
 		address: { line1: '3 Ferry Lane', city: 'Linden Ford', postcode: '05002', country: 'US' },
-		currency: 'USD',
 		subtotalMinor: 3200,
 		shippingMinor: 800,
-		totalMinor: 4000,
-		status: 'paid',
-		createdAt: new Date()
+		totalMinor: 4000
 	});
 	return ref;
 }

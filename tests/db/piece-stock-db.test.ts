@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import { pieceStock } from '$lib/server/stock/piece-stock';
-import { testPiece, testWood } from './helpers/fixtures';
+import { testPiece, testWood } from '../helpers/fixtures';
 import { actions } from '../../src/routes/workshop/pieces/[id]/+page.server';
 
 const tag = `st${process.pid}${Date.now() % 100000}`;

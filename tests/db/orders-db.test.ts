@@ -7,6 +7,7 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
+import { testPiece, testStock, testWood } from '../helpers/fixtures';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, OrderError } from '$lib/server/orders/place';
 import { releaseExpiredHolds, releaseOrder } from '$lib/server/orders/holds';
@@ -82,41 +83,14 @@ async function setShelf(q: number) {
 }
 
 beforeAll(async () => {
-	[{ id: woodId }] = await db
-		.insert(s.woods)
-		.values({
-			slug: `${tag}-wood`,
-			name: 'Test basswood',
-			botanicalName: 'Tilia americana',
-			specificGravityMilli: 370,
-			densityKgM3: 414,
-			sideHardnessN: 1800,
-			priceAddOnMinor: 250,
-			toneLight: '#f1e4c8',
-			toneDark: '#c9ae82',
-			character: 'test'
-		})
-		.$returningId();
-	[{ id: pieceId }] = await db
-		.insert(s.pieces)
-		.values({
-			slug: `${tag}-piece`,
-			title: 'Test ornament',
-			kind: 'ornament',
-			summary: 'test',
-			description: 'test',
-			lengthMm: 75,
-			widthMm: 75,
-			thicknessMm: 6,
-			basePriceMinor: 1400,
-			personalisable: true,
-			leadDays: 10,
-			pattern: { diameterMm: 50, count: 1 },
-			createdAt: new Date()
-		})
-		.$returningId();
-	await db.insert(s.pieceWoods).values({ pieceId, woodId });
-	await db.insert(s.stock).values({ pieceId, woodId, place: 'workshop', quantity: 2 });
+	woodId = await testWood(`${tag}-wood`, { name: 'Test basswood', priceAddOnMinor: 250 });
+	pieceId = await testPiece(`${tag}-piece`, [woodId], {
+		title: 'Test ornament',
+		kind: 'ornament',
+		personalisable: true,
+		basePriceMinor: 1400
+	});
+	await testStock(pieceId, woodId, 2);
 });
 
 afterAll(async () => {

@@ -10,7 +10,7 @@ import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import { addLine, CartError, setQuantity } from '$lib/server/cart';
 import { createPendingOrder, OrderError } from '$lib/server/orders/place';
-import { testPiece, testWood } from './helpers/fixtures';
+import { testPiece, testWood } from '../helpers/fixtures';
 import type { CheckoutInput } from '$lib/cart/checkout-schema';
 
 /** What a call threw, for checking; fails the test when it did not throw. */
