@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signInAs } from '../helpers/auth';
+import { signInAs } from '../../helpers/auth';
 
 /**
  * The owner sets the online sales tax (rate and basis) in Settings, next to the caution that the
