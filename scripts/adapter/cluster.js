@@ -66,6 +66,7 @@ const pageCacheFront = (req, res, next) => {
 	if (!front || !front(req, res)) next();
 };
 `;
+/** @param {string} src adapter-node's server entry */
 export function withPageCacheFront(src) {
 	const at = src.indexOf('const server = polka(');
 	if (at < 0 || !src.includes(HANDLER_USE))
@@ -77,7 +78,12 @@ export function withPageCacheFront(src) {
 	);
 }
 
-/** `out` must be the folder given to adapter-node. */
+/**
+ * `out` must be the folder given to adapter-node.
+ * @param {import('@sveltejs/kit').Adapter} inner
+ * @param {string} out
+ * @returns {import('@sveltejs/kit').Adapter}
+ */
 export function clustered(inner, out) {
 	return {
 		...inner,

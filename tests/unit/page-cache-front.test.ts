@@ -70,11 +70,12 @@ describe('page cache front', () => {
 	it('answers a stored page with the same status, headers and bytes as the handle', async () => {
 		const path = freshPath();
 		await stored(path);
-		for (const h of [
+		const asked: Record<string, string>[] = [
 			{},
 			{ 'accept-encoding': 'gzip, deflate, br' },
 			{ 'accept-encoding': 'gzip' }
-		]) {
+		];
+		for (const h of asked) {
 			const slow = await viaHandle(path, h);
 			expect(slow.res.headers.get('x-page-cache')).toBe('hit');
 			const fast = earlyAnswer('GET', path, headerFn(h));
