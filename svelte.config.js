@@ -13,11 +13,6 @@ const config = {
 		// `node build` runs WEB_CONCURRENCY processes (scripts/adapter/cluster.js).
 		adapter: clustered(adapter({ out }), out),
 		outDir: process.env.CHIPSTALL_KIT_DIR || '.svelte-kit',
-		// Stylesheets under 64 KB go into the page's head instead of a separate request: on a slow
-		// phone connection the stylesheet was the one request every first paint waited for, a
-		// round trip after the page itself (the lab LCP in `npm run bench`). Their fonts and images
-		// are still fetched and cached as files; the page cache stores the page with its style.
-		inlineStyleThreshold: 64 * 1024,
 		// The cross-site form check is made in src/lib/server/http/address.ts, just as strictly
 		// (form content types, Origin must equal ORIGIN), so a refusal can say why and link to the
 		// shop's own address. '*' is how this SvelteKit turns its own (bare text) check off.
