@@ -4,6 +4,9 @@
  * beside a bare node:http server serving the same bytes as /shop, database queries per request,
  * the shop's p99 under a pattern flood (slot, see bench/flood.ts), JavaScript and CSS per public
  * page from the build's manifest, and lab LCP from Lighthouse. Prints; never fails on a target.
+ *
+ * `BENCH_ONLY=load` (the HTTP load and its ratios) or `BENCH_ONLY=lcp` (Lighthouse alone) runs one
+ * part and writes bench/results-<part>.json instead, leaving the full run's results.json alone.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
@@ -24,6 +27,7 @@ import {
 	DURATION_S,
 	formatLoad,
 	measure,
+	WARM_S,
 	startBareServer,
 	type LoadFigure
 } from './bench/load';
@@ -54,6 +58,11 @@ const PROCESSES = Math.max(2, Number(e.BENCH_PROCESSES) || availableParallelism(
 const PATTERN = '/api/pattern?diameter=70&count=3&width=100&length=300&initials=HMW&wood=cherry';
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const out: string[] = [];
+const ONLY = e.BENCH_ONLY?.trim() || '';
+if (ONLY && ONLY !== 'load' && ONLY !== 'lcp') {
+	console.error(`BENCH_ONLY is 'load' or 'lcp', not '${ONLY}'.`);
+	process.exit(1);
+}
 const say = (s = '') => {
 	out.push(s);
 	console.log(s);
@@ -79,6 +88,48 @@ async function queriesPerRequest(url: string, n = 50, headers: Record<string, st
 	}
 }
 
+/** Writes one part's figures (BENCH_ONLY) beside the full run's results.json. */
+function writePart(part: string, figures: Record<string, unknown>) {
+	mkdirSync(path.join(ROOT, 'bench'), { recursive: true });
+	const file = path.join(ROOT, 'bench', `results-${part}.json`);
+	const all = {
+		at: new Date().toISOString(),
+		connections: CONNECTIONS,
+		durationS: DURATION_S,
+		warmS: WARM_S,
+		...figures
+	};
+	writeFileSync(file, JSON.stringify(all, null, 2) + '\n');
+	say(`Written to ${path.relative(ROOT, file)}`);
+}
+/** Thrown to leave the run early once a BENCH_ONLY part is written. */
+class Done extends Error {}
+const DONE = new Done('part written');
+
+/** Lab LCP for /shop and the piece page, both presets, after their photos were fetched once. */
+async function lighthouseStep() {
+	say(
+		'\n== Lab LCP (Lighthouse 12.2.3, Debian Chromium, simulated throttling; target < 1.0 s)\n' +
+			'   mobile: 412×823 DPR 1.75, CPU 4× slower, 150 ms RTT, 1.6 Mbit/s · desktop: 1350×940, 40 ms RTT, 10 Mbit/s'
+	);
+	// As after any first visitor: the page and its photos are in the process's caches.
+	for (const p of ['/shop', PIECE]) {
+		const html: string = await (await fetch(`${base}${p}`)).text();
+		for (const photo of html.match(/\/photos\/[^\s",]+\.webp/g) ?? [])
+			await (await fetch(`${base}${photo}`)).arrayBuffer();
+	}
+	const LH_RUNS = Number(e.BENCH_LIGHTHOUSE_RUNS || 3);
+	const lcp = {
+		shop: labLcp(`${base}/shop`, work, 'mobile', LH_RUNS),
+		piece: labLcp(`${base}${PIECE}`, work, 'mobile', LH_RUNS),
+		shopDesktop: labLcp(`${base}/shop`, work, 'desktop', LH_RUNS),
+		pieceDesktop: labLcp(`${base}${PIECE}`, work, 'desktop', LH_RUNS)
+	};
+	for (const [k, v] of Object.entries(lcp))
+		formatLab(k.replace('Desktop', ''), v).forEach((l) => say(l));
+	return lcp;
+}
+
 const running = await bringUp();
 const app: Started[] = [];
 let exitCode = 0;
@@ -87,8 +138,9 @@ try {
 	if ((await run(BIN('vite'), ['build', '--logLevel', 'warn'], e)) !== 0)
 		throw new Error('build failed');
 
-	say('\n== Layout engine (in this process)');
-	const engine = await engineTimings();
+	// Skipped when one part runs alone (BENCH_ONLY).
+	const engine = ONLY ? { lines: [], figures: null } : await engineTimings();
+	if (!ONLY) say('\n== Layout engine (in this process)');
 	engine.lines.forEach((l) => say(l));
 
 	/** Starts the built app with `processes` workers (WEB_CONCURRENCY, see scripts/adapter/cluster.js). */
@@ -109,6 +161,10 @@ try {
 			for (const p of ['/shop', PIECE]) await (await fetch(`${base}${p}`)).arrayBuffer();
 	};
 	await startApp(1);
+	if (ONLY === 'lcp') {
+		writePart('lcp', { lcp: await lighthouseStep() });
+		throw DONE;
+	}
 	const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 	const cookie = await signInCookie(base, owner.email, owner.password);
 	const shopRes = await fetch(`${base}/shop`);
@@ -171,6 +227,10 @@ try {
 	say(`basket shop/bare ratio (brotli): ${ratios.basketShopBr.toFixed(2)}`);
 	say(`basket piece/bare ratio (brotli): ${ratios.basketPieceBr.toFixed(2)}`);
 	say('targets: cached ≥ 0.5 of bare, with a basket ≥ 0.4 of bare');
+	if (ONLY === 'load') {
+		writePart('load', { load, shopper, ratios });
+		throw DONE;
+	}
 
 	say('\n== Unique-address flood: 100 connections of never-seen query strings, 10 of visitors');
 	// Renders still queued from the basket runs would otherwise land in this one's figures.
@@ -238,25 +298,7 @@ try {
 		);
 	}
 
-	say(
-		'\n== Lab LCP (Lighthouse 12.2.3, Debian Chromium, simulated throttling; target < 1.0 s)\n' +
-			'   mobile: 412×823 DPR 1.75, CPU 4× slower, 150 ms RTT, 1.6 Mbit/s · desktop: 1350×940, 40 ms RTT, 10 Mbit/s'
-	);
-	// As after any first visitor: the page and its photos are in the process's caches.
-	for (const p of ['/shop', PIECE]) {
-		const html = await (await fetch(`${base}${p}`)).text();
-		for (const m of html.matchAll(/\/photos\/[^\s",]+\.webp/g))
-			await (await fetch(`${base}${m[0]}`)).arrayBuffer();
-	}
-	const LH_RUNS = Number(e.BENCH_LIGHTHOUSE_RUNS || 3);
-	const lcp = {
-		shop: labLcp(`${base}/shop`, work, 'mobile', LH_RUNS),
-		piece: labLcp(`${base}${PIECE}`, work, 'mobile', LH_RUNS),
-		shopDesktop: labLcp(`${base}/shop`, work, 'desktop', LH_RUNS),
-		pieceDesktop: labLcp(`${base}${PIECE}`, work, 'desktop', LH_RUNS)
-	};
-	for (const [k, v] of Object.entries(lcp))
-		formatLab(k.replace('Desktop', ''), v).forEach((l) => say(l));
+	const lcp = await lighthouseStep();
 
 	say(
 		'\nFigures on a shared 2-core machine vary with whatever else runs; compare runs side by side.'
@@ -269,6 +311,7 @@ try {
 				at: new Date().toISOString(),
 				connections: CONNECTIONS,
 				durationS: DURATION_S,
+				warmS: WARM_S,
 				appProcesses: 1,
 				clustered: { processes: PROCESSES, load: clustered },
 				shopBareRatioClustered: ratio(clustered[0]),
@@ -293,8 +336,10 @@ try {
 	);
 	say('Written to bench/results.json');
 } catch (err) {
-	console.error(err);
-	exitCode = 1;
+	if (err !== DONE) {
+		console.error(err);
+		exitCode = 1;
+	}
 } finally {
 	await stopAll(app);
 	await bringDown(running);

@@ -14,6 +14,7 @@ import { addressHandle } from '$lib/server/http/address';
 import { availabilityHandle, noteDatabaseDown } from '$lib/server/http/availability';
 import { httpCacheHandle } from '$lib/server/http/http-cache';
 import { pageCacheHandle } from '$lib/server/http/page-cache';
+import { installPageCacheFront } from '$lib/server/http/page-cache-front';
 import { photoCacheHandle } from '$lib/server/http/photo-cache';
 import { bodyLimitFor, declaredTooLarge, settleUnreadBody } from '$lib/server/http/body-limit';
 import { answerClientErrorsWithJson } from '$lib/server/http/client-errors';
@@ -31,6 +32,8 @@ export const init: ServerInit = async () => {
 	// The shop's zone, locale, currency and words, held for every formatter in this process.
 	await loadShopProfile().catch(() => undefined);
 	answerClientErrorsWithJson();
+	// Stored public pages answered before SvelteKit by the built server (page-cache-front.ts).
+	installPageCacheFront();
 	startHoldSweeper();
 	startCheckoutDetailsSweeper();
 	startOutboxDrainer();

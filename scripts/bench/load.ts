@@ -1,6 +1,7 @@
 /**
  * HTTP load with autocannon: requests/s, p50 and p99 at 50 connections for 10 s, and a bare
  * single-process node:http server answering the same bytes as /shop, as the machine's ceiling.
+ * Every URL, the bare server's included, is warmed by a short untimed run of the same load first.
  */
 import { spawn } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
@@ -19,12 +20,17 @@ export type LoadFigure = {
 
 export const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS || 50);
 export const DURATION_S = Number(process.env.BENCH_SECONDS || 10);
+/** Untimed seconds of the same load before each timed run, so no figure is a cold start. */
+export const WARM_S = Number(process.env.BENCH_WARM_SECONDS ?? 2);
 
 export async function measure(
 	name: string,
 	url: string,
 	headers: Record<string, string> = {}
 ): Promise<LoadFigure> {
+	// The first run after a start or a page-cache change would otherwise measure JIT warm-up, the
+	// first render and the compression of the stored entry, not the steady state.
+	if (WARM_S > 0) await autocannon({ url, connections: CONNECTIONS, duration: WARM_S, headers });
 	const r = await autocannon({ url, connections: CONNECTIONS, duration: DURATION_S, headers });
 	return {
 		name,

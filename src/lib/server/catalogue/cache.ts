@@ -64,6 +64,14 @@ export async function cachedCatalogue<T>(key: string, load: () => Promise<T>): P
 	return p;
 }
 
+/**
+ * The version as last read, while that read is under CHECK_MS old; null when it is due again (the
+ * page cache's front then leaves the request to SvelteKit, whose handle asks the database).
+ */
+export function catalogueVersionIfFresh(now = Date.now()): string | null {
+	return version !== null && now - checkedAt < CHECK_MS ? version : null;
+}
+
 /** A strong validator for HTTP caching of pages built from the catalogue alone. */
 export async function catalogueVersion(): Promise<string> {
 	return currentVersion();

@@ -35,9 +35,22 @@ export function isFormWrite(request: Request): boolean {
 
 /** The host the browser used when it is not the origin's (null when it is, or cannot be told). */
 export function otherHost(request: Request, origin: URL): string | null {
-	const host = request.headers.get('host')?.trim().toLowerCase();
+	return otherHostOf(
+		request.headers.get('host') ?? undefined,
+		request.headers.get('x-forwarded-host') ?? undefined,
+		origin
+	);
+}
+
+/** The same from the Host and X-Forwarded-Host values (the page cache's front reads them raw). */
+export function otherHostOf(
+	hostHeader: string | undefined,
+	forwardedHeader: string | undefined,
+	origin: URL
+): string | null {
+	const host = hostHeader?.trim().toLowerCase();
 	if (!host || host === origin.host) return null;
-	const forwarded = request.headers.get('x-forwarded-host')?.split(',', 1)[0].trim().toLowerCase();
+	const forwarded = forwardedHeader?.split(',', 1)[0].trim().toLowerCase();
 	if (forwarded === origin.host) return null;
 	return host;
 }

@@ -1,12 +1,16 @@
 import { createHash } from 'node:crypto';
-import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+import { promisify } from 'node:util';
+import { brotliCompress, constants, gzip } from 'node:zlib';
 import type { Handle } from '@sveltejs/kit';
 import { LRUCache } from 'lru-cache';
-import { catalogueVersion } from '$lib/server/catalogue/cache';
+import { catalogueVersion, catalogueVersionIfFresh } from '$lib/server/catalogue/cache';
+import { config } from '$lib/server/config';
 import { today } from '$lib/locale/dates';
 import { woodFilterOptions } from '$lib/server/catalogue/catalogue';
 import { fitsRequest, pageCacheKey } from './page-cache-key';
 import { scriptPreloadsIntoHead } from './link-preloads';
+import { otherHostOf } from './address';
+import { applySecurityHeaders } from './security-headers';
 
 /**
  * Whole rendered public pages, the same for every visitor, kept per process.
@@ -31,20 +35,39 @@ import { scriptPreloadsIntoHead } from './link-preloads';
  *
  * Sits before the ETag handle: a miss goes through it, so the stored headers carry the ETag, and a
  * hit answers If-None-Match itself.
+ *
+ * Requests for a page being rendered wait for that one render rather than starting their own: 50
+ * visitors arriving together at an expired piece page made 50 renders and 50 compressions. The
+ * compression runs off the event loop (zlib's thread pool).
+ *
+ * Hits are also answered before SvelteKit sees the request, by `earlyAnswer` (called from the
+ * built server, page-cache-front.ts), with the same bytes and headers, the security headers
+ * included; it answers only while this handle has confirmed the catalogue version and the day
+ * within the last CHECK_MS, and leaves everything else (a redirect to ORIGIN, a body, an
+ * Authorization header) to SvelteKit.
  */
 /** Bytes kept per process (every stored encoding counted); least recently used go first. */
 const MAX_BYTES = 48 * 1024 * 1024;
 
 type Bytes = Uint8Array<ArrayBuffer>;
-type Encoded = { body: Bytes; headers: Headers };
+/** `early`: the same headers as sent to the visitor, security headers included, for node:http. */
+type Encoded = { body: Bytes; headers: Headers; early: Record<string, string> };
 type Stored = {
 	status: number;
 	etag: string | null;
+	/** The path as the client sent it when stored; the front answers only that exact path. */
+	path: string;
 	identity: Encoded;
 	gzip: Encoded;
 	br: Encoded;
 	notModified: Headers;
+	notModifiedEarly: Record<string, string>;
 };
+
+/** How long a confirmed version (and day) lets the front answer without asking SvelteKit. */
+const CONFIRMED_MS = 1000;
+const brotliAsync = promisify(brotliCompress);
+const gzipAsync = promisify(gzip);
 
 /**
  * How long a piece page is kept: its "ready by" date comes from the carving queue, and order
@@ -53,6 +76,11 @@ type Stored = {
 const QUEUE_DATE_MS = 60_000;
 
 let version = '';
+/** When this handle last confirmed `version`, and the woods read under it, for the front. */
+let confirmedAt = 0;
+let confirmedWoods: ReadonlySet<string> | null = null;
+/** Renders under way for storing, by key: requests for the same page wait for them. */
+const inFlight = new Map<string, Promise<Stored | null>>();
 const pages = new LRUCache<string, Stored>({
 	maxSize: MAX_BYTES,
 	sizeCalculation: (s) =>
@@ -70,15 +98,28 @@ async function knownWoods(): Promise<ReadonlySet<string>> {
 	return set;
 }
 
-function encoded(base: Headers, body: Bytes, encoding: string | null): Encoded {
+/** The headers as the visitor receives them (after the outer handle), as node:http takes them. */
+function sent(headers: Headers, https: boolean): Record<string, string> {
+	const out = new Headers(headers);
+	applySecurityHeaders(out, https);
+	return Object.fromEntries(out);
+}
+
+function encoded(base: Headers, body: Bytes, encoding: string | null, https: boolean): Encoded {
 	const headers = new Headers(base);
 	headers.set('content-length', String(body.byteLength));
 	if (encoding) headers.set('content-encoding', encoding);
-	return { body, headers };
+	return { body, headers, early: sent(headers, https) };
 }
 
 /** Builds everything a hit needs once, so answering is a look-up. */
-function store(response: Response, rendered: Bytes, data: boolean): Stored {
+async function store(
+	response: Response,
+	rendered: Bytes,
+	data: boolean,
+	path: string,
+	https: boolean
+): Promise<Stored> {
 	const base = new Headers(response.headers);
 	base.set('x-page-cache', 'hit');
 	base.append('vary', 'Accept-Encoding');
@@ -94,27 +135,31 @@ function store(response: Response, rendered: Bytes, data: boolean): Stored {
 		etag = `"${createHash('sha1').update(bytes).digest('base64url')}"`;
 		base.set('etag', etag);
 	}
-	const br = brotliCompressSync(bytes, {
-		params: {
-			[constants.BROTLI_PARAM_QUALITY]: 9,
-			[constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength
-		}
-	});
-	const gz = gzipSync(bytes, { level: 9 });
+	const [br, gz] = await Promise.all([
+		brotliAsync(bytes, {
+			params: {
+				[constants.BROTLI_PARAM_QUALITY]: 9,
+				[constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength
+			}
+		}),
+		gzipAsync(bytes, { level: 9 })
+	]);
 	const notModified = new Headers(base);
 	notModified.delete('content-length');
 	return {
 		status: response.status,
 		etag,
-		identity: encoded(base, bytes, null),
-		gzip: encoded(base, new Uint8Array(gz), 'gzip'),
-		br: encoded(base, new Uint8Array(br), 'br'),
-		notModified
+		path,
+		identity: encoded(base, bytes, null, https),
+		gzip: encoded(base, new Uint8Array(gz), 'gzip', https),
+		br: encoded(base, new Uint8Array(br), 'br', https),
+		notModified,
+		notModifiedEarly: sent(notModified, https)
 	};
 }
 
 /** The encoding the client accepts that we hold, brotli first (RFC 9110 §12.5.3, q=0 refuses). */
-function pick(stored: Stored, accept: string | null): Encoded {
+function pick(stored: Stored, accept: string | null | undefined): Encoded {
 	if (!accept) return stored.identity;
 	const ok = (name: string) =>
 		accept.split(',').some((part) => {
@@ -127,13 +172,17 @@ function pick(stored: Stored, accept: string | null): Encoded {
 	return stored.identity;
 }
 
-function answer(stored: Stored, request: Request): Response {
-	const inm = request.headers.get('if-none-match');
-	if (
-		inm &&
+/** If-None-Match names the stored page (weak comparison, RFC 9110 §13.1.2). */
+function unchanged(stored: Stored, inm: string | null | undefined): boolean {
+	return (
+		!!inm &&
 		stored.etag !== null &&
 		inm.split(',').some((t) => t.trim().replace(/^W\//, '') === stored.etag)
-	) {
+	);
+}
+
+function answer(stored: Stored, request: Request): Response {
+	if (unchanged(stored, request.headers.get('if-none-match'))) {
 		return new Response(null, { status: 304, headers: stored.notModified });
 	}
 	const chosen = pick(stored, request.headers.get('accept-encoding'));
@@ -158,10 +207,12 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 	const asked = new URL(request.url);
 	if (pageCacheKey(asked, NO_WOODS) === null) return resolve(event);
 	let v: string;
+	let woods: ReadonlySet<string>;
 	let target: ReturnType<typeof pageCacheKey>;
 	try {
 		v = `${await catalogueVersion()}|${today()}`;
-		target = pageCacheKey(asked, await knownWoods());
+		woods = await knownWoods();
+		target = pageCacheKey(asked, woods);
 	} catch {
 		// No version, no cache: the page renders as if uncached, so its loads meet the same error
 		// inside SvelteKit (a 503 while the database is down) and every outer handle still runs.
@@ -172,29 +223,114 @@ export const pageCacheHandle: Handle = async ({ event, resolve }) => {
 		pages.clear();
 		version = v;
 	}
+	confirmedAt = Date.now();
+	confirmedWoods = woods;
 	const hit = pages.get(target.key);
 	if (hit) return answer(hit, request);
+	const rendering = inFlight.get(target.key);
+	if (rendering) {
+		const stored = await rendering;
+		return stored ? answer(stored, request) : resolve(event);
+	}
+	if (!storable || method !== 'GET') return resolve(event);
 
-	const response = await resolve(event);
+	const key = target.key;
+	let settle: (s: Stored | null) => void = () => {};
+	const flight = new Promise<Stored | null>((r) => (settle = r));
+	inFlight.set(key, flight);
+	const done = (s: Stored | null) => {
+		settle(s);
+		if (inFlight.get(key) === flight) inFlight.delete(key);
+	};
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (err) {
+		done(null);
+		throw err;
+	}
 	if (
-		!storable ||
-		method !== 'GET' ||
 		response.status !== 200 ||
 		!fitsRequest(response.headers.get('content-type'), target.data) ||
 		response.headers.has('set-cookie') ||
 		response.headers.has('content-encoding') ||
 		/'nonce-/.test(response.headers.get('content-security-policy') ?? '')
 	) {
+		done(null);
 		return response;
 	}
-	const bytes = new Uint8Array(await response.arrayBuffer());
+	let bytes: Bytes;
+	try {
+		bytes = new Uint8Array(await response.arrayBuffer());
+	} catch (err) {
+		done(null);
+		throw err;
+	}
 	// Only keep what was rendered under the version we looked up; a page begun before an edit
 	// and finished after it would otherwise outlive the edit.
 	if (v === version) {
-		const stored = store(response, bytes, target.data);
-		pages.set(target.key, stored, target.piece ? { ttl: QUEUE_DATE_MS } : undefined);
-	}
+		const https = event.url.protocol === 'https:';
+		store(response, bytes, target.data, asked.pathname, https).then(
+			(stored) => {
+				if (v === version)
+					pages.set(key, stored, target.piece ? { ttl: QUEUE_DATE_MS } : undefined);
+				done(v === version ? stored : null);
+			},
+			(err: unknown) => {
+				console.error(err);
+				done(null);
+			}
+		);
+	} else done(null);
 	const out = new Headers(response.headers);
 	out.set('x-page-cache', 'miss');
 	return new Response(bytes, { status: response.status, headers: out });
 };
+
+/** What the front writes: status, headers as node:http takes them, and the body (null: none). */
+export type EarlyAnswer = { status: number; headers: Record<string, string>; body: Bytes | null };
+
+let origin: URL | null = null;
+
+/**
+ * A stored page for a request as node:http received it, before SvelteKit: null whenever the
+ * handle chain must see the request (not a plain GET or HEAD of a stored public page at the
+ * exact path it was stored under, a body, Authorization, another host name to redirect from,
+ * or the catalogue version or day not confirmed within CONFIRMED_MS).
+ */
+export function earlyAnswer(
+	method: string | undefined,
+	rawUrl: string | undefined,
+	header: (name: string) => string | undefined,
+	now = Date.now()
+): EarlyAnswer | null {
+	if ((method !== 'GET' && method !== 'HEAD') || !rawUrl || rawUrl[0] !== '/') return null;
+	if (now - confirmedAt >= CONFIRMED_MS || !confirmedWoods) return null;
+	const fresh = catalogueVersionIfFresh(now);
+	if (fresh === null || !version.startsWith(`${fresh}|`)) return null;
+	if (header('authorization') !== undefined || header('transfer-encoding') !== undefined)
+		return null;
+	const length = header('content-length');
+	if (length !== undefined && length !== '0') return null;
+	origin ??= new URL(config.origin);
+	if (config.redirectOtherHosts && otherHostOf(header('host'), header('x-forwarded-host'), origin))
+		return null;
+	let url: URL;
+	try {
+		url = new URL(rawUrl, origin);
+	} catch {
+		return null;
+	}
+	const target = pageCacheKey(url, confirmedWoods);
+	if (!target) return null;
+	const stored = pages.get(target.key);
+	if (!stored || stored.path !== url.pathname) return null;
+	if (unchanged(stored, header('if-none-match')))
+		return { status: 304, headers: stored.notModifiedEarly, body: null };
+	const chosen = pick(stored, header('accept-encoding'));
+	return {
+		status: stored.status,
+		headers: chosen.early,
+		body: method === 'HEAD' ? null : chosen.body
+	};
+}

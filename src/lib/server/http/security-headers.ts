@@ -19,16 +19,17 @@ const HSTS = 'max-age=63072000; includeSubDomains';
 export function withSecurityHeaders(response: Response, https: boolean): Response {
 	let res = response;
 	try {
-		apply(res.headers, https);
+		applySecurityHeaders(res.headers, https);
 	} catch {
 		// A response with immutable headers (a fetched one passed through): copy it first.
 		res = new Response(response.body, response);
-		apply(res.headers, https);
+		applySecurityHeaders(res.headers, https);
 	}
 	return res;
 }
 
-function apply(headers: Headers, https: boolean) {
+/** The same headers set on `headers` in place (the page cache stores them with a page). */
+export function applySecurityHeaders(headers: Headers, https: boolean) {
 	// A route may ask for stricter (a reset link's page sends no Referer at all).
 	for (const [k, v] of Object.entries(ALWAYS)) if (!headers.has(k)) headers.set(k, v);
 	if (!headers.has('content-security-policy')) headers.set('content-security-policy', NON_PAGE_CSP);
