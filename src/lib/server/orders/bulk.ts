@@ -3,7 +3,8 @@ import { statusLabel, type OrderStatus } from '$lib/orders/status';
 import { db } from '../db';
 import { orders } from '../db/schema';
 import { recomputeReadyBy } from '../queue/carving-queue';
-import { moveOrder, StatusMoveError } from './status';
+import { moveOrder } from './status';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * Moves several orders to one status, each in its own transaction through the status table, so
@@ -21,7 +22,7 @@ export async function moveOrders(refs: string[], to: OrderStatus, userId: string
 			await moveOrder(o.id, to, { userId, why: `Moved with others to ${statusLabel(to)}` });
 			out.push({ ref, ok: true, message: `Now ${statusLabel(to)}.` });
 		} catch (err) {
-			if (!(err instanceof StatusMoveError)) throw err;
+			if (!(err instanceof DomainError)) throw err;
 			out.push({ ref, ok: false, message: err.message });
 		}
 	}

@@ -1,7 +1,7 @@
-import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
+import { isFailure, orFail } from '$lib/server/errors/form-answer';
 import { pieceForm, pieceFormInput } from '$lib/catalogue/piece-schema';
-import { SlugTaken, unknownWoodIds } from '$lib/server/catalogue/pieces-admin';
+import { unknownWoodIds } from '$lib/server/catalogue/pieces-admin';
 import type { PieceForm } from '$lib/catalogue/piece-schema';
 
 /**
@@ -9,20 +9,18 @@ import type { PieceForm } from '$lib/catalogue/piece-schema';
  * messages beside the fields and the values typed, so nothing is half-written.
  */
 export async function savePieceForm(request: Request, save: (f: PieceForm) => Promise<unknown>) {
-	const form = await request.formData();
 	// The form echoes the piece's own shape (woods as a list, the tick box as a boolean).
-	const values = pieceFormInput(form);
-	const parsed = await parseForm(form, pieceForm, { input: () => values });
-	if (!parsed.ok) return { failure: fail(400, { errors: parsed.errors, values }) };
-	const unknown = await unknownWoodIds(parsed.data.woodIds);
-	if (unknown.length) {
-		return { failure: fail(400, { errors: { woodIds: ['Choose woods from the list.'] }, values }) };
+	const parsed = await parseForm(request, pieceForm, { input: (_, form) => pieceFormInput(form) });
+	if (!parsed.ok) {
+		const values = parsed.input as ReturnType<typeof pieceFormInput>;
+		const message = parsed.issues[0]?.message ?? 'Check the form.';
+		return { failure: formFail(400, message, { errors: parsed.errors, values }) };
 	}
-	try {
-		return { result: await save(parsed.data) };
-	} catch (err) {
-		if (err instanceof SlugTaken)
-			return { failure: fail(400, { errors: { slug: [err.message] }, values }) };
-		throw err;
+	const values = pieceFormInput(parsed.form);
+	if ((await unknownWoodIds(parsed.data.woodIds)).length) {
+		const message = 'Choose woods from the list.';
+		return { failure: formFail(400, message, { errors: { woodIds: [message] }, values }) };
 	}
+	const result = await orFail(() => save(parsed.data), { values });
+	return isFailure(result) ? { failure: result } : { result };
 }

@@ -1,4 +1,3 @@
-import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { getSalesTaxBp, setSalesTaxBp } from '$lib/server/settings/sales-tax';
@@ -26,10 +25,10 @@ import {
 	shopInfo,
 	shopWords
 } from '$lib/settings/settings-schema';
-import { parseRateInputs, rateInputs, rateInputsFromForm } from './rates-table';
+import { rateInputs, rateInputsFromForm, ratesFormSchema, type RateInput } from './rates-table';
 import { recomputeReadyBy } from '$lib/server/queue/carving-queue';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 
 /** The rate as typed, in percent with up to two decimals (7.25 → 725 basis points). */
 const taxSchema = z.object({
@@ -129,16 +128,20 @@ export const actions: Actions = {
 	},
 	rates: async (event) => {
 		requireRole(event, 'owner');
-		const typed = rateInputsFromForm(await event.request.formData());
-		const parsed = parseRateInputs(typed, rateLine);
-		if (!parsed.ok)
-			return fail(400, {
+		const parsed = await parseForm(event.request, ratesFormSchema(rateLine), {
+			input: (_, form) => ({ rates: rateInputsFromForm(form) })
+		});
+		if (!parsed.ok) {
+			const [issue] = parsed.issues;
+			const row = issue.path[1];
+			return formFail(400, issue.message, {
 				section: 'rates',
-				errors: { rates: [parsed.error] },
-				rateRow: parsed.row ?? null,
-				rates: typed
+				errors: parsed.errors,
+				rateRow: typeof row === 'number' ? row : null,
+				rates: (parsed.input as { rates: RateInput[] }).rates
 			});
-		await replaceShippingRates(parsed.rows);
+		}
+		await replaceShippingRates(parsed.data);
 		return { saved: 'rates' };
 	}
 };

@@ -1,13 +1,15 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { readyByFor } from '$lib/queue/carving-queue';
 import { standardMinutes } from '$lib/queue/layout-minutes';
 import { queueOutlook } from '$lib/server/queue/carving-queue';
 import { getPiece, largerRosettePieces } from '$lib/server/catalogue/catalogue';
-import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
+import { addLine, cartCount, ensureCart } from '$lib/server/cart';
+import { DomainError } from '$lib/server/errors/domain-error';
+import { failFrom } from '$lib/server/errors/form-answer';
 import { addLineSchema } from '$lib/cart/cart-schema';
 import { hardnessWords, weightWords } from '$lib/catalogue/woods';
 import type { Actions, PageServerLoad } from './$types';
-import { fieldErrors, formTexts } from '$lib/forms/parse-form';
+import { firstError, formFail, parseForm } from '$lib/forms/parse-form';
 import { drawPreview } from '$lib/pattern/personaliser-draw';
 import { isRosetteStyle } from '$lib/pattern/styles';
 import type { LargerPiece } from '$lib/pattern/ways-out';
@@ -149,7 +151,11 @@ export const load: PageServerLoad = async ({ params }) => {
 export const actions: Actions = {
 	/** Adds the piece, personalised or ready-made; the server checks and prices it again. */
 	add: async ({ request, params, cookies, locals, url }) => {
-		const form = formTexts(await request.formData());
+		// A personalised line also needs initials, and the answer carries a preview.
+		const parsed = await parseForm(request, addLineSchema, {
+			input: (texts) => ({ ...texts, slug: params.slug })
+		});
+		const form = parsed.values;
 		const personalised = form.mode === 'personalised';
 		const values = {
 			mode: personalised ? 'personalised' : 'ready',
@@ -165,14 +171,13 @@ export const actions: Actions = {
 			if (!piece) return undefined;
 			return previewFor(piece, values, await largerRosettePieces(piece.pattern.diameterMm));
 		};
-		// Not parseForm: a personalised line also needs initials, and the answer carries a preview.
-		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
-		const errors = parsed.success ? {} : fieldErrors(parsed.error);
+		const errors = parsed.ok ? {} : { ...parsed.errors };
 		if (personalised && !values.initials.trim()) {
 			errors.initials = ['Type one to three letters for the rosette.'];
 		}
-		if (!parsed.success || Object.keys(errors).length) {
-			return fail(400, { errors, values, preview: await redrawn() });
+		if (!parsed.ok || Object.keys(errors).length) {
+			const message = firstError(errors) ?? 'Check the form.';
+			return formFail(400, message, { errors, values, preview: await redrawn() });
 		}
 
 		const input = { ...parsed.data, initials: personalised ? parsed.data.initials : undefined };
@@ -181,12 +186,9 @@ export const actions: Actions = {
 			await addLine(cartId, input);
 			return { added: true, count: await cartCount(cartId), values };
 		} catch (err) {
-			if (err instanceof CartError) {
-				return fail(err.status === 404 ? 404 : 400, {
-					errors: err.fields ?? { form: [err.message] },
-					values,
-					preview: err.fields?.initials ? await redrawn() : undefined
-				});
+			if (err instanceof DomainError) {
+				const preview = err.fields?.initials ? await redrawn() : undefined;
+				return failFrom(err, { values, preview });
 			}
 			throw err;
 		}

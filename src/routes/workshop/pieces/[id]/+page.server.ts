@@ -1,4 +1,4 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import {
@@ -7,17 +7,13 @@ import {
 	setPieceActive,
 	updatePiece
 } from '$lib/server/catalogue/pieces-admin';
-import {
-	deletePhoto,
-	listPhotos,
-	movePhoto,
-	PhotoNotFound,
-	setPhotoAlt
-} from '$lib/server/catalogue/photos';
+import { deletePhoto, listPhotos, movePhoto, setPhotoAlt } from '$lib/server/catalogue/photos';
 import { photoAlt } from '$lib/catalogue/photo-schema';
 import { stockAdjustForm, stockDelta } from '$lib/stock/stock-schema';
-import { adjustPieceStock, pieceStock, StockChangeError } from '$lib/server/stock/piece-stock';
-import { fieldErrors, firstError, formTexts, parseForm } from '$lib/forms/parse-form';
+import { adjustPieceStock, pieceStock } from '$lib/server/stock/piece-stock';
+import { parseForm } from '$lib/forms/parse-form';
+import { failFrom, runForm } from '$lib/server/errors/form-answer';
+import { DomainError } from '$lib/server/errors/domain-error';
 import { savePieceForm } from '../piece-actions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -37,15 +33,8 @@ async function withPhoto<S extends z.ZodType>(
 	schema: S,
 	run: (p: z.infer<S>) => Promise<void>
 ) {
-	const parsed = await parseForm(request, schema);
-	if (!parsed.ok) return fail(400, { photoError: firstError(parsed.errors) });
-	try {
-		await run(parsed.data);
-	} catch (err) {
-		if (err instanceof PhotoNotFound) return fail(404, { photoError: err.message });
-		throw err;
-	}
-	return { photoSaved: true };
+	const saved = (p: z.infer<S>) => run(p).then(() => ({ photoSaved: true }));
+	return runForm(request, schema, saved, { form: 'photo' });
 }
 
 export const load: PageServerLoad = async (event) => {
@@ -102,11 +91,8 @@ export const actions: Actions = {
 	stock: async (event) => {
 		const user = requireRole(event, 'owner');
 		const id = pieceId(event.params.id);
-		const values = formTexts(await event.request.formData());
-		const parsed = stockAdjustForm.safeParse(values);
-		if (!parsed.success) {
-			return fail(400, { stockErrors: fieldErrors(parsed.error), stockValues: values });
-		}
+		const parsed = await parseForm(event.request, stockAdjustForm, { extra: { form: 'stock' } });
+		if (!parsed.ok) return parsed.failure;
 		const { woodId, place, reason } = parsed.data;
 		try {
 			const r = await adjustPieceStock(
@@ -116,12 +102,9 @@ export const actions: Actions = {
 			);
 			return { stockSaved: r.quantity };
 		} catch (err) {
-			if (!(err instanceof StockChangeError)) throw err;
+			if (!(err instanceof DomainError)) throw err;
 			if (err.status === 404) error(404, err.message);
-			return fail(err.status, {
-				stockErrors: { [err.field ?? 'form']: [err.message] },
-				stockValues: values
-			});
+			return failFrom(err, { form: 'stock', values: parsed.values });
 		}
 	}
 };
