@@ -31,7 +31,7 @@ export const load: PageServerLoad = async (event) => {
  * One form of the page: who may use it, its schema, and the domain step, which answers with the
  * sentence shown once done. Every answer names its form, so the page shows it beside that form.
  */
-function step<S extends z.ZodType>(
+async function step<S extends z.ZodType>(
 	event: RequestEvent,
 	form: string,
 	who: ('owner' | 'helper')[],
