@@ -11,11 +11,11 @@ import * as s from '$lib/server/db/schema';
 import { mailTo, testPiece, testWood } from '../helpers/fixtures';
 import { createFair } from '$lib/server/fairs/fairs';
 import { placeBoothOrder } from '$lib/server/booth/order';
-import { FairError } from '$lib/server/booth/errors';
 import { moveOrder } from '$lib/server/orders/status';
 import { fairFormSchema } from '$lib/fairs/schemas';
 import { POST as shipApi } from '../../src/routes/api/workshop/orders/[ref]/shipments/+server';
 import { actions } from '../../src/routes/workshop/orders/[ref]/+page.server';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `bo${process.pid}${Date.now() % 100000}`;
 let woodId = 0;
@@ -167,7 +167,7 @@ describe('booth order through the orders module', () => {
 
 	it('refuses a deposit above the total and writes nothing', async () => {
 		const o = boothOrder(2, { depositMinor: 2146 });
-		await expect(placeBoothOrder(fairId, o, helper)).rejects.toBeInstanceOf(FairError);
+		await expect(placeBoothOrder(fairId, o, helper)).rejects.toBeInstanceOf(DomainError);
 		expect(await db.select().from(s.orders).where(eq(s.orders.email, o.email))).toEqual([]);
 		expect(await db.select().from(s.boothSales).where(eq(s.boothSales.id, o.id))).toEqual([]);
 	});

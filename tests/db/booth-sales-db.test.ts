@@ -18,10 +18,10 @@ import { placeBoothOrder } from '$lib/server/booth/order';
 import { closeFair, fairTally } from '$lib/server/booth/tally';
 import { fairCsv, fairReport } from '$lib/server/fairs/report';
 import { moneyReport } from '$lib/server/fairs/money-report';
-import { FairError } from '$lib/server/booth/errors';
 import { getShopInfo } from '$lib/server/settings/shop-settings';
 import { fairFormSchema } from '$lib/fairs/schemas';
 import { syncAnswerSchema } from '$lib/booth/sync-message';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `bs${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -172,7 +172,7 @@ describe('void', () => {
 				{ id: `${tag}-void-x`, saleId: 'no-such-sale', at: tomorrow, reason: 'x' },
 				owner
 			)
-		).rejects.toBeInstanceOf(FairError);
+		).rejects.toBeInstanceOf(DomainError);
 	});
 });
 

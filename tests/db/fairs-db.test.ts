@@ -18,10 +18,10 @@ import { fairCsv, fairReport } from '$lib/server/fairs/report';
 import { moneyCsv, moneyReport } from '$lib/server/fairs/money-report';
 import { checklistPdf } from '$lib/server/fairs/checklist-pdf';
 import { PDFDocument } from 'pdf-lib';
-import { FairError } from '$lib/server/booth/errors';
 import { setFairHelpers } from '$lib/server/fairs/fair-helpers';
 import { fairFormSchema, countSchema } from '$lib/fairs/schemas';
 import { POST } from '../../src/routes/api/booth/[fairId]/sales/+server';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `f${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -94,7 +94,7 @@ describe('load-out', () => {
 
 	it('refuses a load-out larger than the shelf and changes nothing', async () => {
 		await expect(loadOut(fairId, [{ pieceId, woodId, quantity: 11 }], owner.id)).rejects.toThrow(
-			FairError
+			DomainError
 		);
 		expect(await qty('workshop')).toBe(10);
 	});

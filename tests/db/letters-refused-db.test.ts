@@ -8,10 +8,11 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { addLine, CartError, setQuantity } from '$lib/server/cart';
-import { createPendingOrder, OrderError } from '$lib/server/orders/place';
+import { addLine, setQuantity } from '$lib/server/cart';
+import { createPendingOrder } from '$lib/server/orders/place';
 import { testPiece, testWood } from '../helpers/fixtures';
 import type { CheckoutInput } from '$lib/cart/checkout-schema';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 /** What a call threw, for checking; fails the test when it did not throw. */
 async function thrown<E>(p: Promise<unknown>, kind: new (...a: never[]) => E): Promise<E> {
@@ -62,7 +63,7 @@ const add = (cartId: string, initials: string, style?: string) =>
 describe('the server refuses initials too small to carve', () => {
 	it('adding "AB" to a 36 mm rosette in basswood is a 400 naming the minimum, and writes nothing', async () => {
 		const cart = await newCart();
-		const err = await thrown(add(cart, 'AB'), CartError);
+		const err = await thrown(add(cart, 'AB'), DomainError);
 		expect(err.status).toBe(400);
 		// 5.0 mm letters on this rosette against 6 mm in basswood (common practice).
 		expect(err.message).toMatch(/at least 6 mm tall/);
@@ -75,7 +76,7 @@ describe('the server refuses initials too small to carve', () => {
 		const results = await Promise.allSettled([add(cart, 'AB'), add(cart, 'ABC'), add(cart, 'WM')]);
 		for (const r of results) {
 			expect(r.status).toBe('rejected');
-			expect(((r as PromiseRejectedResult).reason as CartError).status).toBe(400);
+			expect(((r as PromiseRejectedResult).reason as DomainError).status).toBe(400);
 		}
 		expect(await linesOf(cart)).toHaveLength(0);
 	});
@@ -103,7 +104,7 @@ describe('the server refuses initials too small to carve', () => {
 			})
 			.where(eq(s.cartLines.id, lineId));
 
-		const q = await thrown(setQuantity(cart, lineId, 2), CartError);
+		const q = await thrown(setQuantity(cart, lineId, 2), DomainError);
 		expect(q.status).toBe(400);
 		expect((await linesOf(cart))[0].quantity).toBe(1);
 
@@ -117,7 +118,7 @@ describe('the server refuses initials too small to carve', () => {
 			country: 'US'
 		};
 		const before = await db.select({ id: s.orders.id }).from(s.orders);
-		const err = await thrown(createPendingOrder(cart, buyer, null), OrderError);
+		const err = await thrown(createPendingOrder(cart, buyer, null), DomainError);
 		expect(err.status).toBeGreaterThanOrEqual(400);
 		expect(err.status).toBeLessThan(500);
 		expect(err.message).toMatch(/too small to cut cleanly.*6 mm tall/);

@@ -12,7 +12,7 @@ import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import { stripe } from '$lib/server/orders/stripe';
 import { cancelOrder, stepBackOrder } from '$lib/server/orders/steer';
-import { orderHistoryOf, StatusMoveError } from '$lib/server/orders/status';
+import { orderHistoryOf } from '$lib/server/orders/status';
 import { listWorkshopOrders } from '$lib/server/orders/table';
 import { EXPORT_COLUMNS, ordersCsv } from '$lib/server/orders/export';
 import { orderTableQuery } from '$lib/orders/workshop-orders-schema';
@@ -21,6 +21,7 @@ import { stepBackTo } from '$lib/orders/status';
 import { csvText } from '$lib/orders/csv-safe';
 import { majorText } from '$lib/locale/money';
 import { mailTo, paidIntent, testLine, testOrder } from '../helpers/fixtures';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `st${process.pid % 1000}${Date.now() % 10000}`;
 let owner = '';
@@ -119,7 +120,7 @@ describe('one step back', () => {
 		const results = await Promise.allSettled([go(), go()]);
 		expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
 		const refused = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
-		expect(refused.reason).toBeInstanceOf(StatusMoveError);
+		expect(refused.reason).toBeInstanceOf(DomainError);
 		expect(await statusOf(o.id)).toBe('finishing');
 		expect((await orderHistoryOf(o.id)).filter((h) => h.fromStatus === 'packed')).toHaveLength(1);
 	});
@@ -128,7 +129,7 @@ describe('one step back', () => {
 		const o = await newOrder('shipped');
 		await expect(
 			stepBackOrder(o.ref, { reason: 'Wrong parcel', expect: 'shipped' }, { userId: owner })
-		).rejects.toBeInstanceOf(StatusMoveError);
+		).rejects.toBeInstanceOf(DomainError);
 		expect(await statusOf(o.id)).toBe('shipped');
 	});
 });

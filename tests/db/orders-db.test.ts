@@ -9,7 +9,7 @@ import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import { testPiece, testStock, testWood } from '../helpers/fixtures';
 import { addLine } from '$lib/server/cart';
-import { createPendingOrder, OrderError } from '$lib/server/orders/place';
+import { createPendingOrder } from '$lib/server/orders/place';
 import { releaseExpiredHolds, releaseOrder } from '$lib/server/orders/holds';
 import { handlePaymentEvent } from '$lib/server/orders/payment';
 import type { Stripe } from '$lib/server/orders/stripe';
@@ -42,6 +42,7 @@ const markExpired = deliver;
 import type { CheckoutInput } from '$lib/cart/checkout-schema';
 import { queueOutlook } from '$lib/server/queue/carving-queue';
 import { readyByFor } from '$lib/queue/carving-queue';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `t${process.pid}${Date.now() % 100000}`;
 let pieceId = 0;
@@ -135,8 +136,8 @@ describe('creating an order from a cart', () => {
 		const failed = results.filter((r): r is PromiseRejectedResult => r.status === 'rejected');
 		expect(ok).toHaveLength(1);
 		expect(failed).toHaveLength(1);
-		expect(failed[0].reason).toBeInstanceOf(OrderError);
-		expect((failed[0].reason as OrderError).code).toBe('stock');
+		expect(failed[0].reason).toBeInstanceOf(DomainError);
+		expect((failed[0].reason as DomainError).code).toBe('stock');
 		expect(await shelf()).toBe(0);
 		// The losing cart left nothing half-written.
 		const loser = results[0].status === 'rejected' ? a : b;

@@ -15,11 +15,12 @@ import { config } from '$lib/server/config';
 import { addLine } from '$lib/server/cart';
 import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
 import { releaseExpiredHolds } from '$lib/server/orders/holds';
-import { moveOrder, orderHistoryOf, StatusMoveError } from '$lib/server/orders/status';
+import { moveOrder, orderHistoryOf } from '$lib/server/orders/status';
 import { stripe } from '$lib/server/orders/stripe';
 import { orderStatuses, nextStatuses } from '$lib/orders/status';
 import type { CheckoutInput } from '$lib/cart/checkout-schema';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 const tag = `r${process.pid}${Date.now() % 100000}`;
 const sdk = new Stripe('sk_test_unused');
@@ -305,8 +306,8 @@ describe('status moves', () => {
 				const err = await moveOrder(row.id, to, { userId: null, why: 'test' }).catch(
 					(e: unknown) => e
 				);
-				expect(err, `${from} → ${to}`).toBeInstanceOf(StatusMoveError);
-				expect((err as StatusMoveError).status).toBe(409);
+				expect(err, `${from} → ${to}`).toBeInstanceOf(DomainError);
+				expect((err as DomainError).status).toBe(409);
 				expect((err as Error).message).toMatch(/cannot move/);
 				expect((await orderRow(o.ref)).status).toBe(from);
 				refused++;

@@ -101,7 +101,7 @@ describe('stock changes from the piece page', () => {
 		for (const [fields, key, message] of cases) {
 			const r = await post(fields);
 			expect(r.status, key).toBe(400);
-			const errors = r.data!.stockErrors as Record<string, string[]>;
+			const errors = r.data!.errors as Record<string, string[]>;
 			expect(errors[key][0]).toMatch(message);
 		}
 		// A wood the piece is not made in, and a fair that has closed.
@@ -109,13 +109,11 @@ describe('stock changes from the piece page', () => {
 		expect(wrongWood.status).toBe(400);
 		const closed = await post(change('add', '1', { place: `fair:${closedFairId}` }));
 		expect(closed.status).toBe(409);
-		expect((closed.data!.stockErrors as Record<string, string[]>).place[0]).toMatch(/closed/);
+		expect((closed.data!.errors as Record<string, string[]>).place[0]).toMatch(/closed/);
 		// Taking away more than is there: refused, with how many there are.
 		const below = await post(change('remove', '1'));
 		expect(below.status).toBe(409);
-		expect((below.data!.stockErrors as Record<string, string[]>).count[0]).toMatch(
-			/Only 0 Test box/
-		);
+		expect((below.data!.errors as Record<string, string[]>).count[0]).toMatch(/Only 0 Test box/);
 		expect(await ledger()).toEqual({ n: 0, sum: 0 });
 		expect(await onShelf()).toBe(0);
 	});

@@ -12,9 +12,10 @@ import {
 	DRAIN_LIMIT,
 	TOO_LARGE,
 	bodyLimitFor,
-	readJsonObject,
 	settleUnreadBody
 } from '$lib/server/http/body-limit';
+import { NOT_A_JSON_OBJECT, readJson } from '$lib/server/http/read-json';
+import { DomainError } from '$lib/server/errors/domain-error';
 import { MAX_PHOTO_BYTES } from '$lib/catalogue/photo-limits';
 import { plainMessage } from '$lib/forms/plain-messages';
 
@@ -80,9 +81,34 @@ describe('an answer given before the body was read', () => {
 		expect(response.headers.get('connection')).toBeNull();
 	});
 	it('a JSON body over its cap is refused with 413 after reading it through', async () => {
-		const r = await readJsonObject(post(200 * 1024));
-		expect(r.ok).toBe(false);
-		if (!r.ok) expect([r.status, r.message]).toEqual([413, TOO_LARGE]);
+		// Declared small, sent large: only counting the bytes as they arrive catches it.
+		const request = post(200 * 1024, 1000);
+		const err = await readJson(request).catch((e: unknown) => e);
+		expect(err).toBeInstanceOf(DomainError);
+		expect([(err as DomainError).status, (err as DomainError).message]).toEqual([413, TOO_LARGE]);
+	});
+	it('a body that is not a JSON object is a 400 with one sentence, whatever is wrong', async () => {
+		for (const body of ['{"a":', '[1,2]', '"text"', 'null', '']) {
+			const request = new Request('http://localhost/api/cart', {
+				method: 'POST',
+				body,
+				headers: { 'content-type': 'application/json' }
+			});
+			const err = await readJson(request).catch((e: unknown) => e);
+			expect(err, body).toBeInstanceOf(DomainError);
+			expect([(err as DomainError).status, (err as DomainError).message]).toEqual([
+				400,
+				NOT_A_JSON_OBJECT
+			]);
+		}
+	});
+	it('reads a JSON object as it was sent', async () => {
+		const request = new Request('http://localhost/api/cart', {
+			method: 'POST',
+			body: '{"slug":"x","quantity":2}',
+			headers: { 'content-type': 'application/json' }
+		});
+		expect(await readJson(request)).toEqual({ slug: 'x', quantity: 2 });
 	});
 });
 

@@ -53,12 +53,13 @@ describe('the one form helper', () => {
 			['password', 'hunter2hunter2']
 		]);
 		expect(formValues(form)).toEqual({ email: 'nobody' });
-		const r = await parseForm(form, signInSchema, { extra: { message: '' } });
+		const r = await parseForm(form, signInSchema);
 		expect(r.ok).toBe(false);
 		if (r.ok) return;
 		expect(r.failure.status).toBe(400);
 		expect(r.failure.data.values).toEqual({ email: 'nobody' });
-		expect(r.failure.data.message).toBe('');
+		// The one fail shape: the first message as the sentence, every message by field.
+		expect(r.failure.data.message).toBe(r.errors.email?.[0]);
 		expect(r.failure.data.errors.email?.length).toBeGreaterThan(0);
 		expect(firstError(r.errors)).toBe(r.errors.email?.[0]);
 	});

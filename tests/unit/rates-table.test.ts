@@ -5,11 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { rateLine } from '$lib/settings/settings-schema';
-import {
-	parseRateInputs,
-	rateInputs,
-	rateInputsFromForm
-} from '../../src/routes/workshop/settings/rates-table';
+import { parseRateInputs, rateInputs, rateInputsFromForm } from '$lib/settings/rates-table';
 
 const form = (rows: [string, string, string][]) => {
 	const f = new FormData();

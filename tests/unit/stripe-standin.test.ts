@@ -3,6 +3,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { startStripeServer } from '../../mocks/stripe/server';
 import type { Delivery } from '../../mocks/stripe/state';
+import { DomainError } from '$lib/server/errors/domain-error';
 
 // Round trips through the official `stripe` SDK against the running stand-in on a random port.
 const SECRET_KEY = 'sk_test_roundtrip';
@@ -197,9 +198,9 @@ describe('Stripe stand-in with the official SDK', () => {
 		expect(obj.payment_status).toBe('paid');
 		expect(obj.metadata).toEqual({ order_ref: 'LF-1042' });
 		expect(() => payments.verifyWebhook(hit.body.replace('paid', 'unpaid'), hit.signature)).toThrow(
-			payments.WebhookSignatureError
+			/^The signature was not accepted: /
 		);
-		expect(() => payments.verifyWebhook(hit.body, null)).toThrow(payments.WebhookSignatureError);
+		expect(() => payments.verifyWebhook(hit.body, null)).toThrow(DomainError);
 
 		// Paying twice is not possible; the page says it is already paid.
 		const second = await pay(s.url!, goodCard);

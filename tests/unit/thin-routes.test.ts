@@ -10,18 +10,6 @@ import { describe, expect, it } from 'vitest';
 const BUDGET = 80;
 const root = path.resolve(__dirname, '../../src/routes');
 
-/**
- * Files still over the budget while their owners slim them on other branches; each line goes
- * once that branch is merged (the test below fails when one is already within the budget, so
- * none stays here forgotten).
- */
-const EXCEPTIONS = new Set([
-	'api/cart/+server.ts',
-	'workshop/orders/[ref]/+page.server.ts',
-	'workshop/fairs/[id]/tally/+page.server.ts',
-	'workshop/settings/+page.server.ts'
-]);
-
 function walk(dir: string): string[] {
 	if (!existsSync(dir)) return [];
 	return readdirSync(dir).flatMap((name) => {
@@ -48,16 +36,8 @@ describe(`route server files stay within ${BUDGET} lines`, () => {
 	});
 
 	it('every +page.server.ts, +layout.server.ts and +server.ts is at most the budget', () => {
-		const over = files
-			.filter((f) => f.lines > BUDGET && !EXCEPTIONS.has(f.name))
-			.map((f) => `${f.name}: ${f.lines} lines`);
+		const over = files.filter((f) => f.lines > BUDGET).map((f) => `${f.name}: ${f.lines} lines`);
 		expect(over).toEqual([]);
-	});
-
-	it('each exception is still a real file over the budget (remove it once it is not)', () => {
-		const byName = new Map(files.map((f) => [f.name, f.lines]));
-		const stale = [...EXCEPTIONS].filter((n) => (byName.get(n) ?? 0) <= BUDGET);
-		expect(stale).toEqual([]);
 	});
 
 	it('counts lines as an editor shows them (self-check)', () => {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { PIECE_SLUG } from '../forms/plain-text';
+import { COUNTRIES } from '../locale/countries';
 
 const quantity = z.coerce
 	.number({ error: 'Choose how many.' })
@@ -47,3 +48,10 @@ export const destinationSchema = z.object({
 		.toUpperCase()
 		.regex(/^[A-Z]{2}$/, 'Choose a country.')
 });
+
+/** A destination we post to; `message` is what the answer says when we do not post there. */
+export const knownDestinationSchema = (message: string) =>
+	destinationSchema.refine((d) => (COUNTRIES as readonly string[]).includes(d.country), {
+		message,
+		path: ['country']
+	});

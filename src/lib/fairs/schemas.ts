@@ -84,11 +84,31 @@ const wholeCount = (label: string) =>
 		.refine((n) => n >= 0, `${label[0].toUpperCase()}${label.slice(1)} cannot be negative.`)
 		.refine((n) => n <= 10_000, `${label[0].toUpperCase()}${label.slice(1)} is too large.`);
 
+export type LoadOutLine = z.output<typeof loadOutLineSchema>;
 export const loadOutLineSchema = z.object({
 	pieceId: z.coerce.number().int().positive(),
 	woodId: z.coerce.number().int().positive(),
 	quantity: wholeCount('the count to take').refine((n) => n > 0, 'Take at least one.')
 });
+
+/**
+ * The load-out form: one input per shelf row (take-<piece>-<wood>), each checked on its own, its
+ * message under its own name; blank or zero rows are left out.
+ */
+export const loadOutFormSchema = z.record(z.string(), z.string()).transform((form, ctx) => {
+	const lines: LoadOutLine[] = [];
+	for (const [key, value] of Object.entries(form)) {
+		const m = /^take-(\d+)-(\d+)$/.exec(key);
+		if (!m || value.trim() === '' || value.trim() === '0') continue;
+		const line = loadOutLineSchema.safeParse({ pieceId: m[1], woodId: m[2], quantity: value });
+		if (line.success) lines.push(line.data);
+		else ctx.addIssue({ code: 'custom', message: line.error.issues[0].message, path: [key] });
+	}
+	return lines;
+});
+
+/** The helpers ticked to sell at a fair (user ids). */
+export const fairHelpersSchema = z.object({ helper: z.array(z.string()) });
 
 export const tallyFormSchema = z.object({
 	cashCounted: moneyField('the cash counted'),

@@ -2,9 +2,12 @@ import { fail } from '@sveltejs/kit';
 import type { z } from 'zod';
 
 /**
- * The one way a form action reads its input and answers bad input: every action parses with its
- * zod schema through `parseForm` and, when that fails, returns `fail(400, { errors, values })`, so
- * every page shows messages beside its fields and refills what was typed the same way.
+ * The one way a form action reads its input and answers a refusal: every action parses with its
+ * zod schema through `parseForm`, and every failure has one shape, made by `formFail`:
+ * `{ message, errors, values?, ...extra }` — `message` one plain sentence for the whole answer,
+ * `errors` the messages by field (a refusal about the whole form stands under `form`), `values`
+ * what was typed, to refill the form. Pages read it the same way everywhere; a DomainError becomes
+ * this shape through `orFail` / `failFrom` in `$lib/server/errors/form-answer`.
  */
 
 /** `{ field: [messages] }`; an issue about the whole form stands under `form`. */
@@ -52,6 +55,22 @@ export function formValues(form: FormData): FormValues {
 	return out;
 }
 
+/** What every form action's `fail()` carries (plus the action's own extra keys, e.g. `form`). */
+export type FormFailure<V = FormValues> = { message: string; errors: FieldErrors; values?: V };
+
+/**
+ * The one way to build a form action's failure: `fail(status, { message, errors, values?, ...extra })`.
+ * Without `errors`, the message stands under `form` (a refusal about the whole form).
+ */
+export function formFail<E extends object = object, V = FormValues>(
+	status: number,
+	message: string,
+	more: { errors?: FieldErrors; values?: V } & E = {} as E
+) {
+	const errors = more.errors ?? { form: [message] };
+	return fail(status, { ...more, message, errors } as FormFailure<V> & E);
+}
+
 type ParseOptions<E extends object> = {
 	/** Added to the 400 answer, e.g. `{ form: 'ship' }` when a page holds several forms. */
 	extra?: E;
@@ -61,17 +80,21 @@ type ParseOptions<E extends object> = {
 
 /**
  * Reads a posted form and parses it with `schema`. On success: the data, the values typed and the
- * raw FormData. On failure: `failure` is the `fail(400, { errors, values, ...extra })` to return.
+ * raw FormData. On failure: `failure` is the `formFail(400, …)` to return: the first message as
+ * `message`, all of them by field, the values typed and `extra`.
  */
 export async function parseForm<S extends z.ZodType, E extends object = object>(
 	source: Request | FormData,
 	schema: S,
 	options: ParseOptions<E> = {}
 ) {
-	const form = source instanceof FormData ? source : await source.formData();
+	// A body that is not a form at all reads as an empty one: the schema then says what is missing.
+	const form =
+		source instanceof FormData ? source : await source.formData().catch(() => new FormData());
 	const texts = formTexts(form);
 	const values = formValues(form);
-	const parsed = schema.safeParse(options.input ? options.input(texts, form) : texts);
+	const input = options.input ? options.input(texts, form) : texts;
+	const parsed = schema.safeParse(input);
 	if (parsed.success) {
 		return { ok: true as const, data: parsed.data, values, form };
 	}
@@ -80,7 +103,14 @@ export async function parseForm<S extends z.ZodType, E extends object = object>(
 		ok: false as const,
 		errors,
 		values,
-		failure: fail(400, { ...(options.extra ?? ({} as E)), errors, values })
+		/** What the schema was given, for a page that refills from more than the text fields. */
+		input,
+		issues: parsed.error.issues,
+		failure: formFail(400, firstError(errors) ?? 'Check the form.', {
+			...(options.extra ?? ({} as E)),
+			errors,
+			values
+		})
 	};
 }
 

@@ -1,5 +1,5 @@
-import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { parseForm } from '$lib/forms/parse-form';
 import { requireRole } from '$lib/server/auth/guard';
 import { todaySummary } from '$lib/server/workshop/today';
 import { retryUndelivered, sendQueued, undeliveredMail } from '$lib/server/mail/outbox';
@@ -15,14 +15,15 @@ export const load: PageServerLoad = async (event) => {
 	return { name: user.name, role: user.role, summary, undelivered };
 };
 
-const retryForm = z.object({ id: z.coerce.number().int().positive() });
+const GONE = 'That message could not be found.';
+const retryForm = z.object({ id: z.coerce.number({ error: GONE }).int(GONE).positive(GONE) });
 
 export const actions: Actions = {
 	/** "Try again" on a message the outbox gave up on: pending again, and tried at once. */
 	retryMail: async (event) => {
 		requireRole(event, 'owner');
-		const parsed = retryForm.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) return fail(400, { mailError: 'That message could not be found.' });
+		const parsed = await parseForm(event.request, retryForm);
+		if (!parsed.ok) return parsed.failure;
 		const { id } = parsed.data;
 		// False when it is no longer given up (a second tap, or another tab already retried it).
 		if (await retryUndelivered(id)) await sendQueued([id]);

@@ -15,11 +15,10 @@ import { placeBoothOrder as placeOrderFromBooth } from '../orders/booth';
 import { boothOrderSigners, queueBoothOrderLetters } from '../orders/booth-mail';
 import { replanQueue } from '../queue/carving-queue';
 import { sendQueued } from '../mail/outbox';
-import { OrderError } from '../orders/place';
 import type { BoothOrder } from '$lib/booth/sync-message';
 import { lateVerdict, saleTimeProblem } from '$lib/booth/rules';
-import { FairError } from './errors';
 import { fairStateShared } from '../fairs/fairs';
+import { DomainError } from '../errors/domain-error';
 
 /** What the phone said, in a fixed order, hashed: the same id with other content is a conflict. */
 const orderHash = (o: BoothOrder) =>
@@ -72,12 +71,12 @@ export async function placeBoothOrder(
 		.from(boothSales)
 		.where(eq(boothSales.id, o.id));
 	if (seen) return resent(seen, hash, fairId);
-	if (!row) throw new FairError(`${o.pieceSlug} is not made in ${o.woodSlug}.`);
+	if (!row) throw new DomainError(400, `${o.pieceSlug} is not made in ${o.woodSlug}.`);
 	const [fairDays] = await db.select().from(fairs).where(eq(fairs.id, fairId));
-	if (!fairDays) throw new FairError('There is no such fair.', 404);
+	if (!fairDays) throw new DomainError(404, 'There is no such fair.');
 	const at = new Date(o.at);
 	const when = saleTimeProblem(at, fairDays);
-	if (when) throw new FairError(when.replace('The sale', 'The order'));
+	if (when) throw new DomainError(400, when.replace('The sale', 'The order'));
 	const rates = o.delivery === 'post' ? await db.select().from(shippingRates) : [];
 	const who = await boothOrderSigners(seller.id);
 
@@ -93,7 +92,7 @@ export async function placeBoothOrder(
 			const fair = await fairStateShared(tx, fairId);
 			const verdict = lateVerdict(at, fair.closedAt);
 			if (verdict === 'after close')
-				throw new FairError(`${fair.name} was closed before this order was taken.`);
+				throw new DomainError(400, `${fair.name} was closed before this order was taken.`);
 			const now = new Date();
 			// The booth entry goes in first: a resend waits on its key, then fails as a duplicate.
 			await tx.insert(boothSales).values({
@@ -137,7 +136,6 @@ export async function placeBoothOrder(
 			return { ...order, late: verdict === 'late', mails };
 		});
 	} catch (err) {
-		if (err instanceof OrderError) throw new FairError(err.message, 400);
 		if (isDuplicateKey(err)) {
 			const [again] = await db
 				.select({ hash: boothSales.contentHash, fairId: boothSales.fairId })
@@ -159,9 +157,9 @@ export async function placeBoothOrder(
 
 function resent(seen: { hash: string | null; fairId: number }, hash: string, fairId: number) {
 	if (seen.fairId !== fairId || (seen.hash && seen.hash !== hash))
-		throw new FairError(
-			'A different order was already stored under this id; this copy was not stored. Check it and take it again if it was a real order.',
-			409
+		throw new DomainError(
+			409,
+			'A different order was already stored under this id; this copy was not stored. Check it and take it again if it was a real order.'
 		);
 	return { status: 'duplicate' as const };
 }

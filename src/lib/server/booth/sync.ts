@@ -9,8 +9,8 @@ import { boothSaleSchema, type BoothSale, type SyncAnswer } from '$lib/booth/syn
 import { maxDiscount, priceSale } from '$lib/booth/reconcile';
 import { lateVerdict, saleFingerprint, saleTimeProblem } from '$lib/booth/rules';
 import { fairPieces, fairStateShared, getFair, type Fair, type FairPiece } from '../fairs/fairs';
-import { FairError } from './errors';
 import { sendReceipt } from './receipt';
+import { DomainError } from '../errors/domain-error';
 
 type Seller = { id: string; role: Role };
 
@@ -160,7 +160,7 @@ export async function syncSales(
 					.from(boothSales)
 					.where(eq(boothSales.id, sale.id));
 				stored(sale, again ?? { fairId, hash: null, kind: 'sale' });
-			} else if (err instanceof FairError) {
+			} else if (err instanceof DomainError) {
 				answer.rejected.push({ id: sale.id, error: err.message });
 			} else throw err;
 		}
@@ -177,7 +177,7 @@ async function storeSale(fairId: number, sale: BoothSale, p: Priced, seller: Sel
 		const fair = await fairStateShared(tx, fairId);
 		const verdict = lateVerdict(p.at, fair.closedAt);
 		if (verdict === 'after close')
-			throw new FairError(`${fair.name} was closed before this sale was made.`, 409);
+			throw new DomainError(409, `${fair.name} was closed before this sale was made.`);
 		const late = verdict === 'late';
 		await tx.insert(boothSales).values({
 			id: sale.id,

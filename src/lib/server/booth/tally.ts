@@ -1,4 +1,5 @@
 import { and, desc, eq, gt, inArray } from 'drizzle-orm';
+import type { TallyCounts } from '$lib/booth/tally-input';
 import { db, type Db, type Tx } from '../db';
 import { boothSales, fairs, fairStock, stock, tallies, tallyCounts } from '../db/schema';
 import { transact } from '../db/retry';
@@ -7,7 +8,7 @@ import { reconcile, tallyEntries } from '$lib/booth/reconcile';
 import { countingDay, fairDays, wholeFairCounted } from '$lib/booth/cash-up';
 import { isoDay, today as todayIso } from '$lib/locale/dates';
 import { fairPieces, getFair, type Fair } from '../fairs/fairs';
-import { FairError } from './errors';
+import { DomainError } from '../errors/domain-error';
 
 export async function boothEntries(fairId: number, conn: Db | Tx = db) {
 	return conn
@@ -143,17 +144,6 @@ export async function fairTally(fairId: number, conn: Db | Tx = db) {
 	};
 }
 
-export type TallyCounts = {
-	counts: Record<number, number>;
-	cashCountedMinor?: number;
-	cashPaidOutMinor?: number;
-	cardReportedMinor?: number | null;
-	/** The fair day counted (default: today, or the fair's nearest day). */
-	day?: string;
-	/** Made on the phone for each save, so a save resent from its queue is stored once. */
-	saveId?: string;
-};
-
 /**
  * Saves one day's cash-up (pieces, cash, and the reader's total when the owner gives it). A
  * helper counts a day at most twice (the count and one recount); the owner may always correct.
@@ -165,12 +155,12 @@ export async function saveTally(
 ): Promise<{ status: 'saved' | 'duplicate'; day: string }> {
 	return transact(async (tx) => {
 		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (!fair) throw new DomainError(404, 'There is no such fair.');
 		if (fair.closedAt)
-			throw new FairError('This fair is closed; its tally can no longer change.', 409);
+			throw new DomainError(409, 'This fair is closed; its tally can no longer change.');
 		const days = fairDays(fair.startsOn, fair.endsOn);
 		const day = c.day ?? countingDay(days, todayIso());
-		if (!days.includes(day)) throw new FairError('That day is not one of the fair’s days.');
+		if (!days.includes(day)) throw new DomainError(400, 'That day is not one of the fair’s days.');
 		const [prev] = await tx
 			.select()
 			.from(tallies)
@@ -178,10 +168,7 @@ export async function saveTally(
 			.for('update');
 		if (prev && c.saveId && prev.lastSaveId === c.saveId) return { status: 'duplicate', day };
 		if (prev && user.role !== 'owner' && prev.counts >= 2)
-			throw new FairError(
-				'This day was counted and counted again; the owner can correct it now.',
-				409
-			);
+			throw new DomainError(409, 'This day was counted and counted again; the owner can correct it now.');
 		const lines = await tx
 			.select({ id: fairStock.id })
 			.from(fairStock)
@@ -189,7 +176,7 @@ export async function saveTally(
 		const ids = new Set(lines.map((l) => l.id));
 		for (const id of Object.keys(c.counts))
 			if (!ids.has(Number(id)))
-				throw new FairError('A counted piece is not on this fair’s load-out.');
+				throw new DomainError(400, 'A counted piece is not on this fair’s load-out.');
 		const values = {
 			cashCountedMinor: c.cashCountedMinor ?? prev?.cashCountedMinor ?? null,
 			cashPaidOutMinor: c.cashPaidOutMinor ?? prev?.cashPaidOutMinor ?? 0,
@@ -244,9 +231,9 @@ export async function saveTally(
 export async function closeFair(fairId: number, userId: string): Promise<Fair> {
 	return transact(async (tx) => {
 		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (!fair) throw new DomainError(404, 'There is no such fair.');
 		if (fair.closedAt)
-			throw new FairError('This fair is already closed; its pieces went back then.', 409);
+			throw new DomainError(409, 'This fair is already closed; its pieces went back then.');
 		const lines = await tx
 			.select()
 			.from(fairStock)

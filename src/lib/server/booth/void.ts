@@ -12,8 +12,8 @@ import { transact } from '../db/retry';
 import { voidRefusal } from '$lib/booth/rules';
 import type { BoothVoid } from '$lib/booth/sync-message';
 import { fairStateShared } from '../fairs/fairs';
-import { FairError } from './errors';
 import { moveStock } from './sync';
+import { DomainError } from '../errors/domain-error';
 
 export async function voidSale(
 	fairId: number,
@@ -28,12 +28,15 @@ export async function voidSale(
 			.from(boothSales)
 			.where(and(eq(boothSales.id, v.saleId), eq(boothSales.fairId, fairId)))
 			.for('update');
-		if (!sale) throw new FairError('There is no such sale at this fair.', 404);
+		if (!sale) throw new DomainError(404, 'There is no such sale at this fair.');
 		if (sale.kind !== 'sale')
-			throw new FairError('A deposit belongs to its order; refund it from the order’s page.');
+			throw new DomainError(
+				400,
+				'A deposit belongs to its order; refund it from the order’s page.'
+			);
 		if (sale.voidedAt) return { status: 'duplicate' as const };
 		const refusal = voidRefusal(by.role, sale.soldAt, new Date(v.at), now);
-		if (refusal) throw new FairError(refusal, 403);
+		if (refusal) throw new DomainError(403, refusal);
 		const closed = Boolean(fair.closedAt);
 		const lines = [...sale.lines].sort((a, b) => a.pieceId - b.pieceId || a.woodId - b.woodId);
 		for (const l of lines)

@@ -16,20 +16,10 @@ import { personalise, previewSvg, snapshotRefusal } from '../catalogue/personali
 import { HOME_COUNTRY } from '$lib/catalogue/shipping';
 import { basketReadyBy, carvedMinutes, readyByNow } from '../queue/carving-queue';
 import { BASKET_LIFETIME_MS } from './checkout-details';
+import { DomainError } from '../errors/domain-error';
 
 export const CART_COOKIE = 'cart';
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
-
-/** A buyer's mistake with the cart: status, message, and the fields it concerns. */
-export class CartError extends Error {
-	constructor(
-		message: string,
-		public status = 400,
-		public fields?: Record<string, string[]>
-	) {
-		super(message);
-	}
-}
 
 export function cartIdFrom(cookies: Cookies): string | null {
 	const id = cookies.get(CART_COOKIE);
@@ -74,7 +64,9 @@ export async function addLine(cartId: string, input: AddLineInput) {
 		.from(pieces)
 		.where(and(eq(pieces.slug, input.slug), eq(pieces.active, true)));
 	if (!piece)
-		throw new CartError('We do not offer that piece any more.', 404, { slug: ['Unknown piece.'] });
+		throw new DomainError(404, 'We do not offer that piece any more.', {
+			fields: { slug: ['Unknown piece.'] }
+		});
 
 	const [wood] = await db
 		.select()
@@ -82,21 +74,27 @@ export async function addLine(cartId: string, input: AddLineInput) {
 		.innerJoin(pieceWoods, and(eq(pieceWoods.woodId, woods.id), eq(pieceWoods.pieceId, piece.id)))
 		.where(eq(woods.slug, input.wood));
 	if (!wood) {
-		throw new CartError('Choose one of the woods this piece is made in.', 400, {
-			wood: ['Choose one of the woods listed for this piece.']
+		throw new DomainError(400, 'Choose one of the woods this piece is made in.', {
+			fields: {
+				wood: ['Choose one of the woods listed for this piece.']
+			}
 		});
 	}
 
 	let personalisation: Personalisation | null = null;
 	if (input.initials) {
 		if (!piece.personalisable) {
-			throw new CartError('This piece is not carved with initials.', 400, {
-				initials: ['This piece is not carved with initials.']
+			throw new DomainError(400, 'This piece is not carved with initials.', {
+				fields: {
+					initials: ['This piece is not carved with initials.']
+				}
 			});
 		}
 		const result = personalise(piece, wood.woods, { initials: input.initials, style: input.style });
 		if (!result.ok)
-			throw new CartError(result.message ?? 'Check the initials.', 400, result.fields);
+			throw new DomainError(400, result.message ?? 'Check the initials.', {
+				fields: result.fields
+			});
 		personalisation = result.snapshot;
 	}
 
@@ -121,7 +119,7 @@ export async function addLine(cartId: string, input: AddLineInput) {
 						? `None ready now in ${wood.woods.name}. Add initials and we will carve one for you.`
 						: `Sold out in ${wood.woods.name}.`
 					: `Only ${onHand} ready now in ${wood.woods.name}.`;
-			throw new CartError(message, 409, { quantity: [message] });
+			throw new DomainError(409, message, { fields: { quantity: [message] } });
 		}
 		if (same) {
 			await db.update(cartLines).set({ quantity: wanted }).where(eq(cartLines.id, same.id));
@@ -149,7 +147,7 @@ async function lineOf(cartId: string, lineId: number) {
 		.select()
 		.from(cartLines)
 		.where(and(eq(cartLines.id, lineId), eq(cartLines.cartId, cartId)));
-	if (!line) throw new CartError('That line is no longer in your basket.', 404);
+	if (!line) throw new DomainError(404, 'That line is no longer in your basket.');
 	return line;
 }
 
@@ -162,13 +160,13 @@ export async function setQuantity(cartId: string, lineId: number, quantity: numb
 			.from(woods)
 			.where(eq(woods.id, line.woodId));
 		const tooSmall = snapshotRefusal(line.personalisation, wood?.slug ?? '');
-		if (tooSmall) throw new CartError(tooSmall, 400, { quantity: [tooSmall] });
+		if (tooSmall) throw new DomainError(400, tooSmall, { fields: { quantity: [tooSmall] } });
 	}
 	if (!line.personalisation) {
 		const onHand = await stockOnHand(line.pieceId, line.woodId);
 		if (onHand < quantity) {
 			const message = onHand === 0 ? 'Sold out.' : `Only ${onHand} ready now.`;
-			throw new CartError(message, 409, { quantity: [message] });
+			throw new DomainError(409, message, { fields: { quantity: [message] } });
 		}
 	}
 	await db.update(cartLines).set({ quantity }).where(eq(cartLines.id, lineId));

@@ -17,6 +17,7 @@ import {
 	PHOTO_TYPES_TEXT
 } from '$lib/catalogue/photo-limits';
 import { PHOTO_WIDTHS, type PhotoFormat } from '$lib/catalogue/photos';
+import { DomainError } from '../errors/domain-error';
 
 let client: S3Client | undefined;
 
@@ -118,35 +119,41 @@ export const photoKey = (key: string, width: number, format: PhotoFormat = 'webp
 
 export { PHOTO_WIDTHS };
 
-/** A photo refused for what it is (type, size, pixels, damage): the message is for the owner. */
-export class PhotoRejected extends Error {}
-
 /**
  * Checks a photo by its bytes, not its name: size, type by content (file-type), pixel count
  * from the header (before anything is decoded). Returns the upright size.
  */
 export async function checkPhoto(input: Buffer): Promise<{ width: number; height: number }> {
-	if (input.byteLength === 0) throw new PhotoRejected('The file is empty.');
+	if (input.byteLength === 0) throw new DomainError(400, 'The file is empty.', { code: 'photo' });
 	if (input.byteLength > MAX_PHOTO_BYTES)
-		throw new PhotoRejected(
-			`The file is larger than ${MAX_PHOTO_BYTES / 1024 / 1024} MB; export a smaller JPEG.`
+		throw new DomainError(
+			400,
+			`The file is larger than ${MAX_PHOTO_BYTES / 1024 / 1024} MB; export a smaller JPEG.`,
+			{ code: 'photo' }
 		);
 	const type = await fileTypeFromBuffer(input);
 	if (!type || !(PHOTO_TYPES as readonly string[]).includes(type.mime)) {
-		throw new PhotoRejected(
-			`This is not a photo we take (${type ? `it is ${type.ext.toUpperCase()}` : 'unknown type'}); use ${PHOTO_TYPES_TEXT}.`
+		throw new DomainError(
+			400,
+			`This is not a photo we take (${type ? `it is ${type.ext.toUpperCase()}` : 'unknown type'}); use ${PHOTO_TYPES_TEXT}.`,
+			{ code: 'photo' }
 		);
 	}
 	let meta: Metadata;
 	try {
 		meta = await sharp(input, { limitInputPixels: false }).metadata();
 	} catch {
-		throw new PhotoRejected(`The file is not an image we can read (use ${PHOTO_TYPES_TEXT}).`);
+		throw new DomainError(400, `The file is not an image we can read (use ${PHOTO_TYPES_TEXT}).`, {
+			code: 'photo'
+		});
 	}
-	if (!meta.width || !meta.height) throw new PhotoRejected('The image has no size.');
+	if (!meta.width || !meta.height)
+		throw new DomainError(400, 'The image has no size.', { code: 'photo' });
 	if (meta.width * meta.height > MAX_PHOTO_PIXELS) {
-		throw new PhotoRejected(
-			`The image claims ${meta.width} × ${meta.height} pixels, more than the ${MAX_PHOTO_PIXELS / 1e6} megapixels we accept.`
+		throw new DomainError(
+			400,
+			`The image claims ${meta.width} × ${meta.height} pixels, more than the ${MAX_PHOTO_PIXELS / 1e6} megapixels we accept.`,
+			{ code: 'photo' }
 		);
 	}
 	// EXIF orientations 5–8 swap width and height once rotated upright.
@@ -186,7 +193,9 @@ export async function storePhoto(
 			variants.push({ key: photoKey(key, w, 'jpg'), body: jpg, type: 'image/jpeg' });
 		}
 	} catch {
-		throw new PhotoRejected('The image is damaged or cut off; export it again and retry.');
+		throw new DomainError(400, 'The image is damaged or cut off; export it again and retry.', {
+			code: 'photo'
+		});
 	}
 	try {
 		await Promise.all(variants.map((v) => putObject(v.key, v.body, v.type)));

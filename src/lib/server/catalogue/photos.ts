@@ -8,8 +8,7 @@ import { db } from '../db';
 import { transact } from '../db/retry';
 import { photos, pieces } from '../db/schema';
 import { deletePrefix, storePhoto } from './photo-storage';
-
-export class PhotoNotFound extends Error {}
+import { DomainError } from '../errors/domain-error';
 
 /** Stores the variants, then the row; a failed insert removes the stored objects again. */
 export async function addPhoto(pieceId: number, bytes: Buffer, alt: string) {
@@ -18,7 +17,7 @@ export async function addPhoto(pieceId: number, bytes: Buffer, alt: string) {
 		.from(pieces)
 		.where(eq(pieces.id, pieceId))
 		.limit(1);
-	if (!piece) throw new PhotoNotFound('There is no such piece.');
+	if (!piece) throw new DomainError(404, 'There is no such piece.');
 	// A fresh key per upload: variants never change under a key, so they can be cached for good.
 	const key = `pieces/${piece.slug}/${randomBytes(6).toString('hex')}`;
 	const size = await storePhoto(key, bytes);
@@ -65,7 +64,7 @@ export async function setPhotoAlt(pieceId: number, photoId: number, alt: string)
 		.update(photos)
 		.set({ alt })
 		.where(and(eq(photos.id, photoId), eq(photos.pieceId, pieceId)));
-	if (res[0].affectedRows === 0) throw new PhotoNotFound('That photo is gone.');
+	if (res[0].affectedRows === 0) throw new DomainError(404, 'That photo is gone.');
 }
 
 /** Moves a photo one place earlier or later; positions are rewritten 0…n-1 in one transaction. */
@@ -78,7 +77,7 @@ export async function movePhoto(pieceId: number, photoId: number, by: -1 | 1) {
 			.orderBy(asc(photos.position), asc(photos.id))
 			.for('update');
 		const at = list.findIndex((p) => p.id === photoId);
-		if (at < 0) throw new PhotoNotFound('That photo is gone.');
+		if (at < 0) throw new DomainError(404, 'That photo is gone.');
 		const to = at + by;
 		if (to < 0 || to >= list.length) return;
 		[list[at], list[to]] = [list[to], list[at]];
@@ -94,7 +93,7 @@ export async function deletePhoto(pieceId: number, photoId: number) {
 		.select({ storageKey: photos.storageKey })
 		.from(photos)
 		.where(and(eq(photos.id, photoId), eq(photos.pieceId, pieceId)));
-	if (!row) throw new PhotoNotFound('That photo is gone.');
+	if (!row) throw new DomainError(404, 'That photo is gone.');
 	await db.delete(photos).where(eq(photos.id, photoId));
 	await deletePrefix(`${row.storageKey}/`);
 }

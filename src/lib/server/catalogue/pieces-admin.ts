@@ -11,7 +11,7 @@ import type { PieceForm } from '$lib/catalogue/piece-schema';
 import type { PiecePattern } from '../db/schema';
 import { isDuplicateKey, transact } from '../db/retry';
 
-export class SlugTaken extends Error {}
+import { DomainError } from '../errors/domain-error';
 
 export async function listAllPieces() {
 	return db
@@ -102,7 +102,10 @@ async function slugSafe<T>(run: () => Promise<T>): Promise<T> {
 	try {
 		return await run();
 	} catch (err) {
-		if (isDuplicateKey(err)) throw new SlugTaken('Another piece already uses this address.');
+		if (isDuplicateKey(err)) {
+			const message = 'Another piece already uses this address.';
+			throw new DomainError(400, message, { fields: { slug: [message] } });
+		}
 		throw err;
 	}
 }

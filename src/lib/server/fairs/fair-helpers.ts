@@ -2,8 +2,8 @@ import { and, asc, eq } from 'drizzle-orm';
 import { db, type Db, type Tx } from '../db';
 import { fairHelpers, users } from '../db/schema';
 import { transact } from '../db/retry';
-import { FairError } from '../booth/errors';
 import { getFair } from './fairs';
+import { DomainError } from '../errors/domain-error';
 
 type Who = { id: string; role: string };
 
@@ -20,9 +20,9 @@ export async function assertFairAccess(user: Who, fairId: number, conn: Db | Tx 
 			.where(and(eq(fairHelpers.fairId, fairId), eq(fairHelpers.userId, user.id)));
 		if (row) return;
 	}
-	throw new FairError(
-		'You are not named as a helper at this fair. Ask the owner to add you on the fair’s page.',
-		403
+	throw new DomainError(
+		403,
+		'You are not named as a helper at this fair. Ask the owner to add you on the fair’s page.'
 	);
 }
 
@@ -56,7 +56,7 @@ export async function fairHelperChoices(fairId: number) {
 export async function setFairHelpers(fairId: number, userIds: string[]) {
 	const fair = await getFair(fairId);
 	if (fair.closedAt)
-		throw new FairError('This fair is closed; who sold there stays as it was.', 409);
+		throw new DomainError(409, 'This fair is closed; who sold there stays as it was.');
 	const wanted = [...new Set(userIds)];
 	await transact(async (tx) => {
 		const helpers = await tx
@@ -66,7 +66,7 @@ export async function setFairHelpers(fairId: number, userIds: string[]) {
 			.for('update');
 		const known = new Set(helpers.map((h) => h.id));
 		const unknown = wanted.filter((id) => !known.has(id));
-		if (unknown.length) throw new FairError('Only helper accounts can sell at a fair.');
+		if (unknown.length) throw new DomainError(400, 'Only helper accounts can sell at a fair.');
 		await tx.delete(fairHelpers).where(eq(fairHelpers.fairId, fairId));
 		if (wanted.length)
 			await tx

@@ -6,14 +6,14 @@ import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import type { FairForm } from '$lib/fairs/schemas';
 import { fairPlace } from '../stock/adjust';
 import { replanQueue } from '../queue/carving-queue';
-import { FairError } from '../booth/errors';
+import { DomainError } from '../errors/domain-error';
 
 export type Fair = typeof fairs.$inferSelect;
 
 export async function getFair(id: number, conn: Db | Tx = db): Promise<Fair> {
-	if (!Number.isInteger(id) || id <= 0) throw new FairError('There is no such fair.', 404);
+	if (!Number.isInteger(id) || id <= 0) throw new DomainError(404, 'There is no such fair.');
 	const [fair] = await conn.select().from(fairs).where(eq(fairs.id, id));
-	if (!fair) throw new FairError('There is no such fair.', 404);
+	if (!fair) throw new DomainError(404, 'There is no such fair.');
 	return fair;
 }
 
@@ -48,7 +48,7 @@ export async function createFair(f: FairForm): Promise<number> {
 export async function updateFair(id: number, f: FairForm) {
 	const fair = await getFair(id);
 	if (fair.closedAt)
-		throw new FairError('This fair is closed; its figures can no longer change.', 409);
+		throw new DomainError(409, 'This fair is closed; its figures can no longer change.');
 	await db.update(fairs).set(fairValues(f)).where(eq(fairs.id, id));
 	if (fair.startsOn !== f.startsOn || fair.endsOn !== f.endsOn) await replanQueue();
 }
@@ -123,7 +123,7 @@ export type FairPiece = Awaited<ReturnType<typeof fairPieces>>[number];
  */
 export async function fairForStock(tx: Tx, fairId: number) {
 	return fairStateShared(tx, fairId).catch((err: unknown) => {
-		if (err instanceof FairError) return null;
+		if (err instanceof DomainError) return null;
 		throw err;
 	});
 }
@@ -141,7 +141,7 @@ export async function fairStateShared(tx: Tx, fairId: number) {
 		}[]
 	];
 	const row = rows[0];
-	if (!row) throw new FairError('There is no such fair.', 404);
+	if (!row) throw new DomainError(404, 'There is no such fair.');
 	// A raw query gets DATETIME back as the driver's 'YYYY-MM-DD hh:mm:ss' text in UTC.
 	const closedAt =
 		row.closedAt instanceof Date || row.closedAt === null

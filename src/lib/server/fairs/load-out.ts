@@ -2,8 +2,8 @@ import { and, asc, eq, gt } from 'drizzle-orm';
 import { db } from '../db';
 import { fairs, fairStock, pieces, stock, woods } from '../db/schema';
 import { transact } from '../db/retry';
-import { adjustStock, fairPlace, StockError } from '../stock/adjust';
-import { FairError } from '../booth/errors';
+import { adjustStock, fairPlace } from '../stock/adjust';
+import { DomainError, isDomainError } from '../errors/domain-error';
 
 /** Finished pieces on the workshop shelf that could go to a fair. */
 export async function workshopShelf() {
@@ -32,12 +32,12 @@ export async function loadOut(
 	lines: { pieceId: number; woodId: number; quantity: number }[],
 	userId: string
 ) {
-	if (lines.length === 0) throw new FairError('Choose at least one piece to take.');
+	if (lines.length === 0) throw new DomainError(400, 'Choose at least one piece to take.');
 	await transact(async (tx) => {
 		const [fair] = await tx.select().from(fairs).where(eq(fairs.id, fairId)).for('update');
-		if (!fair) throw new FairError('There is no such fair.', 404);
+		if (!fair) throw new DomainError(404, 'There is no such fair.');
 		if (fair.closedAt)
-			throw new FairError('This fair is closed; nothing more can be loaded out.', 409);
+			throw new DomainError(409, 'This fair is closed; nothing more can be loaded out.');
 		// Lock in a fixed order so two load-outs at once cannot deadlock each other.
 		const sorted = [...lines].sort((a, b) => a.pieceId - b.pieceId || a.woodId - b.woodId);
 		for (const l of sorted) {
@@ -45,8 +45,8 @@ export async function loadOut(
 			try {
 				await adjustStock(tx, { ...l, place: 'workshop', delta: -l.quantity, reason, userId });
 			} catch (err) {
-				if (err instanceof StockError) {
-					throw new FairError(`Not enough on the workshop shelf: ${err.message}`, 409);
+				if (isDomainError(err, 'short')) {
+					throw new DomainError(409, `Not enough on the workshop shelf: ${err.message}`);
 				}
 				throw err;
 			}

@@ -1,11 +1,13 @@
 import { json } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { fieldErrors, type FieldErrors } from '$lib/forms/parse-form';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * The one place API errors are shaped. Every JSON route answers a refusal as `{ error, fields? }`
- * with its 4xx status through `apiError` / `apiInvalid`, and the `apiErrors` hook passes any other
- * error response (a thrown `error()`, a 404 from the router) through `toApiErrorResponse`.
+ * with its 4xx status through `apiError` / `apiInvalid`, a DomainError through `orApiError`, and
+ * the `apiErrors` hook passes any other error response (a thrown `error()`, a 404 from the router)
+ * through `toApiErrorResponse`.
  */
 
 /** JSON error body used by every API route. */
@@ -19,6 +21,25 @@ export function apiInvalid(
 	message = error.issues[0]?.message ?? 'Check the request.'
 ) {
 	return apiError(400, message, fieldErrors(error));
+}
+
+/** A DomainError as the API's answer: its status, its sentence and its fields. */
+export function apiFrom(err: DomainError) {
+	return apiError(err.status, err.message, err.fields);
+}
+
+/**
+ * The one adapter from a DomainError to a JSON route's answer: runs the route's work and answers
+ * a DomainError (from the domain, or from `readJson`) with `apiFrom`. Anything else is a fault
+ * and is thrown on.
+ */
+export async function orApiError(run: () => Promise<Response>): Promise<Response> {
+	try {
+		return await run();
+	} catch (err) {
+		if (err instanceof DomainError) return apiFrom(err);
+		throw err;
+	}
 }
 
 /**

@@ -9,7 +9,7 @@ import { BOOTH_MAX_BYTES } from '$lib/booth/sync-message';
  * - a multipart photo upload: the 12 MB a photo may be (photo-limits), plus the form's envelope;
  * - the booth's sync and orders: what those routes promise (1,000 sales or 2 MB).
  * A body declaring more is refused before the route runs; one sent without a length is capped
- * while it is read (readJsonObject). adapter-node's BODY_SIZE_LIMIT (16M) stays the outer bound.
+ * while it is read (`readJson` in read-json.ts). adapter-node's BODY_SIZE_LIMIT (16M) stays the outer bound.
  */
 export const API_BODY_LIMIT = 64 * 1024;
 export const TOO_LARGE = 'The request is too large: send at most 64 KB of JSON.';
@@ -44,7 +44,7 @@ export async function drainBody(request: Request, max = DRAIN_LIMIT): Promise<bo
 	return drainReader(request.body.getReader(), max);
 }
 
-async function drainReader(
+export async function drainReader(
 	reader: ReadableStreamDefaultReader<Uint8Array>,
 	max = DRAIN_LIMIT
 ): Promise<boolean> {
@@ -82,42 +82,4 @@ export async function settleUnreadBody(request: Request, response: Response): Pr
 	const drained =
 		Number.isFinite(declared) && declared > DRAIN_LIMIT ? false : await drainBody(request);
 	if (!drained) response.headers.set('connection', 'close');
-}
-
-export type JsonBody =
-	{ ok: true; value: Record<string, unknown> } | { ok: false; status: 400 | 413; message: string };
-
-/** Reads a JSON object, counting bytes as they arrive. */
-export async function readJsonObject(request: Request, limit = API_BODY_LIMIT): Promise<JsonBody> {
-	const bad = { ok: false, status: 400, message: 'Send a JSON object.' } as const;
-	if (!request.body) return bad;
-	const reader = request.body.getReader();
-	const chunks: Uint8Array[] = [];
-	let size = 0;
-	try {
-		for (;;) {
-			const { done, value } = await reader.read();
-			if (done) break;
-			size += value.byteLength;
-			if (size > limit) {
-				// Read the rest rather than cancel: cancelling resets the connection under the client.
-				await drainReader(reader);
-				return { ok: false, status: 413, message: TOO_LARGE };
-			}
-			chunks.push(value);
-		}
-	} catch (err) {
-		// adapter-node's own BODY_SIZE_LIMIT ends the stream with a 413 error.
-		if ((err as { status?: number }).status === 413)
-			return { ok: false, status: 413, message: TOO_LARGE };
-		return bad;
-	}
-	try {
-		const v: unknown = JSON.parse(Buffer.concat(chunks).toString('utf8'));
-		return v && typeof v === 'object' && !Array.isArray(v)
-			? { ok: true, value: v as Record<string, unknown> }
-			: bad;
-	} catch {
-		return bad;
-	}
 }

@@ -7,8 +7,7 @@ import { formatMoney } from '$lib/locale/money';
 import { orderBalance, type BalanceMethod } from '$lib/orders/balance';
 import { transact } from '../db/retry';
 import { orderHistory, orders } from '../db/schema';
-import { OrderNotFoundError } from './ship';
-import { StatusMoveError } from './status';
+import { DomainError } from '../errors/domain-error';
 
 const METHOD_WORDS: Record<BalanceMethod, string> = {
 	cash: 'in cash',
@@ -25,11 +24,11 @@ export async function recordBalancePaid(
 ) {
 	return transact(async (tx) => {
 		const [order] = await tx.select().from(orders).where(eq(orders.ref, ref)).for('update');
-		if (!order) throw new OrderNotFoundError(ref);
+		if (!order) throw new DomainError(404, `There is no order ${ref}.`);
 		const owed = orderBalance(order).balanceMinor;
-		if (owed === 0) throw new StatusMoveError(`Order ${ref} has nothing left to pay.`);
+		if (owed === 0) throw new DomainError(409, `Order ${ref} has nothing left to pay.`);
 		if (order.status === 'cancelled' || order.status === 'refunded')
-			throw new StatusMoveError(`Order ${ref} is ${order.status}; there is no balance to take.`);
+			throw new DomainError(409, `Order ${ref} is ${order.status}; there is no balance to take.`);
 		const at = new Date(Math.floor(now.getTime() / 1000) * 1000);
 		await tx
 			.update(orders)

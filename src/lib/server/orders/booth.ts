@@ -11,8 +11,9 @@ import { personalise } from '../catalogue/personalise';
 import { personalisedPriceMinor } from '$lib/catalogue/personalised-price';
 import { priceSale } from '$lib/booth/reconcile';
 import { shippingCharge, type RateRow } from '$lib/catalogue/shipping';
-import { OrderError, uniqueRef } from './place';
+import { uniqueRef } from './place';
 import type { PiecePattern } from '../db/schema';
+import { DomainError } from '../errors/domain-error';
 
 export type BoothOrderInput = {
 	piece: {
@@ -48,15 +49,15 @@ export type BoothOrderInput = {
 };
 
 /**
- * Writes the booth order; returns its id, reference and total. Refuses (OrderError 400) a piece
+ * Writes the booth order; returns its id, reference and total. Refuses (DomainError 400) a piece
  * that is not carved to order, initials that do not fit, or a deposit above the total.
  */
 export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
 	if (!o.piece.personalisable)
-		throw new OrderError(`${o.piece.title} is not carved to order.`, 400);
+		throw new DomainError(400, `${o.piece.title} is not carved to order.`);
 	const made = personalise(o.piece, o.wood, { initials: o.initials });
 	if (!made.ok)
-		throw new OrderError(Object.values(made.fields)[0]?.[0] ?? 'Those initials do not fit.', 400);
+		throw new DomainError(400, Object.values(made.fields)[0]?.[0] ?? 'Those initials do not fit.');
 	const unit = personalisedPriceMinor(o.piece.basePriceMinor, o.wood.priceAddOnMinor);
 	const priced = priceSale(
 		[{ unitMinor: unit, quantity: 1 }],
@@ -70,15 +71,15 @@ export async function placeBoothOrder(tx: Tx, o: BoothOrderInput) {
 			{ size: o.piece, densityKgM3: o.wood.densityKgM3, quantity: 1 }
 		]);
 		if (ship.priceMinor === null)
-			throw new OrderError(
-				'The shop has no shipping rate to that country for this piece; choose collect.',
-				400
+			throw new DomainError(
+				400,
+				'The shop has no shipping rate to that country for this piece; choose collect.'
 			);
 		shippingMinor = ship.priceMinor;
 	}
 	const totalMinor = priced.totalMinor + shippingMinor;
 	if (o.depositMinor > totalMinor) {
-		throw new OrderError('The deposit is more than the order’s total.', 400);
+		throw new DomainError(400, 'The deposit is more than the order’s total.');
 	}
 	const now = o.now ?? new Date();
 	const paidInFull = o.depositMinor === totalMinor;

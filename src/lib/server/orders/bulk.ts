@@ -4,7 +4,8 @@ import { db } from '../db';
 import { transact } from '../db/retry';
 import { orders } from '../db/schema';
 import { replanQueue } from '../queue/carving-queue';
-import { moveOrder, StatusMoveError } from './status';
+import { moveOrder } from './status';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * Moves several orders to one status, each in its own transaction through the status table, so
@@ -25,7 +26,7 @@ export async function moveOrders(refs: string[], to: OrderStatus, userId: string
 			);
 			out.push({ ref, ok: true, message: `Now ${statusLabel(to)}.` });
 		} catch (err) {
-			if (!(err instanceof StatusMoveError)) throw err;
+			if (!(err instanceof DomainError)) throw err;
 			out.push({ ref, ok: false, message: err.message });
 		}
 	}

@@ -33,6 +33,7 @@ import {
 	refundObject,
 	type RefundEventObject
 } from './refunds';
+import { DomainError } from '../errors/domain-error';
 
 // ---------------------------------------------------------------- the hosted payment session
 
@@ -140,9 +141,6 @@ export async function returnUnpaid(ref: string | null, cartId: string | null) {
 
 // ---------------------------------------------------------------- events
 
-/** A signed event we cannot act on: the message says which field is wrong. */
-export class PaymentEventError extends Error {}
-
 const sessionObject = z.object({
 	id: z.string().min(1),
 	payment_status: z.string().optional(),
@@ -158,7 +156,8 @@ function parseObject<T extends z.ZodType>(schema: T, event: Stripe.Event): z.inf
 	const r = schema.safeParse((event.data as { object?: unknown } | undefined)?.object);
 	if (r.success) return r.data;
 	const issue = r.error.issues[0];
-	throw new PaymentEventError(
+	throw new DomainError(
+		400,
 		`Event ${event.id} (${event.type}) is missing or has a bad data.object.${issue.path.join('.') || '?'}: ${issue.message}`
 	);
 }
@@ -386,7 +385,7 @@ export const eventHandlers: Partial<Record<Stripe.Event['type'], Handler>> = {
 
 /**
  * Acts on one verified payment event. Unknown types are accepted and ignored (200); a known type
- * with missing fields throws PaymentEventError (the route answers 400 with its message).
+ * with missing fields throws a DomainError 400 saying which field is wrong.
  */
 export async function handlePaymentEvent(
 	event: Stripe.Event,

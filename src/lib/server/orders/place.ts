@@ -18,17 +18,7 @@ import { takeStock } from '../stock/holds';
 import { releaseExpiredHolds, releaseInTx, releaseOrder } from './holds';
 import { createCheckoutSession, expireCheckoutSession, sessionState } from './payment';
 import { stripe } from './stripe';
-
-/** A checkout that cannot go ahead; the message is for the buyer. */
-export class OrderError extends Error {
-	constructor(
-		message: string,
-		public status = 409,
-		public code: 'empty' | 'stock' | 'price' | 'rates' | 'payment' | 'unknown' = 'unknown'
-	) {
-		super(message);
-	}
-}
+import { DomainError } from '../errors/domain-error';
 
 /** Stripe lets a Checkout Session live 30 min to 24 h; a little over 30 covers clock drift. */
 export const HOLD_MINUTES = 35;
@@ -77,7 +67,8 @@ export async function createPendingOrder(
 	now = new Date()
 ): Promise<PendingOrder> {
 	return transact(async (tx) => {
-		if (!(await lockCart(tx, cartId))) throw new OrderError('Your basket is empty.', 409, 'empty');
+		if (!(await lockCart(tx, cartId)))
+			throw new DomainError(409, 'Your basket is empty.', { code: 'empty' });
 
 		const earlier = await tx
 			.select({ id: orders.id, sessionId: orders.checkoutSessionId })
@@ -89,16 +80,18 @@ export async function createPendingOrder(
 		}
 
 		const priced = await priceCart(cartId, buyer.country, tx);
-		if (priced.lines.length === 0) throw new OrderError('Your basket is empty.', 409, 'empty');
-		if (!priced.shippingKnown) throw new OrderError(priced.problems.at(-1)!.message, 409, 'rates');
+		if (priced.lines.length === 0)
+			throw new DomainError(409, 'Your basket is empty.', { code: 'empty' });
+		if (!priced.shippingKnown)
+			throw new DomainError(409, priced.problems.at(-1)!.message, { code: 'rates' });
 		const blocking = priced.problems.filter((p) => p.lineId !== 0);
 		if (blocking.length)
-			throw new OrderError(blocking.map((p) => p.message).join(' '), 409, 'stock');
+			throw new DomainError(409, blocking.map((p) => p.message).join(' '), { code: 'stock' });
 		if (buyer.seenTotal !== undefined && buyer.seenTotal !== priced.totalMinor) {
-			throw new OrderError(
-				'The total has changed since you opened this page. Please check the new total and pay again.',
+			throw new DomainError(
 				409,
-				'price'
+				'The total has changed since you opened this page. Please check the new total and pay again.',
+				{ code: 'price' }
 			);
 		}
 
@@ -112,7 +105,9 @@ export async function createPendingOrder(
 			const line = priced.lines.find(
 				(l) => l.pieceId === short.pieceId && l.woodId === short.woodId
 			)!;
-			throw new OrderError(`${line.title} in ${line.woodName} has just sold out.`, 409, 'stock');
+			throw new DomainError(409, `${line.title} in ${line.woodName} has just sold out.`, {
+				code: 'stock'
+			});
 		}
 
 		const holdExpiresAt = new Date(now.getTime() + HOLD_MINUTES * 60_000);
@@ -186,12 +181,12 @@ async function closeReplacedSession(sessionId: string) {
 	}
 	const { status } = await sessionState(sessionId);
 	if (status !== 'expired' && status !== 'complete')
-		throw new OrderError(PAYMENT_DOWN, 503, 'payment');
+		throw new DomainError(503, PAYMENT_DOWN, { code: 'payment' });
 }
 
 /**
  * The checkout: a pending order with its pieces held, and the payment page to send the buyer
- * to. Throws OrderError (with a message for the buyer) when it cannot go ahead; nothing is left
+ * to. Throws a DomainError (with a message for the buyer) when it cannot go ahead; nothing is left
  * held when it does.
  */
 export async function placeOrder(
@@ -227,25 +222,22 @@ export async function placeOrder(
 		session = await createCheckoutSession(order, buyer.email, origin);
 	} catch {
 		await releaseOrder(order.id, 'The payment page could not be opened.');
-		throw new OrderError(PAYMENT_DOWN, 503, 'payment');
+		throw new DomainError(503, PAYMENT_DOWN, { code: 'payment' });
 	}
 	if (!(await attachCheckoutSession(order.id, session.id))) {
 		// The same basket was sent again while this session was being opened: that one wins.
 		await expireCheckoutSession(session.id);
-		throw new OrderError(
-			'This basket was sent to checkout again in another window; please use that one.',
+		throw new DomainError(
 			409,
-			'unknown'
+			'This basket was sent to checkout again in another window; please use that one.'
 		);
 	}
 	if (!session.url) {
 		await releaseOrder(order.id, 'The payment page could not be opened.');
 		await expireCheckoutSession(session.id);
-		throw new OrderError(
-			'The payment page could not be opened. Nothing was charged.',
-			503,
-			'payment'
-		);
+		throw new DomainError(503, 'The payment page could not be opened. Nothing was charged.', {
+			code: 'payment'
+		});
 	}
 	return { ref: order.ref, paymentUrl: session.url };
 }

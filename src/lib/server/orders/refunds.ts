@@ -26,15 +26,7 @@ import { mailOrder } from './mail-order';
 import { refundMail } from './shipping-mail';
 import { replanQueue } from '../queue/carving-queue';
 import { moveOrder } from './status';
-
-export class RefundError extends Error {
-	constructor(
-		message: string,
-		public status = 409
-	) {
-		super(message);
-	}
-}
+import { DomainError } from '../errors/domain-error';
 
 /** Statuses in which money has been taken and may be given back. */
 const REFUNDABLE = [
@@ -67,20 +59,20 @@ async function refundedSoFar(tx: Tx, orderId: number) {
 async function reserve(ref: string, input: RefundInput, userId: string, now: Date) {
 	return transact(async (tx) => {
 		const [o] = await tx.select().from(orders).where(eq(orders.ref, ref)).for('update');
-		if (!o) throw new RefundError(`There is no order ${ref}.`, 404);
+		if (!o) throw new DomainError(404, `There is no order ${ref}.`);
 		if (!(REFUNDABLE as readonly string[]).includes(o.status) || !o.paymentIntentId) {
-			throw new RefundError(`Order ${ref} has not been paid, so there is nothing to refund.`);
+			throw new DomainError(409, `Order ${ref} has not been paid, so there is nothing to refund.`);
 		}
 		const { done, asked } = await refundedSoFar(tx, o.id);
 		const refunded = Math.max(done, o.refundedMinor);
 		const left = o.totalMinor - refunded - asked;
 		const money = (m: number) => formatMoney(m, o.currency);
-		if (left <= 0) throw new RefundError(`Order ${ref} has already been refunded in full.`);
+		if (left <= 0) throw new DomainError(409, `Order ${ref} has already been refunded in full.`);
 		const amount = input.amountMinor ?? left;
 		if (amount > left) {
-			throw new RefundError(
-				`You can refund at most ${money(left)} on order ${ref}: ${money(o.totalMinor)} was paid and ${money(refunded + asked)} is already refunded.`,
-				400
+			throw new DomainError(
+				400,
+				`You can refund at most ${money(left)} on order ${ref}: ${money(o.totalMinor)} was paid and ${money(refunded + asked)} is already refunded.`
 			);
 		}
 		const [{ id }] = await tx
@@ -164,9 +156,9 @@ export async function refundOrder(
 		await db.delete(orderRefunds).where(eq(orderRefunds.id, r.rowId));
 		const e = err as { type?: string; message?: string };
 		if (e.type === 'StripeInvalidRequestError' || e.type === 'StripeCardError') {
-			throw new RefundError(`The payment server refused the refund: ${e.message}`);
+			throw new DomainError(409, `The payment server refused the refund: ${e.message}`);
 		}
-		throw new RefundError('The payment server could not be reached; nothing was refunded.', 503);
+		throw new DomainError(503, 'The payment server could not be reached; nothing was refunded.');
 	}
 
 	const totals = await transact(async (tx) => {
@@ -233,7 +225,7 @@ export async function markPiecesReturned(ref: string) {
 			.from(orders)
 			.where(eq(orders.ref, ref))
 			.for('update');
-		if (!o) throw new RefundError(`There is no order ${ref}.`, 404);
+		if (!o) throw new DomainError(404, `There is no order ${ref}.`);
 		const [last] = await tx
 			.select({ id: orderRefunds.id })
 			.from(orderRefunds)
@@ -241,7 +233,10 @@ export async function markPiecesReturned(ref: string) {
 			.orderBy(sql`${orderRefunds.id} desc`)
 			.limit(1);
 		if (!last)
-			throw new RefundError('Refund the order first; then the piece can go back on the shelf.');
+			throw new DomainError(
+				409,
+				'Refund the order first; then the piece can go back on the shelf.'
+			);
 		await restockOnce(tx, o.id, last.id);
 	});
 }

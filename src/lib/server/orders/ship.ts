@@ -3,16 +3,10 @@ import { transact } from '../db/retry';
 import { orders, shipments } from '../db/schema';
 import { queueMail, sendQueued } from '../mail/outbox';
 import type { ShipmentInput } from '$lib/orders/shipment-schema';
-import { moveOrder, StatusMoveError } from './status';
+import { moveOrder } from './status';
 import { mailOrder } from './mail-order';
 import { shippingMail } from './shipping-mail';
-
-export class OrderNotFoundError extends Error {
-	readonly status = 404;
-	constructor(ref: string) {
-		super(`There is no order ${ref}.`);
-	}
-}
+import { DomainError } from '../errors/domain-error';
 
 /**
  * The parcel has gone: in one transaction move the order to `shipped` through the status table
@@ -32,7 +26,7 @@ export async function shipOrder(
 			.from(orders)
 			.where(eq(orders.ref, ref))
 			.for('update');
-		if (!order) throw new OrderNotFoundError(ref);
+		if (!order) throw new DomainError(404, `There is no order ${ref}.`);
 		await moveOrder(
 			order.id,
 			'shipped',
@@ -64,5 +58,3 @@ export async function shipOrder(
 		mailed
 	};
 }
-
-export { StatusMoveError };

@@ -6,14 +6,7 @@ import { orderHistory, orderLines, orders } from '../db/schema';
 import { canMove, statusLabel, stepBackTo, type OrderStatus } from '$lib/orders/status';
 import { orderBalance } from '$lib/orders/balance';
 import { formatMoney } from '$lib/locale/money';
-
-/** A move the status table does not allow; the message is for a person, the status for HTTP. */
-export class StatusMoveError extends Error {
-	readonly status = 409;
-	constructor(message: string) {
-		super(message);
-	}
-}
+import { DomainError } from '../errors/domain-error';
 
 /**
  * Who moves the order and why. `back` asks for one step back (see `backSteps`), which needs a
@@ -62,25 +55,29 @@ export async function moveOrder(
 			.from(orders)
 			.where(eq(orders.id, orderId))
 			.for('update');
-		if (!order) throw new StatusMoveError('There is no such order.');
+		if (!order) throw new DomainError(409, 'There is no such order.');
 		const from = order.status;
 		if (by.expect && by.expect !== from) {
-			throw new StatusMoveError(
+			throw new DomainError(
+				409,
 				`Order ${order.ref} is already “${statusLabel(from)}”; nothing was changed.`
 			);
 		}
 		const carve = { needsCarving: await needsCarving(t, orderId) };
-		if (by.back && !by.why.trim()) throw new StatusMoveError('Say why the order goes back a step.');
+		if (by.back && !by.why.trim())
+			throw new DomainError(409, 'Say why the order goes back a step.');
 		const allowed = by.back ? stepBackTo(from, carve) === to : canMove(from, to, carve);
 		if (!allowed) {
-			throw new StatusMoveError(
+			throw new DomainError(
+				409,
 				`Order ${order.ref} is “${statusLabel(from)}” and cannot move to “${statusLabel(to)}”.`
 			);
 		}
 		// A deposit order ships only once the rest is paid (the parcel is the last leverage).
 		const owed = orderBalance(order).balanceMinor;
 		if ((to === 'shipped' || (from === 'deposit_held' && to === 'paid')) && owed > 0) {
-			throw new StatusMoveError(
+			throw new DomainError(
+				409,
 				`Order ${order.ref} still has ${formatMoney(owed, order.currency)} to pay. Record the balance as paid ${to === 'paid' ? 'first' : 'before it ships'}.`
 			);
 		}

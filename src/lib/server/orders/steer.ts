@@ -11,15 +11,15 @@ import { transact } from '../db/retry';
 import { orders } from '../db/schema';
 import { releaseInTx } from './holds';
 import { refundOrder } from './refunds';
-import { OrderNotFoundError } from './ship';
-import { moveOrder, needsCarving, StatusMoveError } from './status';
+import { moveOrder, needsCarving } from './status';
+import { DomainError } from '../errors/domain-error';
 
 async function current(ref: string) {
 	const [o] = await db
 		.select({ id: orders.id, status: orders.status, paymentIntentId: orders.paymentIntentId })
 		.from(orders)
 		.where(eq(orders.ref, ref));
-	if (!o) throw new OrderNotFoundError(ref);
+	if (!o) throw new DomainError(404, `There is no order ${ref}.`);
 	return o;
 }
 
@@ -36,12 +36,14 @@ export async function cancelOrder(
 ): Promise<{ refundedMinor: number | null }> {
 	const o = await current(ref);
 	if (o.status !== input.expect) {
-		throw new StatusMoveError(
+		throw new DomainError(
+			409,
 			`Order ${ref} is already “${statusLabel(o.status)}”; nothing was changed.`
 		);
 	}
 	if (!canCancel(o.status)) {
-		throw new StatusMoveError(
+		throw new DomainError(
+			409,
 			o.status === 'shipped'
 				? `Order ${ref} has shipped: refund it instead of cancelling.`
 				: `Order ${ref} is “${statusLabel(o.status)}” and cannot be cancelled.`
@@ -51,11 +53,12 @@ export async function cancelOrder(
 		const done = await transact((tx) =>
 			releaseInTx(tx, o.id, `Cancelled: ${input.reason}`, by.userId)
 		);
-		if (!done) throw new StatusMoveError(`Order ${ref} is no longer waiting for payment.`);
+		if (!done) throw new DomainError(409, `Order ${ref} is no longer waiting for payment.`);
 		return { refundedMinor: null };
 	}
 	if (!o.paymentIntentId) {
-		throw new StatusMoveError(
+		throw new DomainError(
+			409,
 			`Order ${ref} was not paid online, so the app cannot refund it. Give the money back in person and note it here.`
 		);
 	}
@@ -83,7 +86,8 @@ export async function stepBackOrder(
 		needsCarving: await transact((tx) => needsCarving(tx, o.id))
 	});
 	if (!to) {
-		throw new StatusMoveError(
+		throw new DomainError(
+			409,
 			`Order ${ref} cannot go back a step from “${statusLabel(o.status)}”.`
 		);
 	}

@@ -1,5 +1,6 @@
 import Stripe from 'stripe';
 import { config } from '../config';
+import { DomainError } from '../errors/domain-error';
 
 let client: Stripe | undefined;
 
@@ -19,29 +20,26 @@ export function stripe(): Stripe {
 	return client;
 }
 
-export class WebhookSignatureError extends Error {}
-
 /** How far a signed event's timestamp may be from our clock, either way (the SDK's default). */
 export const WEBHOOK_TOLERANCE_S = 300;
 
 /**
  * Checks a webhook's `Stripe-Signature` against the raw body with the SDK's own verifier and
  * returns the event. The SDK refuses a timestamp older than the tolerance; one from the future
- * (a replay signed with a skewed or forged clock) is refused here too. Throws
- * WebhookSignatureError when the signature is missing, wrong, too old or too new, so the route
- * can answer 400 with the reason.
+ * (a replay signed with a skewed or forged clock) is refused here too. Throws a DomainError 400
+ * (code `signature`) when the signature is missing, wrong, too old or too new, with the reason.
  */
 export function verifyWebhook(
 	rawBody: string | Buffer,
 	signatureHeader: string | null,
 	now = Date.now()
 ): Stripe.Event {
-	if (!signatureHeader) throw new WebhookSignatureError('Missing Stripe-Signature header');
+	const refused = (reason: string) =>
+		new DomainError(400, `The signature was not accepted: ${reason}`, { code: 'signature' });
+	if (!signatureHeader) throw refused('Missing Stripe-Signature header');
 	const t = Number(/(?:^|,)\s*t=(\d+)/.exec(signatureHeader)?.[1]);
 	if (Number.isFinite(t) && t - now / 1000 > WEBHOOK_TOLERANCE_S) {
-		throw new WebhookSignatureError(
-			'The signature timestamp is in the future beyond the tolerance.'
-		);
+		throw refused('The signature timestamp is in the future beyond the tolerance.');
 	}
 	try {
 		return stripe().webhooks.constructEvent(
@@ -53,7 +51,7 @@ export function verifyWebhook(
 			now
 		);
 	} catch (err) {
-		throw new WebhookSignatureError((err as Error).message);
+		throw refused((err as Error).message);
 	}
 }
 

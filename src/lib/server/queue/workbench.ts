@@ -4,7 +4,7 @@ import { db } from '../db';
 import { transact } from '../db/retry';
 import { orderHistory, orderNotes, orders, users } from '../db/schema';
 import { refundsOf } from '../orders/refunds';
-import { OrderNotFoundError } from '../orders/ship';
+import { DomainError } from '../errors/domain-error';
 
 export async function orderWorkbench(orderId: number) {
 	const [history, notes, refunds] = await Promise.all([
@@ -39,14 +39,14 @@ export async function orderWorkbench(orderId: number) {
 
 export async function orderIdOf(ref: string): Promise<number> {
 	const [o] = await db.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref));
-	if (!o) throw new OrderNotFoundError(ref);
+	if (!o) throw new DomainError(404, `There is no order ${ref}.`);
 	return o.id;
 }
 
 export async function addOrderNote(ref: string, body: string, userId: string) {
 	await transact(async (tx) => {
 		const [o] = await tx.select({ id: orders.id }).from(orders).where(eq(orders.ref, ref));
-		if (!o) throw new OrderNotFoundError(ref);
+		if (!o) throw new DomainError(404, `There is no order ${ref}.`);
 		await tx.insert(orderNotes).values({ orderId: o.id, userId, body, createdAt: new Date() });
 	});
 }

@@ -1,6 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { Tx } from '../db';
 import { stock, stockAdjustments } from '../db/schema';
+import { DomainError } from '../errors/domain-error';
 
 export type StockPlace = 'workshop' | `fair:${number}`;
 
@@ -19,15 +20,6 @@ export type Adjustment = {
 	 */
 	allowNegative?: boolean;
 };
-
-export class StockError extends Error {
-	constructor(
-		message: string,
-		readonly available: number
-	) {
-		super(message);
-	}
-}
 
 /**
  * The one way stock changes: locks the stock row (creating it at zero when missing), refuses to
@@ -54,9 +46,10 @@ export async function adjustStock(tx: Tx, a: Adjustment) {
 		.for('update');
 	const next = row.quantity + a.delta;
 	if (next < 0 && !a.allowNegative) {
-		throw new StockError(
+		throw new DomainError(
+			409,
 			`Only ${Math.max(row.quantity, 0)} on hand at ${a.place}; cannot take ${-a.delta}.`,
-			row.quantity
+			{ code: 'short', count: row.quantity }
 		);
 	}
 	await tx.update(stock).set({ quantity: next }).where(eq(stock.id, row.id));

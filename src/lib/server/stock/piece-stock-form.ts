@@ -1,7 +1,9 @@
-import { error, fail } from '@sveltejs/kit';
-import { fieldErrors, formTexts } from '$lib/forms/parse-form';
+import { error } from '@sveltejs/kit';
+import { parseForm } from '$lib/forms/parse-form';
 import { stockAdjustForm, stockDelta } from '$lib/stock/stock-schema';
-import { adjustPieceStock, StockChangeError, type FairForStock } from './piece-stock';
+import { DomainError } from '../errors/domain-error';
+import { failFrom } from '../errors/form-answer';
+import { adjustPieceStock, type FairForStock } from './piece-stock';
 
 /**
  * The piece page's stock panel: reads the change, makes it with the reason and who made it, and
@@ -13,11 +15,8 @@ export async function pieceStockForm(
 	userId: string,
 	fairForStock: FairForStock
 ) {
-	const values = formTexts(await request.formData());
-	const parsed = stockAdjustForm.safeParse(values);
-	if (!parsed.success) {
-		return fail(400, { stockErrors: fieldErrors(parsed.error), stockValues: values });
-	}
+	const parsed = await parseForm(request, stockAdjustForm, { extra: { form: 'stock' } });
+	if (!parsed.ok) return parsed.failure;
 	const { woodId, place, reason } = parsed.data;
 	try {
 		const r = await adjustPieceStock(
@@ -28,11 +27,8 @@ export async function pieceStockForm(
 		);
 		return { stockSaved: r.quantity };
 	} catch (err) {
-		if (!(err instanceof StockChangeError)) throw err;
+		if (!(err instanceof DomainError)) throw err;
 		if (err.status === 404) error(404, err.message);
-		return fail(err.status, {
-			stockErrors: { [err.field ?? 'form']: [err.message] },
-			stockValues: values
-		});
+		return failFrom(err, { form: 'stock', values: parsed.values });
 	}
 }

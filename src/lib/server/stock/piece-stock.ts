@@ -16,17 +16,12 @@ import {
 	woods,
 	WORKSHOP
 } from '../db/schema';
-import { adjustStock, StockError, type StockPlace } from './adjust';
+import { adjustStock, type StockPlace } from './adjust';
+import { DomainError, isDomainError } from '../errors/domain-error';
 
-/** A change the owner asked for that cannot be made; `status` is the HTTP answer. */
-export class StockChangeError extends Error {
-	constructor(
-		message: string,
-		readonly status: 400 | 404 | 409,
-		readonly field?: 'woodId' | 'place' | 'count'
-	) {
-		super(message);
-	}
+/** A change the owner asked for that cannot be made, with the field its message goes beside. */
+function refused(status: 400 | 404 | 409, message: string, field?: 'woodId' | 'place' | 'count') {
+	return new DomainError(status, message, field ? { fields: { [field]: [message] } } : {});
 }
 
 const fairIdOf = (place: string) => (place.startsWith('fair:') ? Number(place.slice(5)) : null);
@@ -131,7 +126,7 @@ export async function adjustPieceStock(
 			.select({ id: pieces.id, title: pieces.title })
 			.from(pieces)
 			.where(eq(pieces.id, pieceId));
-		if (!piece) throw new StockChangeError('There is no such piece.', 404);
+		if (!piece) throw refused(404, 'There is no such piece.');
 		const [wood] = await tx
 			.select({ name: woods.name })
 			.from(woods)
@@ -147,17 +142,16 @@ export async function adjustPieceStock(
 					.from(stock)
 					.where(and(eq(stock.pieceId, pieceId), eq(stock.woodId, change.woodId)))
 					.limit(1);
-		if (!wood || !held)
-			throw new StockChangeError(`${piece.title} is not made in that wood.`, 400, 'woodId');
+		if (!wood || !held) throw refused(400, `${piece.title} is not made in that wood.`, 'woodId');
 		const fairId = fairIdOf(change.place);
 		let placeName = 'the workshop';
 		if (fairId !== null) {
 			const fair = await fairForStock(tx, fairId);
-			if (!fair) throw new StockChangeError('There is no such fair.', 400, 'place');
+			if (!fair) throw refused(400, 'There is no such fair.', 'place');
 			if (fair.closedAt)
-				throw new StockChangeError(
-					`${fair.name} is closed; its pieces went back to the workshop.`,
+				throw refused(
 					409,
+					`${fair.name} is closed; its pieces went back to the workshop.`,
 					'place'
 				);
 			placeName = fair.name;
@@ -165,10 +159,10 @@ export async function adjustPieceStock(
 		try {
 			return await adjustStock(tx, { pieceId, ...change, userId });
 		} catch (err) {
-			if (err instanceof StockError) {
-				throw new StockChangeError(
-					`Only ${Math.max(err.available, 0)} ${piece.title} in ${wood.name} at ${placeName}: you cannot take away ${-change.delta}. Nothing was changed.`,
+			if (isDomainError(err, 'short')) {
+				throw refused(
 					409,
+					`Only ${Math.max(err.count ?? 0, 0)} ${piece.title} in ${wood.name} at ${placeName}: you cannot take away ${-change.delta}. Nothing was changed.`,
 					'count'
 				);
 			}

@@ -1,5 +1,4 @@
-import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { resetRequestSchema } from '$lib/auth/auth-schema';
 import { requestPasswordReset } from '$lib/server/auth/reset-mail';
 import { afterResponse } from '$lib/server/auth/after-response';
@@ -18,10 +17,8 @@ export const actions: Actions = {
 		]);
 		if (!verdict.ok) {
 			event.locals.retryAfterS = verdict.retryAfterS;
-			return fail(429, {
-				errors: { email: [tryAgainIn(verdict.retryAfterS)] },
-				values
-			});
+			const wait = tryAgainIn(verdict.retryAfterS);
+			return formFail(429, wait, { errors: { email: [wait] }, values });
 		}
 		// Looked up and mailed after answering: the same answer, in the same time, for everyone.
 		afterResponse('password reset mail', () => requestPasswordReset(parsed.data.email));

@@ -1,5 +1,5 @@
-import { fail, redirect } from '@sveltejs/kit';
-import { formText, parseForm } from '$lib/forms/parse-form';
+import { redirect } from '@sveltejs/kit';
+import { formFail, formText, parseForm } from '$lib/forms/parse-form';
 import { signInSchema } from '$lib/auth/auth-schema';
 import { homeFor, safeNext } from '$lib/auth/safe-redirect';
 import { authenticate } from '$lib/server/auth/users';
@@ -25,7 +25,7 @@ const NO_MATCH = "That e-mail and password don't match an account.";
 export const actions: Actions = {
 	default: async (event) => {
 		const { request, cookies, locals, url } = event;
-		const parsed = await parseForm(request, signInSchema, { extra: { message: '' } });
+		const parsed = await parseForm(request, signInSchema);
 		if (!parsed.ok) return parsed.failure;
 		const { form, values } = parsed;
 		const next = safeNext(
@@ -43,10 +43,10 @@ export const actions: Actions = {
 		);
 		if (!verdict.ok) {
 			locals.retryAfterS = verdict.retryAfterS;
-			return fail(429, { errors: {}, values, message: tryAgainIn(verdict.retryAfterS) });
+			return formFail(429, tryAgainIn(verdict.retryAfterS), { values });
 		}
 		const user = await authenticate(parsed.data.email, parsed.data.password);
-		if (!user) return fail(400, { errors: {}, values, message: NO_MATCH });
+		if (!user) return formFail(400, NO_MATCH, { values });
 
 		await signInSucceeded(parsed.data.email, address);
 		if (locals.session) await invalidateSession(locals.session.id);

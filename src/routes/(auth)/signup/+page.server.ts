@@ -1,5 +1,5 @@
-import { fail, redirect } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms/parse-form';
+import { redirect } from '@sveltejs/kit';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { signUpSchema } from '$lib/auth/auth-schema';
 import { safeNext } from '$lib/auth/safe-redirect';
 import { afterResponse } from '$lib/server/auth/after-response';
@@ -30,7 +30,7 @@ export const actions: Actions = {
 		]);
 		if (!verdict.ok) {
 			event.locals.retryAfterS = verdict.retryAfterS;
-			return fail(429, { errors: { form: [tryAgainIn(verdict.retryAfterS)] }, values });
+			return formFail(429, tryAgainIn(verdict.retryAfterS), { values });
 		}
 		// Sign-up only ever makes customers; staff are added by the owner in the workshop.
 		const { name, email, password } = parsed.data;

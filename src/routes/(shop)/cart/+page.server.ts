@@ -1,7 +1,5 @@
-import { fail } from '@sveltejs/kit';
 import type { z } from 'zod';
 import {
-	CartError,
 	cartIdFrom,
 	cartSummary,
 	ensureCart,
@@ -10,7 +8,8 @@ import {
 	setQuantity
 } from '$lib/server/cart';
 import { returnUnpaid } from '$lib/server/orders/payment';
-import { destinationSchema, removeLineSchema, setQuantitySchema } from '$lib/cart/cart-schema';
+import { knownDestinationSchema, removeLineSchema, setQuantitySchema } from '$lib/cart/cart-schema';
+import { orFail } from '$lib/server/errors/form-answer';
 import { parseForm } from '$lib/forms/parse-form';
 import { COUNTRIES } from '$lib/locale/countries';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
@@ -27,7 +26,7 @@ export const load: PageServerLoad = async ({ cookies, url }) => {
 
 /**
  * The same changes as /api/cart, for browsers without JavaScript: parsed first (bad input never
- * creates a basket), then run; a refusal answers `fail(4xx, { errors, values })`.
+ * creates a basket), then run; a refusal answers the one form failure (`orFail`).
  */
 async function act<S extends z.ZodType>(
 	event: RequestEvent,
@@ -36,29 +35,19 @@ async function act<S extends z.ZodType>(
 ) {
 	const parsed = await parseForm(event.request, schema);
 	if (!parsed.ok) return parsed.failure;
-	try {
-		const cartId = await ensureCart(
-			event.cookies,
-			event.locals.user?.id ?? null,
-			event.url.protocol === 'https:'
-		);
-		await run(cartId, parsed.data);
-		return { ok: true };
-	} catch (err) {
-		if (err instanceof CartError)
-			return fail(err.status === 404 ? 404 : 400, {
-				errors: { form: [err.message], ...err.fields },
-				values: parsed.values
-			});
-		throw err;
-	}
+	return orFail(
+		async () => {
+			const { cookies, locals, url } = event;
+			const cartId = await ensureCart(cookies, locals.user?.id ?? null, url.protocol === 'https:');
+			await run(cartId, parsed.data);
+			return { ok: true };
+		},
+		{ values: parsed.values }
+	);
 }
 
 /** Only the countries we post to; the message the page shows beside the list. */
-const knownDestination = destinationSchema.refine(
-	(d) => (COUNTRIES as readonly string[]).includes(d.country),
-	{ message: 'Choose a country from the list.', path: ['country'] }
-);
+const knownDestination = knownDestinationSchema('Choose a country from the list.');
 
 export const actions: Actions = {
 	quantity: (event) =>

@@ -1,12 +1,13 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { cartIdFrom, cartSummary } from '$lib/server/cart';
 import { checkoutDetailsFor } from '$lib/server/cart/checkout-details';
-import { OrderError, placeOrder } from '$lib/server/orders/place';
+import { placeOrder } from '$lib/server/orders/place';
+import { isFailure, orFail } from '$lib/server/errors/form-answer';
 import { checkoutSchema } from '$lib/cart/checkout-schema';
 import { COUNTRIES } from '$lib/locale/countries';
 import { REGION_EXAMPLE, regionsFor } from '$lib/locale/regions';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { takeAll, tryAgainIn } from '$lib/server/http/rate-limit';
 import { throttles } from '$lib/server/http/throttles';
 
@@ -46,7 +47,7 @@ export const actions: Actions = {
 		const { values } = parsed;
 
 		const cartId = cartIdFrom(cookies);
-		if (!cartId) return fail(409, { errors: { form: ['Your basket is empty.'] }, values });
+		if (!cartId) return formFail(409, 'Your basket is empty.', { values });
 
 		// Throttle: pieces held per basket and per client address (see $lib/server/http/throttles).
 		const held = await takeAll([
@@ -55,17 +56,14 @@ export const actions: Actions = {
 		]);
 		if (!held.ok) {
 			locals.retryAfterS = held.retryAfterS;
-			return fail(429, { errors: { form: [tryAgainIn(held.retryAfterS)] }, values });
+			return formFail(429, tryAgainIn(held.retryAfterS), { values });
 		}
 
-		let placed;
-		try {
-			placed = await placeOrder(cartId, parsed.data, locals.user?.id ?? null, url.origin);
-		} catch (err) {
-			if (err instanceof OrderError)
-				return fail(err.status, { errors: { form: [err.message] }, values, code: err.code });
-			throw err;
-		}
+		const placed = await orFail(
+			() => placeOrder(cartId, parsed.data, locals.user?.id ?? null, url.origin),
+			{ values }
+		);
+		if (isFailure(placed)) return placed;
 		redirect(303, placed.paymentUrl);
 	}
 };

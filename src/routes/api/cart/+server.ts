@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/http/api-errors';
-import { fieldErrors, type FieldErrors } from '$lib/forms/parse-form';
+import { apiError, orApiError } from '$lib/server/http/api-errors';
+import { readJson } from '$lib/server/http/read-json';
+import { parseInput } from '$lib/server/errors/parse-input';
 import {
 	addLine,
-	CartError,
 	cartIdFrom,
 	cartSummary,
 	ensureCart,
@@ -13,68 +13,36 @@ import {
 } from '$lib/server/cart';
 import {
 	addLineSchema,
-	destinationSchema,
+	knownDestinationSchema,
 	removeLineSchema,
 	setQuantitySchema
 } from '$lib/cart/cart-schema';
 import { COUNTRIES } from '$lib/locale/countries';
-import { readJsonObject } from '$lib/server/http/body-limit';
 import type { RequestEvent, RequestHandler } from './$types';
 
-const knownCountry = (c: string) => (COUNTRIES as readonly string[]).includes(c);
+const NOT_POSTED = 'We do not post to that country yet.';
 
 /**
  * Parses the request first (so bad input never creates a basket), then runs the change and
  * answers with the new summary, or a JSON error the page can show.
  */
-async function change(
+const change = (
 	event: RequestEvent,
 	prepare: (input: Record<string, unknown>) => (cartId: string) => Promise<unknown>
-) {
-	const input = await readJsonObject(event.request);
-	if (!input.ok) return apiError(input.status, input.message);
-	try {
-		const run = prepare(input.value);
-		const cartId = await ensureCart(
-			event.cookies,
-			event.locals.user?.id ?? null,
-			event.url.protocol === 'https:'
-		);
+) =>
+	orApiError(async () => {
+		const run = prepare(await readJson(event.request));
+		const { cookies, locals, url } = event;
+		const cartId = await ensureCart(cookies, locals.user?.id ?? null, url.protocol === 'https:');
 		await run(cartId);
 		return json(await cartSummary(cartId));
-	} catch (err) {
-		if (err instanceof CartError) return apiError(err.status, err.message, err.fields);
-		if (err instanceof InputError) return apiError(400, err.message, err.fields);
-		throw err;
-	}
-}
-
-class InputError extends Error {
-	constructor(public fields: FieldErrors) {
-		super(Object.values(fields)[0]?.[0] ?? 'Check the request.');
-	}
-}
-
-function parse<T>(
-	schema: {
-		safeParse: (
-			v: unknown
-		) => { success: true; data: T } | { success: false; error: import('zod').ZodError };
-	},
-	v: unknown
-): T {
-	const r = schema.safeParse(v);
-	if (!r.success) throw new InputError(fieldErrors(r.error));
-	return r.data;
-}
+	});
 
 /** The cart with prices, tax and a shipping estimate for `?country=` (default: saved or home). */
 export const GET: RequestHandler = async ({ url, cookies }) => {
 	const country = url.searchParams.get('country')?.toUpperCase();
-	if (country && !knownCountry(country)) {
-		return apiError(400, 'We do not post to that country yet.', {
-			country: ['Choose a country from the list.']
-		});
+	if (country && !(COUNTRIES as readonly string[]).includes(country)) {
+		return apiError(400, NOT_POSTED, { country: ['Choose a country from the list.'] });
 	}
 	return json(await cartSummary(cartIdFrom(cookies), country));
 };
@@ -82,7 +50,7 @@ export const GET: RequestHandler = async ({ url, cookies }) => {
 /** Adds a piece: { slug, wood, quantity?, initials?, style? }. */
 export const POST: RequestHandler = (event) =>
 	change(event, (input) => {
-		const line = parse(addLineSchema, input);
+		const line = parseInput(addLineSchema, input);
 		return (cartId) => addLine(cartId, line);
 	});
 
@@ -90,18 +58,16 @@ export const POST: RequestHandler = (event) =>
 export const PATCH: RequestHandler = (event) =>
 	change(event, (input) => {
 		if ('country' in input) {
-			const { country } = parse(destinationSchema, input);
-			if (!knownCountry(country))
-				throw new InputError({ country: ['We do not post to that country yet.'] });
+			const { country } = parseInput(knownDestinationSchema(NOT_POSTED), input);
 			return (cartId) => setDestination(cartId, country);
 		}
-		const { lineId, quantity } = parse(setQuantitySchema, input);
+		const { lineId, quantity } = parseInput(setQuantitySchema, input);
 		return (cartId) => setQuantity(cartId, lineId, quantity);
 	});
 
 /** Removes a line { lineId }. */
 export const DELETE: RequestHandler = (event) =>
 	change(event, (input) => {
-		const { lineId } = parse(removeLineSchema, input);
+		const { lineId } = parseInput(removeLineSchema, input);
 		return (cartId) => removeLine(cartId, lineId);
 	});

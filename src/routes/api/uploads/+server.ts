@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { requireRoleApi } from '$lib/server/auth/guard';
-import { apiError, apiInvalid } from '$lib/server/http/api-errors';
-import { addPhoto, PhotoNotFound } from '$lib/server/catalogue/photos';
-import { PhotoRejected } from '$lib/server/catalogue/photo-storage';
+import { apiError, apiFrom, apiInvalid } from '$lib/server/http/api-errors';
+import { isDomainError } from '$lib/server/errors/domain-error';
+import { addPhoto } from '$lib/server/catalogue/photos';
 import { uploadFields } from '$lib/catalogue/photo-schema';
 import { MAX_PHOTO_BYTES } from '$lib/catalogue/photo-limits';
 import { UPLOAD_TOO_LARGE } from '$lib/server/http/body-limit';
@@ -37,8 +37,9 @@ export const POST: RequestHandler = async (event) => {
 		);
 		return json({ photo }, { status: 201 });
 	} catch (err) {
-		if (err instanceof PhotoRejected) return apiError(400, `${file.name}: ${err.message}`);
-		if (err instanceof PhotoNotFound) return apiError(404, err.message);
+		// A refused file is named, since the browser sends several side by side.
+		if (isDomainError(err, 'photo')) return apiError(err.status, `${file.name}: ${err.message}`);
+		if (isDomainError(err)) return apiFrom(err);
 		throw err;
 	}
 };

@@ -1,10 +1,9 @@
-import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { moveOrders } from '$lib/server/orders/bulk';
 import { orderStatuses } from '$lib/orders/status';
 import { isBenchMove } from '$lib/queue/workbench-moves';
-import { firstError, parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The table itself is fetched by the browser from /api/workshop/orders; this checks the role. */
@@ -25,11 +24,9 @@ export const actions: Actions = {
 		const parsed = await parseForm(event.request, moveSchema, {
 			input: (t, form) => ({ refs: form.getAll('refs'), to: t.to })
 		});
-		if (!parsed.ok) {
-			return fail(400, { error: firstError(parsed.errors) ?? 'Check the selection.' });
-		}
+		if (!parsed.ok) return parsed.failure;
 		if (!isBenchMove(parsed.data.to)) {
-			return fail(400, { error: 'Orders move on together only to carving, finishing or packed.' });
+			return formFail(400, 'Orders move on together only to carving, finishing or packed.');
 		}
 		return { moved: await moveOrders(parsed.data.refs, parsed.data.to, user.id) };
 	}

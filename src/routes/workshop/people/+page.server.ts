@@ -1,5 +1,4 @@
-import { fail } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { addHelperSchema, promoteSchema, removeHelperSchema } from '$lib/auth/auth-schema';
 import { requireRole } from '$lib/server/auth/guard';
 import { addHelper, listStaff, promoteCustomer, removeHelper } from '$lib/server/auth/staff';
@@ -17,7 +16,9 @@ export const actions: Actions = {
 		if (!parsed.ok) return parsed.failure;
 		const { values } = parsed;
 		const r = await addHelper(parsed.data);
-		if (!r.ok) return fail(400, { form: 'add', errors: { [r.field]: [r.message] }, values });
+		if (!r.ok) {
+			return formFail(400, r.message, { form: 'add', errors: { [r.field]: [r.message] }, values });
+		}
 		return { form: 'add', done: `${r.user.name} can now sign in as a helper.` };
 	},
 
@@ -27,7 +28,10 @@ export const actions: Actions = {
 		if (!parsed.ok) return parsed.failure;
 		const { values } = parsed;
 		const r = await promoteCustomer(parsed.data.email);
-		if (!r.ok) return fail(400, { form: 'promote', errors: { [r.field]: [r.message] }, values });
+		if (!r.ok) {
+			const errors = { [r.field]: [r.message] };
+			return formFail(400, r.message, { form: 'promote', errors, values });
+		}
 		return { form: 'promote', done: `${r.user.name} is now a helper.` };
 	},
 
@@ -38,7 +42,7 @@ export const actions: Actions = {
 		});
 		if (!parsed.ok) return parsed.failure;
 		const r = await removeHelper(owner.id, parsed.data.userId);
-		if (!r.ok) return fail(400, { form: 'remove', errors: { userId: [r.message] } });
+		if (!r.ok) return formFail(400, r.message, { form: 'remove', errors: { userId: [r.message] } });
 		return {
 			form: 'remove',
 			done: `${r.user.name} is no longer a helper and has been signed out of the workshop.`

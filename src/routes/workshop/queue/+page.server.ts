@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import { daysBetween } from '$lib/queue/carving-queue';
 import { requireRole } from '$lib/server/auth/guard';
 import { parseForm } from '$lib/forms/parse-form';
@@ -15,6 +16,14 @@ export const load: PageServerLoad = async (event) => {
 		alertsOn: user.role === 'owner' || helpers.includes(user.id)
 	};
 };
+
+/** The tick box: on when sent as "yes", off when left out. */
+const alertsForm = z.object({
+	on: z
+		.string()
+		.optional()
+		.transform((v) => v === 'yes')
+});
 
 export const actions: Actions = {
 	/** The owner's carving week: changing it re-dates every queued order. */
@@ -51,7 +60,9 @@ export const actions: Actions = {
 	/** A helper asks for (or stops) an e-mail on each paid order; the owner always gets one. */
 	alerts: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
-		const on = (await event.request.formData()).get('on') === 'yes';
+		const parsed = await parseForm(event.request, alertsForm);
+		if (!parsed.ok) return parsed.failure;
+		const { on } = parsed.data;
 		if (user.role === 'helper') await setAlertOptIn(user.id, on);
 		return { saved: on ? 'You will get an e-mail for each paid order.' : 'No more order e-mails.' };
 	}

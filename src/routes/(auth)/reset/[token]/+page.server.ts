@@ -1,5 +1,5 @@
-import { fail, redirect } from '@sveltejs/kit';
-import { parseForm } from '$lib/forms/parse-form';
+import { redirect } from '@sveltejs/kit';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { resetPasswordSchema } from '$lib/auth/auth-schema';
 import { homeFor } from '$lib/auth/safe-redirect';
 import { checkResetToken, completeReset } from '$lib/server/auth/reset';
@@ -22,7 +22,12 @@ export const actions: Actions = {
 		});
 		if (!parsed.ok) return parsed.failure;
 		const done = await completeReset(params.token, parsed.data.password);
-		if (!done.ok) return fail(400, { errors: {}, state: done.state });
+		if (!done.ok) {
+			return formFail(400, 'This reset link can no longer be used.', {
+				errors: {},
+				state: done.state
+			});
+		}
 
 		// completeReset ended every older session of the account; this one starts fresh.
 		await signIn(cookies, done.userId, url.protocol === 'https:');

@@ -1,4 +1,5 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
+import { formFail } from '$lib/forms/parse-form';
 import { checkSignUpToken, completeSignUp } from '$lib/server/auth/signup';
 import { invalidateSession, signIn } from '$lib/server/auth/lucia';
 import type { Actions, PageServerLoad } from './$types';
@@ -15,7 +16,9 @@ export const load: PageServerLoad = async ({ params, setHeaders }) => {
 export const actions: Actions = {
 	default: async ({ params, cookies, locals, url }) => {
 		const done = await completeSignUp(params.token);
-		if (!done.ok) return fail(400, { state: done.state });
+		if (!done.ok) {
+			return formFail(400, 'This sign-up link can no longer be used.', { state: done.state });
+		}
 		if (locals.session) await invalidateSession(locals.session.id);
 		await signIn(cookies, done.userId, url.protocol === 'https:');
 		redirect(303, '/account');

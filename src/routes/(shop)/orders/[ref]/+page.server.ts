@@ -1,9 +1,9 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { buyerOrderView, orderByRef } from '$lib/server/orders/views';
 import { verifyOrderKey } from '$lib/server/orders/links';
 import { messageShop } from '$lib/server/orders/buyer-message';
 import { tryAgainIn } from '$lib/server/http/rate-limit';
-import { parseForm } from '$lib/forms/parse-form';
+import { formFail, parseForm } from '$lib/forms/parse-form';
 import { orderMessageSchema } from '$lib/orders/message-schema';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -41,7 +41,8 @@ export const actions: Actions = {
 			event.url.origin
 		);
 		if (!sent.ok) {
-			return fail(429, { errors: { body: [tryAgainIn(sent.retryAfterS)] }, values: parsed.values });
+			const wait = tryAgainIn(sent.retryAfterS);
+			return formFail(429, wait, { errors: { body: [wait] }, values: parsed.values });
 		}
 		return { sent: true };
 	}

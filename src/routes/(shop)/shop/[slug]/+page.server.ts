@@ -1,8 +1,10 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { piecePage, redrawnPreview } from '$lib/server/catalogue/piece-page';
-import { addLine, CartError, cartCount, ensureCart } from '$lib/server/cart';
+import { addLine, cartCount, ensureCart } from '$lib/server/cart';
+import { DomainError } from '$lib/server/errors/domain-error';
+import { failFrom } from '$lib/server/errors/form-answer';
 import { addLineSchema } from '$lib/cart/cart-schema';
-import { fieldErrors, formTexts } from '$lib/forms/parse-form';
+import { firstError, formFail, parseForm } from '$lib/forms/parse-form';
 import { initialsMissing } from '$lib/pattern/initials-rule';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -15,7 +17,11 @@ export const load: PageServerLoad = async ({ params }) => {
 export const actions: Actions = {
 	/** Adds the piece, personalised or ready-made; the server checks and prices it again. */
 	add: async ({ request, params, cookies, locals, url }) => {
-		const form = formTexts(await request.formData());
+		// A personalised line also needs initials, and the answer carries a preview.
+		const parsed = await parseForm(request, addLineSchema, {
+			input: (texts) => ({ ...texts, slug: params.slug })
+		});
+		const form = parsed.values;
 		const personalised = form.mode === 'personalised';
 		const values = {
 			mode: personalised ? 'personalised' : 'ready',
@@ -24,13 +30,15 @@ export const actions: Actions = {
 			style: form.style ?? '',
 			quantity: form.quantity ?? '1'
 		};
-		// Not parseForm: a personalised line also needs initials, and the answer carries a preview.
-		const parsed = addLineSchema.safeParse({ ...form, slug: params.slug });
-		const errors = parsed.success ? {} : fieldErrors(parsed.error);
+		// Without JavaScript the page comes back drawn for what was typed, not the blank default,
+		// with the ways out when the letters are too small.
+		const errors = parsed.ok ? {} : { ...parsed.errors };
 		const missing = initialsMissing(values.mode, values.initials);
 		if (missing) errors.initials = [missing];
-		if (!parsed.success || Object.keys(errors).length) {
-			return fail(400, { errors, values, preview: await redrawnPreview(params.slug, values) });
+		if (!parsed.ok || Object.keys(errors).length) {
+			const message = firstError(errors) ?? 'Check the form.';
+			const preview = await redrawnPreview(params.slug, values);
+			return formFail(400, message, { errors, values, preview });
 		}
 
 		const input = { ...parsed.data, initials: personalised ? parsed.data.initials : undefined };
@@ -39,12 +47,11 @@ export const actions: Actions = {
 			await addLine(cartId, input);
 			return { added: true, count: await cartCount(cartId), values };
 		} catch (err) {
-			if (err instanceof CartError) {
-				return fail(err.status === 404 ? 404 : 400, {
-					errors: err.fields ?? { form: [err.message] },
-					values,
-					preview: err.fields?.initials ? await redrawnPreview(params.slug, values) : undefined
-				});
+			if (err instanceof DomainError) {
+				const preview = err.fields?.initials
+					? await redrawnPreview(params.slug, values)
+					: undefined;
+				return failFrom(err, { values, preview });
 			}
 			throw err;
 		}

@@ -1,13 +1,13 @@
-import { fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/auth/guard';
 import { getFair, updateFair } from '$lib/server/fairs/fairs';
 import { fairPage } from '$lib/server/fairs/fair-page';
 import { loadOut } from '$lib/server/fairs/load-out';
-import { fairIdParam, orFail, orPageError } from '$lib/server/booth/http';
+import { fairIdParam } from '$lib/server/fairs/fair-id';
+import { orPageError } from '$lib/server/errors/page-answer';
+import { orFail, runForm } from '$lib/server/errors/form-answer';
 import { assertFairAccess, setFairHelpers } from '$lib/server/fairs/fair-helpers';
-import { fairFormSchema } from '$lib/fairs/schemas';
-import { loadOutLines } from '$lib/fairs/load-out-form';
-import { formTexts, parseForm } from '$lib/forms/parse-form';
+import { fairFormSchema, fairHelpersSchema, loadOutFormSchema } from '$lib/fairs/schemas';
+import type { FairForm, LoadOutLine } from '$lib/fairs/schemas';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -22,35 +22,27 @@ export const actions: Actions = {
 	save: async (event) => {
 		requireRole(event, 'owner');
 		const id = fairIdParam(event.params.id);
-		const parsed = await parseForm(event.request, fairFormSchema);
-		if (!parsed.ok) return parsed.failure;
-		return orFail(async () => {
-			await updateFair(id, parsed.data);
-			return { saved: true };
-		});
+		const save = (f: FairForm) => updateFair(id, f).then(() => ({ saved: true }));
+		return runForm(event.request, fairFormSchema, save, { form: 'save' });
 	},
 	helpers: async (event) => {
 		requireRole(event, 'owner');
 		const id = fairIdParam(event.params.id);
-		const chosen = (await event.request.formData())
-			.getAll('helper')
-			.filter((v): v is string => typeof v === 'string');
-		return orFail(async () => {
-			await setFairHelpers(id, chosen);
-			return { helpersSaved: chosen.length };
-		});
+		const choose = ({ helper }: { helper: string[] }) =>
+			setFairHelpers(id, helper).then(() => ({ helpersSaved: helper.length }));
+		return runForm(event.request, fairHelpersSchema, choose, { form: 'helpers' }, (_, form) => ({
+			helper: form.getAll('helper').filter((v) => typeof v === 'string')
+		}));
 	},
 	loadOut: async (event) => {
 		const user = requireRole(event, 'owner', 'helper');
 		const id = fairIdParam(event.params.id);
-		const denied = await orFail(() => assertFairAccess(user, id));
+		const denied = await orFail(() => assertFairAccess(user, id), { form: 'loadOut' });
 		if (denied) return denied;
-		const read = loadOutLines(formTexts(await event.request.formData()));
-		if ('error' in read) return fail(400, { loadOutError: read.error, key: read.key });
-		const { lines } = read;
-		return orFail(async () => {
-			await loadOut(id, lines, user.id);
-			return { loaded: lines.reduce((a, l) => a + l.quantity, 0) };
-		});
+		const take = (lines: LoadOutLine[]) =>
+			loadOut(id, lines, user.id).then(() => ({
+				loaded: lines.reduce((a, l) => a + l.quantity, 0)
+			}));
+		return runForm(event.request, loadOutFormSchema, take, { form: 'loadOut' });
 	}
 };

@@ -1,21 +1,16 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
-import { firstError, parseForm } from '$lib/forms/parse-form';
+import { isFailure, orFail, runForm } from '$lib/server/errors/form-answer';
 import { workshopOrderDetail } from '$lib/server/orders/views';
-import { canCancel, nextStatuses, statusLabel, stepBackTo } from '$lib/orders/status';
-import { formatMoney } from '$lib/locale/money';
-import { isBenchMove } from '$lib/queue/workbench-moves';
+import { canCancel, nextStatuses, stepBackTo } from '$lib/orders/status';
 import { moveSchema, noteSchema, steerSchema } from '$lib/orders/actions-schema';
 import { shipmentSchema } from '$lib/orders/shipment-schema';
 import { refundFormSchema } from '$lib/orders/refund-schema';
 import { balanceSchema } from '$lib/orders/balance-schema';
-import { recordBalancePaid } from '$lib/server/orders/balance';
-import { moveOrder, StatusMoveError } from '$lib/server/orders/status';
-import { OrderNotFoundError, shipOrder } from '$lib/server/orders/ship';
-import { markPiecesReturned, refundOrder, RefundError } from '$lib/server/orders/refunds';
-import { cancelOrder, stepBackOrder } from '$lib/server/orders/steer';
-import { addOrderNote, orderIdOf, orderWorkbench } from '$lib/server/queue/workbench';
-import type { Actions, PageServerLoad } from './$types';
+import * as steps from '$lib/server/orders/workshop-steps';
+import { orderIdOf, orderWorkbench } from '$lib/server/queue/workbench';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'owner', 'helper');
@@ -32,153 +27,49 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-/** Domain refusals become a form message; anything else is a real fault. */
-function refused(err: unknown, form: string) {
-	if (err instanceof StatusMoveError || err instanceof RefundError)
-		return fail(err.status, { form, error: err.message });
-	if (err instanceof OrderNotFoundError) return fail(404, { form, error: err.message });
-	throw err;
+/**
+ * One form of the page: who may use it, its schema, and the domain step, which answers with the
+ * sentence shown once done. Every answer names its form, so the page shows it beside that form.
+ */
+async function step<S extends z.ZodType>(
+	event: RequestEvent,
+	form: string,
+	who: ('owner' | 'helper')[],
+	schema: S,
+	run: (data: z.output<S>, by: { userId: string }, ref: string) => Promise<string>
+) {
+	const by = { userId: requireRole(event, ...who).id };
+	const answer = async (d: z.output<S>) => ({ form, done: await run(d, by, event.params.ref) });
+	return runForm(event.request, schema, answer, { form });
 }
 
+const staff: ('owner' | 'helper')[] = ['owner', 'helper'];
+const none = z.object({});
+
 export const actions: Actions = {
-	move: async (event) => {
-		const user = requireRole(event, 'owner', 'helper');
-		const parsed = await parseForm(event.request, moveSchema);
-		if (!parsed.ok) return fail(400, { form: 'move', error: firstError(parsed.errors) });
-		const { to, why, expect } = parsed.data;
-		if (!isBenchMove(to)) {
-			return fail(400, {
-				form: 'move',
-				error: 'That change has its own way: the shipping or refund form, or the payment itself.'
-			});
-		}
-		try {
-			const id = await orderIdOf(event.params.ref);
-			await moveOrder(id, to, {
-				userId: user.id,
-				why: why || `Moved to ${statusLabel(to)}`,
-				expect
-			});
-			return { form: 'move', done: `Moved to ${statusLabel(to)}.` };
-		} catch (err) {
-			return refused(err, 'move');
-		}
+	move: (e) => step(e, 'move', staff, moveSchema, (m, by, ref) => steps.benchMove(ref, m, by)),
+	ship: (e) =>
+		step(e, 'ship', staff, shipmentSchema, (s, by, ref) =>
+			steps.shipStep(ref, s, by, e.url.origin)
+		),
+	/** The amount is typed in the order's currency, so the schema needs the order first. */
+	refund: async (e) => {
+		requireRole(e, 'owner');
+		const currency = await orFail(() => steps.orderCurrency(e.params.ref), { form: 'refund' });
+		if (isFailure(currency)) return currency;
+		return step(e, 'refund', ['owner'], refundFormSchema(currency), (r, by, ref) =>
+			steps.refundStep(ref, r, by, e.url.origin)
+		);
 	},
-
-	ship: async (event) => {
-		const user = requireRole(event, 'owner', 'helper');
-		const parsed = await parseForm(event.request, shipmentSchema, { extra: { form: 'ship' } });
-		if (!parsed.ok) return parsed.failure;
-		try {
-			const s = await shipOrder(
-				event.params.ref,
-				parsed.data,
-				{ userId: user.id },
-				event.url.origin
-			);
-			return {
-				form: 'ship',
-				done: s.mailed
-					? `Shipped. The buyer has an e-mail with tracking number ${s.trackingNumber}.`
-					: 'Shipped, but the e-mail to the buyer could not be sent.'
-			};
-		} catch (err) {
-			return refused(err, 'ship');
-		}
-	},
-
-	refund: async (event) => {
-		const user = requireRole(event, 'owner');
-		const order = await workshopOrderDetail(event.params.ref);
-		if (!order) return fail(404, { form: 'refund', error: 'There is no such order.' });
-		const parsed = await parseForm(event.request, refundFormSchema(order.currency), {
-			extra: { form: 'refund' }
-		});
-		if (!parsed.ok) return parsed.failure;
-		try {
-			const r = await refundOrder(
-				event.params.ref,
-				parsed.data,
-				{ userId: user.id },
-				event.url.origin
-			);
-			const money = (m: number) => formatMoney(m, order.currency);
-			return {
-				form: 'refund',
-				done: `Refunded ${money(r.amountMinor)}; ${money(r.refundedMinor)} of ${money(r.totalMinor)} refunded in all. The buyer has an e-mail.`
-			};
-		} catch (err) {
-			return refused(err, 'refund');
-		}
-	},
-
-	returned: async (event) => {
-		requireRole(event, 'owner');
-		try {
-			await markPiecesReturned(event.params.ref);
-			return { form: 'returned', done: 'The ready-made pieces are back on the workshop shelf.' };
-		} catch (err) {
-			return refused(err, 'returned');
-		}
-	},
-
-	balance: async (event) => {
-		const user = requireRole(event, 'owner');
-		const parsed = await parseForm(event.request, balanceSchema);
-		if (!parsed.ok) return fail(400, { form: 'balance', error: firstError(parsed.errors) });
-		try {
-			await recordBalancePaid(event.params.ref, parsed.data.method, { userId: user.id });
-			return { form: 'balance', done: 'Balance recorded as paid. The order can ship.' };
-		} catch (err) {
-			return refused(err, 'balance');
-		}
-	},
-
-	/** Owner only, with a reason: a paid order is refunded in full through the refund code. */
-	cancel: async (event) => {
-		const user = requireRole(event, 'owner');
-		const parsed = await parseForm(event.request, steerSchema, { extra: { form: 'cancel' } });
-		if (!parsed.ok) return parsed.failure;
-		try {
-			const r = await cancelOrder(
-				event.params.ref,
-				parsed.data,
-				{ userId: user.id },
-				event.url.origin
-			);
-			return {
-				form: 'cancel',
-				done:
-					r.refundedMinor === null
-						? 'Cancelled. The pieces it held are back on the shelf.'
-						: 'Cancelled and refunded in full. The buyer has an e-mail.'
-			};
-		} catch (err) {
-			return refused(err, 'cancel');
-		}
-	},
-
-	back: async (event) => {
-		const user = requireRole(event, 'owner');
-		const parsed = await parseForm(event.request, steerSchema, { extra: { form: 'back' } });
-		if (!parsed.ok) return parsed.failure;
-		try {
-			const m = await stepBackOrder(event.params.ref, parsed.data, { userId: user.id });
-			return { form: 'back', done: `Back to ${statusLabel(m.to)}.` };
-		} catch (err) {
-			return refused(err, 'back');
-		}
-	},
-
-	note: async (event) => {
-		const user = requireRole(event, 'owner', 'helper');
-		const parsed = await parseForm(event.request, noteSchema, { extra: { form: 'note' } });
-		if (!parsed.ok) return parsed.failure;
-		try {
-			await addOrderNote(event.params.ref, parsed.data.body, user.id);
-			return { form: 'note', done: 'Note added.' };
-		} catch (err) {
-			return refused(err, 'note');
-		}
-	}
+	returned: (e) => step(e, 'returned', ['owner'], none, (_, __, ref) => steps.returnedStep(ref)),
+	balance: (e) =>
+		step(e, 'balance', ['owner'], balanceSchema, (b, by, ref) =>
+			steps.balanceStep(ref, b.method, by)
+		),
+	cancel: (e) =>
+		step(e, 'cancel', ['owner'], steerSchema, (s, by, ref) =>
+			steps.cancelStep(ref, s, by, e.url.origin)
+		),
+	back: (e) => step(e, 'back', ['owner'], steerSchema, (s, by, ref) => steps.backStep(ref, s, by)),
+	note: (e) => step(e, 'note', staff, noteSchema, (n, by, ref) => steps.noteStep(ref, n.body, by))
 };

@@ -1,6 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { boothView } from '$lib/server/booth/view';
-import { fairIdParam, orPageError } from '$lib/server/booth/http';
+import { fairIdParam } from '$lib/server/fairs/fair-id';
+import { orPageError } from '$lib/server/errors/page-answer';
 import { assertFairAccess } from '$lib/server/fairs/fair-helpers';
 import type { PageServerLoad } from './$types';
 

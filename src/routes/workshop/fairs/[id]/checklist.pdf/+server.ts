@@ -1,7 +1,8 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { fairPieces, getFair } from '$lib/server/fairs/fairs';
 import { checklistPdf } from '$lib/server/fairs/checklist-pdf';
-import { fairIdParam, orPageError } from '$lib/server/booth/http';
+import { fairIdParam } from '$lib/server/fairs/fair-id';
+import { orPageError } from '$lib/server/errors/page-answer';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

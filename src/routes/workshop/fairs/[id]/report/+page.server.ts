@@ -1,6 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { fairReport, fairsCompared } from '$lib/server/fairs/report';
-import { fairIdParam, orPageError } from '$lib/server/booth/http';
+import { fairIdParam } from '$lib/server/fairs/fair-id';
+import { orPageError } from '$lib/server/errors/page-answer';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

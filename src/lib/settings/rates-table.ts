@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import { z } from 'zod';
 import { ZONES, type RateRow, type Zone } from '$lib/catalogue/shipping';
 import type { RateLine } from '$lib/settings/settings-schema';
 import { formText } from '$lib/forms/parse-form';
@@ -66,4 +66,19 @@ export function parseRateInputs(inputs: RateInput[], schema: z.ZodType<RateLine>
 			error: `Add at least one band for ${missing.map((z) => ZONE_LABELS[z]).join(', ')}.`
 		};
 	return { ok: true, rows };
+}
+
+/**
+ * The posted rate table as one schema for `parseForm`: the refusal stands under `rates`, its
+ * path naming the row (`['rates', row]`) so the page can mark that row.
+ */
+export function ratesFormSchema(schema: z.ZodType<RateLine>) {
+	const row = z.object({ zone: z.string(), upToGrams: z.string(), price: z.string() });
+	return z.object({ rates: z.array(row) }).transform((v, ctx) => {
+		const parsed = parseRateInputs(v.rates, schema);
+		if (parsed.ok) return parsed.rows;
+		const path = parsed.row === undefined ? ['rates'] : ['rates', parsed.row];
+		ctx.addIssue({ code: 'custom', message: parsed.error, path });
+		return z.NEVER;
+	});
 }
