@@ -99,7 +99,9 @@ describe('the adapters', () => {
 			return new Request('http://x/', { method: 'POST', body: form });
 		};
 		const schema = z.object({ count: z.coerce.number().int('Type a whole number.') });
-		const bad = await runForm(post({ count: '1.5' }), schema, async () => 'never', { form: 'c' });
+		const bad = await runForm(post({ count: '1.5' }), schema, () => Promise.resolve('never'), {
+			form: 'c'
+		});
 		expect(isActionFailure(bad) && bad.data).toEqual({
 			form: 'c',
 			message: 'Type a whole number.',
@@ -110,7 +112,9 @@ describe('the adapters', () => {
 		expect(!parsed.ok && Object.keys(parsed.failure.data).sort()).toEqual(
 			Object.keys(formFail(400, 'x', { errors: {}, values: {} }).data).sort()
 		);
-		const good = await runForm(post({ count: '4' }), schema, async (d) => ({ twice: d.count * 2 }));
+		const good = await runForm(post({ count: '4' }), schema, (d) =>
+			Promise.resolve({ twice: d.count * 2 })
+		);
 		expect(good).toEqual({ twice: 8 });
 		await expect(orFail(() => Promise.reject(new TypeError('bug')))).rejects.toThrow(TypeError);
 	});

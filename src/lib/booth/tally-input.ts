@@ -75,7 +75,7 @@ export function tallyFormInput(owner: boolean) {
 		const parsed = tallyFieldsSchema(owner).safeParse(form);
 		if (!parsed.success) {
 			for (const i of parsed.error.issues)
-				ctx.addIssue({ code: 'custom', message: i.message, path: i.path as string[] });
+				ctx.addIssue({ code: 'custom', message: i.message, path: i.path });
 			return z.NEVER;
 		}
 		const day = tallyDaySchema.safeParse(form.day);

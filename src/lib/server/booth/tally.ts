@@ -168,7 +168,10 @@ export async function saveTally(
 			.for('update');
 		if (prev && c.saveId && prev.lastSaveId === c.saveId) return { status: 'duplicate', day };
 		if (prev && user.role !== 'owner' && prev.counts >= 2)
-			throw new DomainError(409, 'This day was counted and counted again; the owner can correct it now.');
+			throw new DomainError(
+				409,
+				'This day was counted and counted again; the owner can correct it now.'
+			);
 		const lines = await tx
 			.select({ id: fairStock.id })
 			.from(fairStock)

@@ -8,7 +8,7 @@ import { DomainError } from './domain-error';
  */
 export function parseInput<S extends z.ZodType>(schema: S, value: unknown, message?: string) {
 	const parsed = schema.safeParse(value);
-	if (parsed.success) return parsed.data as z.output<S>;
+	if (parsed.success) return parsed.data;
 	throw new DomainError(400, message ?? parsed.error.issues[0]?.message ?? 'Check the request.', {
 		fields: fieldErrors(parsed.error)
 	});
