@@ -14,7 +14,7 @@ const ALLOWED: Record<string, string> = {
 	// 12, above the three letters a rosette takes: a fourth letter already shows a sentence.
 	'lib/components/Personaliser.svelte': 'maxlength="12"',
 	// The owner's layout planner: draws what is typed, sends no form.
-	'routes/workshop/layout/+page.svelte': 'maxlength="3"'
+	'routes/workshop/layout/+page.svelte': 'maxlength={3}'
 };
 
 function svelteFiles(dir: string): string[] {
