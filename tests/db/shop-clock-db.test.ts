@@ -10,7 +10,7 @@ import { createFair } from '$lib/server/fairs/fairs';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { syncSales } from '$lib/server/booth/sync';
 import { boothView } from '$lib/server/booth/view';
-import { fairCsv, fairReport } from '$lib/server/fairs/report';
+import { fairCsv, fairReport } from '$lib/server/booth/fair-report';
 import { fairFormSchema } from '$lib/fairs/schemas';
 import { DEFAULT_FORMAT, useShopFormat } from '$lib/locale/shop-format';
 

@@ -15,7 +15,7 @@ import { promiseReadyBy } from '../queue/carving-queue';
 import { esc, mailButton, mailPage } from '../mail/html';
 import { queueNewOrderAlert } from './paid-alert';
 import { orderLink } from './links';
-import { readyByWords } from './mail';
+import { readyByWords } from '$lib/orders/ready-by-words';
 import { orderById, type OrderDetail } from './views';
 
 export function boothOrderMail(

@@ -1,8 +1,8 @@
+import { readyByWords } from '$lib/orders/ready-by-words';
 import { carverObject, carverSubject, workshopWords } from '$lib/locale/shop-format';
 import { formatMoney } from '$lib/locale/money';
 import { styleWords } from '$lib/pattern/styles';
 import { countryName } from '$lib/locale/countries';
-import { formatDay } from '$lib/locale/dates';
 import type { Tx } from '../db';
 import { queueMail } from '../mail/outbox';
 import { esc } from '../mail/html';
@@ -14,10 +14,6 @@ import { buyerReadyBy } from '$lib/queue/carving-queue';
 /** Said to every buyer: finishes can come from nuts, and two of the woods are nut trees. */
 const ALLERGY_LINE =
 	'Some finishes are made from nut oils, and walnut and butternut are nut trees: if a nut allergy matters, reply to this e-mail and we will tell you exactly what was used.';
-
-export function readyByWords(iso: string | null) {
-	return formatDay(iso, 'weekdayLong', 'soon');
-}
 
 /** The confirmation as plain text and HTML; both carry the same facts. */
 export function confirmationMail(order: OrderDetail, origin?: string) {

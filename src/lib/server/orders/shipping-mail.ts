@@ -8,7 +8,7 @@ import { formatMoney } from '$lib/locale/money';
 import { trackingLink } from './tracking';
 import { esc, mailButton, mailPage } from '../mail/html';
 import { orderLink } from './links';
-import { readyByWords } from './mail';
+import { readyByWords } from '$lib/orders/ready-by-words';
 import { careForAll, LETTERS_CARE } from '$lib/catalogue/care';
 
 export type MailOrder = {

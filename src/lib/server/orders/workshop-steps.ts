@@ -15,7 +15,7 @@ import { shipOrder } from './ship';
 import { markPiecesReturned, refundOrder } from './refunds';
 import { cancelOrder, stepBackOrder } from './steer';
 import { recordBalancePaid } from './balance';
-import { addOrderNote, orderIdOf } from '../queue/workbench';
+import { addOrderNote, orderIdOf } from './workbench';
 
 type By = { userId: string };
 

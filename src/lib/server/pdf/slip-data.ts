@@ -4,7 +4,7 @@
  */
 import { isoDay } from '$lib/locale/dates';
 import { buyerReadyBy } from '$lib/queue/carving-queue';
-import { readyByWords } from '../orders/mail';
+import { readyByWords } from '$lib/orders/ready-by-words';
 import { asc, inArray } from 'drizzle-orm';
 import { db } from '../db';
 import { orderLines, orders } from '../db/schema';

@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { moneyReport } from '$lib/server/fairs/money-report';
+import { moneyReport } from '$lib/server/booth/money-report';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

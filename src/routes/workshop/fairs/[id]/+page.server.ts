@@ -1,6 +1,6 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { getFair, updateFair } from '$lib/server/fairs/fairs';
-import { fairPage } from '$lib/server/fairs/fair-page';
+import { fairPage } from '$lib/server/booth/fair-page';
 import { loadOut } from '$lib/server/fairs/load-out';
 import { fairIdParam } from '$lib/server/fairs/fair-id';
 import { orPageError } from '$lib/server/errors/page-answer';

@@ -9,7 +9,7 @@ import { shipmentSchema } from '$lib/orders/shipment-schema';
 import { refundFormSchema } from '$lib/orders/refund-schema';
 import { balanceSchema } from '$lib/orders/balance-schema';
 import * as steps from '$lib/server/orders/workshop-steps';
-import { orderIdOf, orderWorkbench } from '$lib/server/queue/workbench';
+import { orderIdOf, orderWorkbench } from '$lib/server/orders/workbench';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {

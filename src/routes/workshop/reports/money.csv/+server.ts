@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { moneyCsv, moneyReport } from '$lib/server/fairs/money-report';
+import { moneyCsv, moneyReport } from '$lib/server/booth/money-report';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/auth/guard';
-import { fairReport, fairsCompared } from '$lib/server/fairs/report';
+import { fairReport, fairsCompared } from '$lib/server/booth/fair-report';
 import { fairIdParam } from '$lib/server/fairs/fair-id';
 import { orPageError } from '$lib/server/errors/page-answer';
 import type { PageServerLoad } from './$types';

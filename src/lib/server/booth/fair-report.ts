@@ -4,8 +4,8 @@ import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { fairs } from '../db/schema';
 import { netPerHour, tallyEntries } from '$lib/booth/reconcile';
-import { fairTally } from '../booth/tally';
-import { fairCorrections } from '../booth/void';
+import { fairTally } from './tally';
+import { fairCorrections } from './void';
 
 /** Minor units as a plain decimal for the bookkeeper's spreadsheet (no currency sign). */
 export const decimal = (minor: number, currency?: string) => majorText(minor, currency);

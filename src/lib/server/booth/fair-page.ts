@@ -1,8 +1,8 @@
 import type { Role } from '../db/schema';
-import { fairHistory } from '../booth/void';
-import { fairHelperChoices } from './fair-helpers';
-import { fairPieces, type Fair } from './fairs';
-import { workshopShelf } from './load-out';
+import { fairHistory } from './void';
+import { fairHelperChoices } from '../fairs/fair-helpers';
+import { fairPieces, type Fair } from '../fairs/fairs';
+import { workshopShelf } from '../fairs/load-out';
 import { fairFormValues } from '$lib/fairs/form-values';
 
 /**

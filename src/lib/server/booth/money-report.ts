@@ -3,8 +3,8 @@ import { eq, isNotNull } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import { db } from '../db';
 import { boothSales, fairs, orders } from '../db/schema';
-import { decimal } from './report';
-import { fairTally } from '../booth/tally';
+import { decimal } from './fair-report';
+import { fairTally } from './tally';
 
 const PAID = new Set([
 	'paid',

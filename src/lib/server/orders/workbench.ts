@@ -3,7 +3,7 @@ import { desc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { transact } from '../db/retry';
 import { orderHistory, orderNotes, orders, users } from '../db/schema';
-import { refundsOf } from '../orders/refunds';
+import { refundsOf } from './refunds';
 import { DomainError } from '../errors/domain-error';
 
 export async function orderWorkbench(orderId: number) {
