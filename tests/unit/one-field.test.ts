@@ -5,15 +5,9 @@ import { describe, expect, it } from 'vitest';
 /**
  * One way to write a form field: `<Field … />` from $lib/ui (label, input, hint and error, tied
  * together by `for`, `aria-describedby` and `aria-invalid`), or `<Field …>{#snippet children(f)}`
- * spreading `f` onto a select or text area. The older Input and TextField are leaving.
+ * spreading `f` onto a select or text area. The older Input and TextField are gone.
  */
 const src = path.resolve(__dirname, '../../src');
-
-/**
- * Pages still written the old way while another branch changes them; each goes once that branch
- * is merged and the page is moved to Field (the last test fails when one no longer needs it).
- */
-const EXCEPTIONS = new Set(['routes/workshop/settings/+page.svelte']);
 
 function files(dir: string): string[] {
 	return readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -49,17 +43,14 @@ describe('one way to write a form field', () => {
 
 	it('no page imports Input or TextField', () => {
 		const old = pages
-			.filter((p) => !p.name.startsWith('lib/ui/') && !EXCEPTIONS.has(p.name))
+			.filter((p) => !p.name.startsWith('lib/ui/'))
 			.filter((p) => usesOldParts(p.text))
 			.map((p) => p.name);
 		expect(old).toEqual([]);
 	});
 
 	it('a Field with its own control hands it the label, hint and error links', () => {
-		const loose = pages
-			.filter((p) => !EXCEPTIONS.has(p.name))
-			.filter((p) => bareChildren(p.text) > 0)
-			.map((p) => p.name);
+		const loose = pages.filter((p) => bareChildren(p.text) > 0).map((p) => p.name);
 		expect(loose).toEqual([]);
 	});
 
@@ -69,13 +60,5 @@ describe('one way to write a form field', () => {
 			bareChildren('<Field label="A" id="a">\n\t{#snippet children(f)}<textarea {...f}>')
 		).toBe(0);
 		expect(bareChildren('<Field label="A" id="a">\n\t<select id="a"></select></Field>')).toBe(1);
-	});
-
-	it('each exception still needs to be one (remove it once the page is moved)', () => {
-		const stale = [...EXCEPTIONS].filter((n) => {
-			const page = pages.find((p) => p.name === n);
-			return !page || (!usesOldParts(page.text) && bareChildren(page.text) === 0);
-		});
-		expect(stale).toEqual([]);
 	});
 });
