@@ -16,7 +16,7 @@ import { lineTotal, mulDivHalfUp, onlineTax, saleTax, taxOn, taxWithin } from '$
 /**
  * §324 (A) as written, on decimal digits: carry the tax (amount in cents × rate in basis points,
  * i.e. dollars × 10⁻⁶ … ) to the third decimal place of a dollar by truncating, then go up one
- * cent when that third digit is more than four. An independent transcription, not the module's
+ * cent when that third digit is more than four. A second, separate way of working it out, not the module's
  * formula: it never adds a half.
  */
 function section324Cents(amountCents: number, rateBp: number): number {
