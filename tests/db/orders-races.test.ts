@@ -10,9 +10,8 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
-import { testPiece, testStock, testWood } from '../helpers/fixtures';
+import { shelfCount, testCart, testPiece, testStock, testWood } from '../helpers/fixtures';
 import { config } from '$lib/server/config';
-import { addLine } from '$lib/server/cart';
 import { createPendingOrder, placeOrder } from '$lib/server/orders/place';
 import { releaseExpiredHolds } from '$lib/server/orders/holds';
 import { moveOrder, orderHistoryOf } from '$lib/server/orders/status';
@@ -38,21 +37,8 @@ const buyer = (n: string | number): CheckoutInput => ({
 	country: 'US'
 });
 
-async function newCart() {
-	const id = crypto.randomUUID();
-	const now = new Date();
-	await db.insert(s.carts).values({ id, createdAt: now, updatedAt: now });
-	await addLine(id, { slug: `${tag}-piece`, wood: `${tag}-wood`, quantity: 1 });
-	return id;
-}
-
-async function shelf() {
-	const [row] = await db
-		.select({ q: s.stock.quantity })
-		.from(s.stock)
-		.where(and(eq(s.stock.pieceId, pieceId), eq(s.stock.woodId, woodId)));
-	return row.q;
-}
+const newCart = () => testCart(tag);
+const shelf = () => shelfCount(pieceId, woodId);
 const setShelf = (q: number) =>
 	db
 		.update(s.stock)

@@ -5,11 +5,13 @@
  * values a test cares about; the rest are plain defaults.
  */
 import { simpleParser } from 'mailparser';
+import { and, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import * as s from '$lib/server/db/schema';
 import type { PieceKind } from '$lib/catalogue/kinds';
 import { config } from '$lib/server/config';
 import { stripe } from '$lib/server/orders/stripe';
+import { addLine } from '$lib/server/cart';
 
 type WoodRow = typeof s.woods.$inferInsert;
 type PieceRow = typeof s.pieces.$inferInsert;
@@ -72,6 +74,26 @@ export async function testStock(
 	place = 'workshop'
 ) {
 	await db.insert(s.stock).values({ pieceId, woodId, place, quantity });
+}
+
+/** On the workshop shelf now, for the piece in that wood. */
+export async function shelfCount(pieceId: number, woodId: number) {
+	const [row] = await db
+		.select({ q: s.stock.quantity })
+		.from(s.stock)
+		.where(
+			and(eq(s.stock.pieceId, pieceId), eq(s.stock.woodId, woodId), eq(s.stock.place, 'workshop'))
+		);
+	return row.q;
+}
+
+/** A fresh basket holding one of `<tag>-piece` in `<tag>-wood`, through the app's own addLine. */
+export async function testCart(tag: string) {
+	const id = crypto.randomUUID();
+	const now = new Date();
+	await db.insert(s.carts).values({ id, createdAt: now, updatedAt: now });
+	await addLine(id, { slug: `${tag}-piece`, wood: `${tag}-wood`, quantity: 1 });
+	return id;
 }
 
 /** The seeded owner and helper (scripts/seed/data/accounts.ts), as the booth and fair code takes them. */
